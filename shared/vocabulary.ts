@@ -1,0 +1,61 @@
+/**
+ * The product's controlled vocabulary for reference records, with the words shown to people.
+ * Values are stable identifiers stored in the database and used in URLs and the API.
+ */
+export const ABRASIVE_MATERIALS = {
+  'aluminium-oxide': 'Aluminium oxide',
+  'ceramic-alumina': 'Ceramic alumina',
+  'silicon-carbide': 'Silicon carbide',
+  cbn: 'CBN',
+  diamond: 'Diamond',
+  'natural-stone': 'Natural stone',
+} as const;
+export type AbrasiveMaterial = keyof typeof ABRASIVE_MATERIALS;
+
+export const BONDS = {
+  vitrified: 'Vitrified',
+  resin: 'Resin',
+  electroplated: 'Electroplated',
+  metal: 'Metal',
+  none: 'None (loose or natural)',
+} as const;
+export type Bond = keyof typeof BONDS;
+
+export const ABRASIVE_FORMS = {
+  wheel: 'Wheel',
+  'bench-stone': 'Bench stone',
+  belt: 'Belt',
+  plate: 'Plate',
+  compound: 'Compound',
+} as const;
+export type AbrasiveForm = keyof typeof ABRASIVE_FORMS;
+
+export const COOLANTS = {
+  water: 'Water',
+  'water-inhibitor': 'Water with corrosion inhibitor',
+  oil: 'Oil',
+  dry: 'Dry',
+} as const;
+export type Coolant = keyof typeof COOLANTS;
+
+export const STEEL_CATEGORIES = {
+  carbon: 'Carbon steel',
+  'low-alloy': 'Low-alloy steel',
+  'tool': 'Tool steel',
+  'high-speed': 'High-speed steel',
+  stainless: 'Stainless steel',
+} as const;
+export type SteelCategory = keyof typeof STEEL_CATEGORIES;
+
+export const DESIGNATION_SYSTEMS = ['AISI', 'SAE', 'UNS', 'EN', 'WNr', 'JIS', 'GB', 'ISO'] as const;
+export type DesignationSystem = (typeof DESIGNATION_SYSTEMS)[number];
+
+/** Words for a result's states, as shown to people. */
+export const STATUS_LABELS = {
+  draft: 'Draft',
+  pending: 'Awaiting review',
+  approved: 'Published',
+  returned: 'Changes asked',
+  rejected: 'Declined',
+  retracted: 'Withdrawn by author',
+} as const;
