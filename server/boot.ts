@@ -1,0 +1,106 @@
+import path from 'node:path';
+import type { AddressInfo } from 'node:net';
+import type { Server } from 'node:http';
+import type { Env } from './config/env';
+import type { AppContext } from './context';
+import { Database } from './db/database';
+import { SearchIndex } from './search/search-index';
+import { allSearchDocs } from './search/documents';
+import { Mailer } from './mail/mailer';
+import { MailCatcher } from './mail/mail-catcher';
+import { LocalOAuthProvider } from './auth/local-provider';
+import { createApp } from './app';
+import { loadDemoData } from '../seed/load';
+import { User } from './models';
+
+export interface Running {
+  ctx: AppContext;
+  server: Server;
+  url: string;
+  oauthUrl?: string;
+  smtpPort?: number;
+  mailCatcher?: MailCatcher;
+  stop: () => Promise<void>;
+}
+
+/**
+ * Starts the whole product in one process: the local stand-ins (OAuth2 provider, mail catcher)
+ * unless the environment points at hosted ones, the database (migrated, demo data loaded into an
+ * empty one), the search index (built before listening) and the HTTP server.
+ */
+export async function boot(env: Env, log: (line: string) => void = console.log): Promise<Running> {
+  const db = new Database({
+    storage: path.join(env.dataDir, 'edgeledger.sqlite'),
+    url: env.DATABASE_URL,
+    synchronous: env.SQLITE_SYNCHRONOUS,
+  });
+  await db.migrate();
+  if (env.SEED_DEMO === 'auto') {
+    const seeded = await loadDemoData(db);
+    if (seeded.loaded) log(`Loaded the demo data (${seeded.results} invented results).`);
+  }
+
+  let provider: LocalOAuthProvider | undefined;
+  let oauthUrl: string | undefined;
+  let mailCatcher: MailCatcher | undefined;
+  let smtpPort = env.SMTP_PORT;
+  if (env.localProviders) {
+    // Without `as`, the local provider signs in the first demo member, as a hosted one would
+    // sign in whoever is logged in there.
+    const firstMember = await User.findOne({ where: { role: 'member', banned: false }, order: [['id', 'ASC']] });
+    provider = new LocalOAuthProvider(() => firstMember?.oauthSubject);
+    oauthUrl = await provider.start(env.OAUTH_PORT);
+  }
+  if (!env.SMTP_HOST) {
+    mailCatcher = new MailCatcher(env.dataDir);
+    smtpPort = await mailCatcher.start(env.SMTP_PORT);
+  }
+
+  const search = new SearchIndex();
+  const started = Date.now();
+  await search.rebuild(allSearchDocs());
+  const indexMs = Date.now() - started;
+
+  const mailer = new Mailer({ host: env.SMTP_HOST ?? '127.0.0.1', port: smtpPort, user: env.SMTP_USER, password: env.SMTP_PASSWORD, from: env.MAIL_FROM, local: !env.SMTP_HOST });
+  const ctx: AppContext = {
+    env,
+    db,
+    search,
+    mailer,
+    oauth: {
+      authorizeUrl: env.OAUTH_AUTHORIZE_URL ?? `${oauthUrl}/authorize`,
+      tokenUrl: env.OAUTH_TOKEN_URL ?? `${oauthUrl}/token`,
+      userinfoUrl: env.OAUTH_USERINFO_URL ?? `${oauthUrl}/userinfo`,
+      clientId: env.OAUTH_CLIENT_ID,
+      clientSecret: env.OAUTH_CLIENT_SECRET,
+    },
+    baseUrl: '',
+  };
+  const app = createApp(ctx, { clientDir: path.resolve('dist'), mailCatcher });
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(env.PORT, env.HOST, () => resolve(s));
+    s.once('error', reject);
+  });
+  const { port } = server.address() as AddressInfo;
+  const url = `http://${env.HOST}:${port}`;
+  ctx.baseUrl = env.PUBLIC_URL ?? url;
+
+  log(`Search index: ${search.size} documents in ${indexMs} ms.`);
+  if (oauthUrl) log(`Local OAuth2 provider at ${oauthUrl}`);
+  if (mailCatcher) log(`Local mail catcher (SMTP) on 127.0.0.1:${smtpPort}; messages in ${mailCatcher.file}`);
+  log(`Edgeledger ready at ${url}`);
+
+  let stopping: Promise<void> | undefined;
+  const stop = () =>
+    (stopping ??= (async () => {
+      await new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeIdleConnections();
+      });
+      await db.close();
+      mailer.close();
+      await provider?.stop();
+      await mailCatcher?.stop();
+    })());
+  return { ctx, server, url, oauthUrl, smtpPort, mailCatcher, stop };
+}

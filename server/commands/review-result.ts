@@ -1,0 +1,39 @@
+import { can, type Actor } from '@shared/permissions';
+import type { ReviewInput, ResultStatus } from '@shared/schemas/result';
+import { STATUS_LABELS } from '@shared/vocabulary';
+import type { AppContext } from '../context';
+import { conflict, forbidden, notFound } from '../errors';
+import { Result, ResultEvent, User } from '../models';
+import { cellKeyOf, refreshCell } from '../aggregates/comparison-cells';
+import { resultDoc } from '../search/documents';
+import { loadResult } from './submit-result';
+import { notifyReviewOutcome } from './notify-review-outcome';
+
+const outcome: Record<ReviewInput['decision'], ResultStatus> = { approve: 'approved', return: 'returned', reject: 'rejected' };
+
+/**
+ * A moderator's decision on a pending result. The state change, its trail entry and the
+ * comparison cell it touches are written in one transaction; the search index follows at once
+ * after the commit. A result already decided is refused with 409, naming its state.
+ */
+export async function reviewResult(ctx: AppContext, actor: Actor, id: number, review: ReviewInput): Promise<Result> {
+  await ctx.db.write(async (transaction) => {
+    const result = await Result.findByPk(id, { transaction });
+    if (!result) throw notFound('Result');
+    if (!can(actor, 'review:result', { authorId: result.authorId, status: result.status })) {
+      throw forbidden(result.authorId === actor.id ? 'You cannot review your own result.' : 'Only moderators review results.');
+    }
+    if (result.status !== 'pending') {
+      throw conflict(`This result was already decided: it is now "${STATUS_LABELS[result.status]}".`);
+    }
+    const to = outcome[review.decision];
+    await result.update({ status: to, approvedAt: to === 'approved' ? new Date() : null }, { transaction });
+    await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'pending', toStatus: to, note: review.note ?? null }, { transaction });
+    if (to === 'approved') await refreshCell(cellKeyOf(result), transaction);
+  });
+  const result = await loadResult(id);
+  if (result.status === 'approved') ctx.search.upsert(resultDoc(result));
+  const author = result.author as User;
+  notifyReviewOutcome(ctx, author, result, review.note).catch(() => undefined);
+  return result;
+}

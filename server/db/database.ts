@@ -1,0 +1,78 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { Sequelize, Transaction } from 'sequelize';
+import { SequelizeStorage, Umzug } from 'umzug';
+import { sqliteWithPragmas } from './sqlite-driver';
+import { WriteQueue } from './write-queue';
+import { initModels } from '../models';
+import * as m0001 from './migrations/0001-initial';
+
+/** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
+const migrations = [{ name: '0001-initial', module: m0001 }];
+
+export interface DatabaseOptions {
+  /** SQLite file path; ignored when `url` is given. */
+  storage: string;
+  /** Optional database URL (another dialect); SQLite is the default. */
+  url?: string;
+  synchronous?: 'NORMAL' | 'FULL';
+  busyTimeoutMs?: number;
+  logging?: boolean;
+}
+
+/**
+ * The database: Sequelize with every connection set up alike, the migrations, and the one
+ * way to write (`write`), which queues the transaction behind every other write.
+ */
+export class Database {
+  readonly sequelize: Sequelize;
+  readonly queue = new WriteQueue();
+  readonly isSqlite: boolean;
+
+  constructor(readonly options: DatabaseOptions) {
+    this.isSqlite = !options.url;
+    if (this.isSqlite) fs.mkdirSync(path.dirname(path.resolve(options.storage)), { recursive: true });
+    this.sequelize = options.url
+      ? new Sequelize(options.url, { logging: false })
+      : new Sequelize({
+          dialect: 'sqlite',
+          storage: options.storage,
+          dialectModule: sqliteWithPragmas({
+            synchronous: options.synchronous ?? 'NORMAL',
+            busyTimeoutMs: options.busyTimeoutMs ?? 5000,
+          }),
+          logging: options.logging ? console.log : false,
+          pool: { max: 1, idle: 60_000 },
+        });
+    initModels(this.sequelize);
+  }
+
+  /** Applies every pending migration. */
+  async migrate(): Promise<void> {
+    const umzug = new Umzug({
+      migrations: migrations.map(({ name, module }) => ({ name, up: module.up, down: module.down })),
+      context: this.sequelize.getQueryInterface(),
+      storage: new SequelizeStorage({ sequelize: this.sequelize, tableName: 'migrations_applied' }),
+      logger: undefined,
+    });
+    await umzug.up();
+  }
+
+  /**
+   * Runs `work` in a write transaction once every earlier write has finished. Resolves only
+   * after the commit, so a caller that answers 2xx afterwards never acknowledges a lost write.
+   */
+  write<T>(work: (t: Transaction) => Promise<T>): Promise<T> {
+    return this.queue.run(() =>
+      this.sequelize.transaction(
+        this.isSqlite ? { type: Transaction.TYPES.IMMEDIATE } : {},
+        work,
+      ),
+    );
+  }
+
+  async close(): Promise<void> {
+    await this.queue.drain();
+    await this.sequelize.close();
+  }
+}

@@ -1,0 +1,35 @@
+import type { RequestHandler } from 'express';
+import type { z } from 'zod';
+import { badRequest, type FieldIssue } from '../errors';
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    /** Inputs after validation: the parsed values replace the raw ones. */
+    valid: { body?: unknown; query?: unknown; params?: unknown };
+  }
+}
+
+/** Turns zod issues into dotted field paths with messages. */
+export function fieldIssues(error: z.ZodError): FieldIssue[] {
+  return error.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: i.message }));
+}
+
+/**
+ * Validates the request's body, query and params with the given zod schemas; a failure is a
+ * 400 naming every bad field. Handlers read the parsed values from `req.valid`.
+ */
+export function validate(schemas: { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType }): RequestHandler {
+  return (req, _res, next) => {
+    req.valid ??= {};
+    for (const part of ['params', 'query', 'body'] as const) {
+      const schema = schemas[part];
+      if (!schema) continue;
+      const parsed = schema.safeParse(req[part] ?? (part === 'body' ? undefined : {}));
+      if (!parsed.success) {
+        throw badRequest(`Invalid ${part === 'body' ? 'input' : part}.`, fieldIssues(parsed.error));
+      }
+      req.valid[part] = parsed.data;
+    }
+    next();
+  };
+}

@@ -1,0 +1,167 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { RichTextNode } from '@shared/rich-text';
+
+export interface Citation {
+  title: string;
+  organisation: string;
+  year: number | null;
+  standard?: string;
+  url?: string;
+  supports: string;
+}
+
+const common = {
+  id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+  slug: { type: DataTypes.STRING(80), allowNull: false, unique: true },
+  name: { type: DataTypes.STRING(200), allowNull: false },
+  body: { type: DataTypes.JSON, allowNull: true },
+  citations: { type: DataTypes.JSON, allowNull: false, defaultValue: [] },
+  currentRevisionId: { type: DataTypes.INTEGER, allowNull: true },
+  createdAt: DataTypes.DATE,
+  updatedAt: DataTypes.DATE,
+};
+
+/** A steel grade's reference page. */
+export class Steel extends Model<InferAttributes<Steel>, InferCreationAttributes<Steel>> {
+  declare id: CreationOptional<number>;
+  declare slug: string;
+  declare name: string;
+  declare category: string;
+  declare designations: { system: string; code: string }[];
+  /** wt %; min null means the standard gives only a maximum. */
+  declare composition: { element: string; min: number | null; max: number }[];
+  declare hardnessMinHrc: number | null;
+  declare hardnessMaxHrc: number | null;
+  declare body: RichTextNode | null;
+  declare citations: CreationOptional<Citation[]>;
+  declare currentRevisionId: CreationOptional<number | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Steel.init(
+      {
+        ...common,
+        category: { type: DataTypes.STRING(30), allowNull: false },
+        designations: { type: DataTypes.JSON, allowNull: false },
+        composition: { type: DataTypes.JSON, allowNull: false },
+        hardnessMinHrc: { type: DataTypes.FLOAT, allowNull: true },
+        hardnessMaxHrc: { type: DataTypes.FLOAT, allowNull: true },
+      },
+      { sequelize, tableName: 'steels' },
+    );
+  }
+}
+
+/** An abrasive product type's reference page (generic, never a maker's product). */
+export class Abrasive extends Model<InferAttributes<Abrasive>, InferCreationAttributes<Abrasive>> {
+  declare id: CreationOptional<number>;
+  declare slug: string;
+  declare name: string;
+  declare material: string;
+  declare bond: string;
+  declare form: string;
+  declare gritStandard: string;
+  declare gritGrade: string;
+  /** Representative particle size of the labelled grit, µm. */
+  declare gritUm: number;
+  declare gritRange: { from: string; to: string } | null;
+  declare wheelDiameterMm: number | null;
+  declare widthMm: number | null;
+  declare wears: boolean;
+  declare coolant: string;
+  declare sideUsable: boolean;
+  declare body: RichTextNode | null;
+  declare citations: CreationOptional<Citation[]>;
+  declare currentRevisionId: CreationOptional<number | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Abrasive.init(
+      {
+        ...common,
+        material: { type: DataTypes.STRING(30), allowNull: false },
+        bond: { type: DataTypes.STRING(30), allowNull: false },
+        form: { type: DataTypes.STRING(30), allowNull: false },
+        gritStandard: { type: DataTypes.STRING(20), allowNull: false },
+        gritGrade: { type: DataTypes.STRING(40), allowNull: false },
+        gritUm: { type: DataTypes.FLOAT, allowNull: false },
+        gritRange: { type: DataTypes.JSON, allowNull: true },
+        wheelDiameterMm: { type: DataTypes.FLOAT, allowNull: true },
+        widthMm: { type: DataTypes.FLOAT, allowNull: true },
+        wears: { type: DataTypes.BOOLEAN, allowNull: false },
+        coolant: { type: DataTypes.STRING(30), allowNull: false },
+        sideUsable: { type: DataTypes.BOOLEAN, allowNull: false },
+      },
+      { sequelize, tableName: 'abrasives' },
+    );
+  }
+}
+
+/** A written test protocol; a changed protocol is a new row that `replacesId` the old one. */
+export class Method extends Model<InferAttributes<Method>, InferCreationAttributes<Method>> {
+  declare id: CreationOptional<number>;
+  declare slug: string;
+  declare name: string;
+  declare version: number;
+  declare replacesId: number | null;
+  declare instrument: string;
+  declare medium: string;
+  declare readingsPerEdge: number;
+  declare retentionMedium: string | null;
+  declare thresholdG: number | null;
+  declare body: RichTextNode | null;
+  declare citations: CreationOptional<Citation[]>;
+  declare currentRevisionId: CreationOptional<number | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Method.init(
+      {
+        ...common,
+        version: { type: DataTypes.INTEGER, allowNull: false },
+        replacesId: { type: DataTypes.INTEGER, allowNull: true },
+        instrument: { type: DataTypes.STRING(200), allowNull: false },
+        medium: { type: DataTypes.STRING(200), allowNull: false },
+        readingsPerEdge: { type: DataTypes.INTEGER, allowNull: false },
+        retentionMedium: { type: DataTypes.STRING(200), allowNull: true },
+        thresholdG: { type: DataTypes.FLOAT, allowNull: true },
+      },
+      { sequelize, tableName: 'methods' },
+    );
+  }
+}
+
+/** One saved edit of a steel, abrasive or method page; never updated in place except its status. */
+export class PageRevision extends Model<InferAttributes<PageRevision>, InferCreationAttributes<PageRevision>> {
+  declare id: CreationOptional<number>;
+  declare pageType: 'steel' | 'abrasive' | 'method';
+  declare pageId: number;
+  declare authorId: number;
+  declare summary: string;
+  declare fields: Record<string, unknown>;
+  declare body: RichTextNode | null;
+  declare status: 'live' | 'proposed' | 'declined';
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    PageRevision.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        pageType: { type: DataTypes.STRING(20), allowNull: false },
+        pageId: { type: DataTypes.INTEGER, allowNull: false },
+        authorId: { type: DataTypes.INTEGER, allowNull: false },
+        summary: { type: DataTypes.STRING(300), allowNull: false },
+        fields: { type: DataTypes.JSON, allowNull: false },
+        body: { type: DataTypes.JSON, allowNull: true },
+        status: { type: DataTypes.STRING(20), allowNull: false },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'page_revisions' },
+    );
+  }
+}

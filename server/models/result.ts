@@ -1,0 +1,148 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { ResultInput, ResultStatus } from '@shared/schemas/result';
+import type { User } from './user';
+import type { Abrasive, Method, Steel } from './reference-pages';
+
+/**
+ * One measured edge. `input` keeps exactly what was entered; the columns beside it are derived
+ * from it on every write (particle size, grit band as whole φ, HRC, angles, median reading).
+ */
+export class Result extends Model<InferAttributes<Result>, InferCreationAttributes<Result>> {
+  declare id: CreationOptional<number>;
+  declare authorId: number;
+  declare status: ResultStatus;
+  declare steelId: number;
+  declare abrasiveId: number;
+  declare sharpnessMethodId: number;
+  declare retentionMethodId: number | null;
+  declare input: ResultInput;
+  declare material: string;
+  declare hrc: number;
+  declare gritStandard: string;
+  declare gritGrade: string;
+  declare gritUm: number;
+  /** Lower edge of the whole-φ grit band (Krumbein φ = −log2(d / 1 mm)), so larger is finer. */
+  declare gritPhi: number;
+  declare perSideDeg: number;
+  declare inclusiveDeg: number;
+  declare sharpnessMedianG: number;
+  declare retentionCuts: number | null;
+  declare notesHtml: CreationOptional<string>;
+  declare approvedAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare author?: NonAttribute<User>;
+  declare steel?: NonAttribute<Steel>;
+  declare abrasive?: NonAttribute<Abrasive>;
+  declare sharpnessMethod?: NonAttribute<Method>;
+  declare retentionMethod?: NonAttribute<Method>;
+  declare events?: NonAttribute<ResultEvent[]>;
+
+  static initModel(sequelize: Sequelize) {
+    Result.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        authorId: { type: DataTypes.INTEGER, allowNull: false },
+        status: { type: DataTypes.STRING(20), allowNull: false },
+        steelId: { type: DataTypes.INTEGER, allowNull: false },
+        abrasiveId: { type: DataTypes.INTEGER, allowNull: false },
+        sharpnessMethodId: { type: DataTypes.INTEGER, allowNull: false },
+        retentionMethodId: { type: DataTypes.INTEGER, allowNull: true },
+        input: { type: DataTypes.JSON, allowNull: false },
+        material: { type: DataTypes.STRING(30), allowNull: false },
+        hrc: { type: DataTypes.FLOAT, allowNull: false },
+        gritStandard: { type: DataTypes.STRING(20), allowNull: false },
+        gritGrade: { type: DataTypes.STRING(40), allowNull: false },
+        gritUm: { type: DataTypes.FLOAT, allowNull: false },
+        gritPhi: { type: DataTypes.INTEGER, allowNull: false },
+        perSideDeg: { type: DataTypes.FLOAT, allowNull: false },
+        inclusiveDeg: { type: DataTypes.FLOAT, allowNull: false },
+        sharpnessMedianG: { type: DataTypes.FLOAT, allowNull: false },
+        retentionCuts: { type: DataTypes.INTEGER, allowNull: true },
+        notesHtml: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        approvedAt: { type: DataTypes.DATE, allowNull: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'results' },
+    );
+  }
+}
+
+/** One state change of a result: who, when, from which state to which, and why. */
+export class ResultEvent extends Model<InferAttributes<ResultEvent>, InferCreationAttributes<ResultEvent>> {
+  declare id: CreationOptional<number>;
+  declare resultId: number;
+  declare actorId: number;
+  declare fromStatus: ResultStatus | null;
+  declare toStatus: ResultStatus;
+  declare note: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare actor?: NonAttribute<User>;
+
+  static initModel(sequelize: Sequelize) {
+    ResultEvent.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        resultId: { type: DataTypes.INTEGER, allowNull: false },
+        actorId: { type: DataTypes.INTEGER, allowNull: false },
+        fromStatus: { type: DataTypes.STRING(20), allowNull: true },
+        toStatus: { type: DataTypes.STRING(20), allowNull: false },
+        note: { type: DataTypes.TEXT, allowNull: true },
+        createdAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'result_events', updatedAt: false },
+    );
+  }
+}
+
+/** Precomputed aggregate of one comparison cell: method × steel × abrasive material × grit band. */
+export class ComparisonCell extends Model<InferAttributes<ComparisonCell>, InferCreationAttributes<ComparisonCell>> {
+  declare methodId: number;
+  declare steelId: number;
+  declare material: string;
+  declare gritPhi: number;
+  declare n: number;
+  declare testers: number;
+  declare medianG: number;
+  declare q1G: number;
+  declare q3G: number;
+  declare meanG: number;
+  declare sdG: number | null;
+  declare ciLoG: number | null;
+  declare ciHiG: number | null;
+  declare retentionMedianCuts: number | null;
+  declare hrcMin: number;
+  declare hrcMax: number;
+  declare angleMinDeg: number;
+  declare angleMaxDeg: number;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    ComparisonCell.init(
+      {
+        methodId: { type: DataTypes.INTEGER, primaryKey: true },
+        steelId: { type: DataTypes.INTEGER, primaryKey: true },
+        material: { type: DataTypes.STRING(30), primaryKey: true },
+        gritPhi: { type: DataTypes.INTEGER, primaryKey: true },
+        n: { type: DataTypes.INTEGER, allowNull: false },
+        testers: { type: DataTypes.INTEGER, allowNull: false },
+        medianG: { type: DataTypes.FLOAT, allowNull: false },
+        q1G: { type: DataTypes.FLOAT, allowNull: false },
+        q3G: { type: DataTypes.FLOAT, allowNull: false },
+        meanG: { type: DataTypes.FLOAT, allowNull: false },
+        sdG: { type: DataTypes.FLOAT, allowNull: true },
+        ciLoG: { type: DataTypes.FLOAT, allowNull: true },
+        ciHiG: { type: DataTypes.FLOAT, allowNull: true },
+        retentionMedianCuts: { type: DataTypes.FLOAT, allowNull: true },
+        hrcMin: { type: DataTypes.FLOAT, allowNull: false },
+        hrcMax: { type: DataTypes.FLOAT, allowNull: false },
+        angleMinDeg: { type: DataTypes.FLOAT, allowNull: false },
+        angleMaxDeg: { type: DataTypes.FLOAT, allowNull: false },
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'comparison_cells', createdAt: false },
+    );
+  }
+}

@@ -1,0 +1,63 @@
+import { atLeast, can, type Actor } from '@shared/permissions';
+import { bandOfPhi } from '@shared/derive-result';
+import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
+import type { Result } from '../models';
+import { presentAccount } from './user';
+
+const round = (x: number, digits = 2) => Math.round(x * 10 ** digits) / 10 ** digits;
+
+/**
+ * A result as the API gives it: what was entered, the names of what it refers to, the derived
+ * values, and, for its author and moderators only, the review note and the trail.
+ */
+export function presentResult(result: Result, viewer: Actor | null) {
+  const input = result.input;
+  const insider = !!viewer && (viewer.id === result.authorId || atLeast(viewer.role, 'moderator'));
+  const events = [...(result.events ?? [])].sort((a, b) => a.id - b.id);
+  const decision = [...events].reverse().find((e) => e.fromStatus === 'pending' && e.toStatus !== 'pending');
+  return {
+    id: result.id,
+    status: result.status,
+    createdAt: result.createdAt,
+    updatedAt: result.updatedAt,
+    author: result.author ? presentAccount(result.author) : null,
+    steel: input.steel,
+    steelName: result.steel?.name ?? input.steel,
+    hardness: input.hardness,
+    heatTreatment: input.heatTreatment,
+    abrasive: input.abrasive,
+    abrasiveName: result.abrasive?.name ?? input.abrasive,
+    abrasiveMaterial: result.material,
+    abrasiveMaterialLabel: ABRASIVE_MATERIALS[result.material as keyof typeof ABRASIVE_MATERIALS] ?? result.material,
+    bond: result.abrasive?.bond ?? null,
+    grit: input.grit ?? null,
+    edgeAngle: input.edgeAngle,
+    sharpness: input.sharpness,
+    sharpnessMethodName: result.sharpnessMethod?.name ?? input.sharpness.method,
+    retention: input.retention ?? null,
+    notes: input.notes ?? null,
+    notesHtml: result.notesHtml,
+    derived: {
+      gritUm: round(result.gritUm, 3),
+      gritStandard: result.gritStandard,
+      gritGrade: result.gritGrade,
+      gritBand: bandOfPhi(result.gritPhi),
+      hrc: round(result.hrc, 1),
+      perSideDeg: round(result.perSideDeg),
+      inclusiveDeg: round(result.inclusiveDeg),
+      sharpnessMedianG: round(result.sharpnessMedianG),
+    },
+    review:
+      insider && decision
+        ? { decision: decision.toStatus, note: decision.note, at: decision.createdAt, by: decision.actor ? { handle: decision.actor.handle } : null }
+        : null,
+    trail: insider
+      ? events.map((e) => ({ from: e.fromStatus, to: e.toStatus, at: e.createdAt, by: e.actor ? { handle: e.actor.handle } : null, note: e.note }))
+      : [],
+    can: {
+      review: can(viewer, 'review:result', { authorId: result.authorId, status: result.status }) && result.status === 'pending',
+      retract: can(viewer, 'retract:result', { authorId: result.authorId, status: result.status }),
+    },
+  };
+}
+export type PresentedResult = ReturnType<typeof presentResult>;

@@ -1,0 +1,58 @@
+import { Op, type WhereOptions } from 'sequelize';
+import { atLeast, can, type Actor } from '@shared/permissions';
+import { limits } from '@shared/validations';
+import type { z } from 'zod';
+import type { resultListQuerySchema } from '@shared/schemas/result';
+import { forbidden, notFound } from '../errors';
+import { Abrasive, Method, Result, ResultEvent, Steel, User } from '../models';
+import { resultIncludes } from '../search/documents';
+
+const withTrail = [...resultIncludes, { model: ResultEvent, as: 'events', include: [{ model: User, as: 'actor' }] }];
+
+/** One result, if the viewer may see it (approved ones are public; others only to their author and moderators). */
+export async function findResult(id: number, viewer: Actor | null): Promise<Result> {
+  const result = await Result.findByPk(id, { include: withTrail });
+  if (!result || !can(viewer, 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Result');
+  return result;
+}
+
+/**
+ * A page of results, newest first. Visitors and members see approved results, plus all of
+ * their own when they ask for `author=<own handle>`; moderators may ask for any state.
+ */
+export async function listResults(query: z.infer<typeof resultListQuerySchema>, viewer: Actor | null) {
+  const where: WhereOptions<Result> & Record<string, unknown> = {};
+  const author = query.author ? await User.findOne({ where: { handle: query.author } }) : null;
+  if (query.author && !author) return { items: [], page: query.page, pageSize: limits.pageSize, total: 0 };
+  const own = !!author && viewer?.id === author.id;
+  const moderator = !!viewer && atLeast(viewer.role, 'moderator');
+  if (query.status && query.status !== 'approved' && !own && !moderator) throw forbidden('Only moderators may list unapproved results of others.');
+  if (query.status) where.status = query.status;
+  else if (!own) where.status = 'approved';
+  if (author) where.authorId = author.id;
+  const slugFilter = async (model: typeof Steel | typeof Abrasive | typeof Method, slug?: string) => {
+    if (!slug) return undefined;
+    const page = await (model as typeof Steel).findOne({ where: { slug }, attributes: ['id'] });
+    return page?.id ?? -1;
+  };
+  const steelId = await slugFilter(Steel, query.steel);
+  const abrasiveId = await slugFilter(Abrasive, query.abrasive);
+  const methodId = await slugFilter(Method, query.method);
+  if (steelId !== undefined) where.steelId = steelId;
+  if (abrasiveId !== undefined) where.abrasiveId = abrasiveId;
+  if (methodId !== undefined) where[Op.or as unknown as string] = [{ sharpnessMethodId: methodId }, { retentionMethodId: methodId }];
+  const { rows, count } = await Result.findAndCountAll({
+    where,
+    include: withTrail,
+    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    limit: limits.pageSize,
+    offset: (query.page - 1) * limits.pageSize,
+    distinct: true,
+  });
+  return { items: rows, page: query.page, pageSize: limits.pageSize, total: count };
+}
+
+/** Pending results, oldest first: the review desk's queue. */
+export async function reviewQueue(): Promise<Result[]> {
+  return Result.findAll({ where: { status: 'pending' }, include: withTrail, order: [['createdAt', 'ASC'], ['id', 'ASC']], limit: 200 });
+}

@@ -1,0 +1,53 @@
+import type { ComponentType } from 'react';
+import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
+import { paths } from '@/config/paths';
+import { AppLayout } from '@/components/layout/app-layout';
+import { RouteError } from '@/components/errors/route-error';
+
+/**
+ * Turns a module with a default-exported page into a lazy route, so each page is its own
+ * chunk and the first page's JavaScript stays small.
+ */
+function page(load: () => Promise<{ default: ComponentType }>): Pick<RouteObject, 'lazy' | 'ErrorBoundary'> {
+  return {
+    lazy: async () => ({ Component: (await load()).default }),
+    ErrorBoundary: RouteError,
+  };
+}
+
+const routes: RouteObject[] = [
+  {
+    path: '/',
+    Component: AppLayout,
+    ErrorBoundary: RouteError,
+    children: [
+      { index: true, ...page(() => import('./routes/home')) },
+      { path: paths.search.path, ...page(() => import('./routes/search')) },
+      { path: paths.results.path, ...page(() => import('./routes/results')) },
+      { path: paths.newResult.path, ...page(() => import('./routes/new-result')) },
+      { path: paths.result.path, ...page(() => import('./routes/result')) },
+      { path: paths.myResults.path, ...page(() => import('./routes/my-results')) },
+      { path: paths.reviewDesk.path, ...page(() => import('./routes/review-desk')) },
+      { path: paths.compare.path, ...page(() => import('./routes/compare')) },
+      { path: paths.steels.path, ...page(() => import('./routes/steels')) },
+      { path: paths.steel.path, ...page(() => import('./routes/steel')) },
+      { path: paths.abrasives.path, ...page(() => import('./routes/abrasives')) },
+      { path: paths.abrasive.path, ...page(() => import('./routes/abrasive')) },
+      { path: paths.methods.path, ...page(() => import('./routes/methods')) },
+      { path: paths.method.path, ...page(() => import('./routes/method')) },
+      { path: paths.signIn.path, ...page(() => import('./routes/sign-in')) },
+      { path: paths.tools.index.path, ...page(() => import('@/features/tools/components/tools-index')) },
+      { path: paths.tools.grit.path, ...page(() => import('@/features/tools/components/grit-translator')) },
+      { path: paths.tools.angle.path, ...page(() => import('@/features/tools/components/angle-geometry')) },
+      { path: paths.tools.hardness.path, ...page(() => import('@/features/tools/components/hardness-converter')) },
+      { path: '*', ...page(() => import('./routes/not-found')) },
+    ],
+  },
+];
+
+const router = createBrowserRouter(routes);
+
+/** The app's pages, wired to the browser's address bar. */
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,110 @@
+import { useEffect, useId, useState } from 'react';
+import { Link, NavLink, useLocation, useNavigate } from 'react-router-dom';
+import { paths } from '@/config/paths';
+import { useSession, useSignOut } from '@/lib/auth';
+import { useCan } from '@/lib/authorization';
+import { buttonClasses } from '@/components/ui/button';
+import { Wordmark } from './wordmark';
+
+const navItems = [
+  { to: paths.results.getHref(), label: 'Results', end: false },
+  { to: paths.compare.getHref(), label: 'Compare', end: false },
+  { to: paths.steels.getHref(), label: 'Steels', end: false },
+  { to: paths.abrasives.getHref(), label: 'Abrasives', end: false },
+  { to: paths.methods.getHref(), label: 'Methods', end: false },
+  { to: paths.tools.index.getHref(), label: 'Tools', end: false },
+];
+
+function navClass({ isActive }: { isActive: boolean }) {
+  return `block rounded px-2.5 py-1.5 no-underline ${
+    isActive ? 'bg-accent-soft font-semibold text-accent-strong' : 'text-ink hover:bg-paper hover:text-accent-strong'
+  }`;
+}
+
+/** The site header: wordmark, main sections, and who is signed in. */
+export function Header() {
+  const session = useSession();
+  const user = session.data?.user ?? null;
+  const mayReview = useCan('read:review-desk');
+  const location = useLocation();
+  const navigate = useNavigate();
+  const signOut = useSignOut({ onSuccess: () => navigate(paths.home.getHref()) });
+  const [open, setOpen] = useState(false);
+  const menuId = useId();
+  const returnTo = `${location.pathname}${location.search}`;
+
+  // A new page closes the phone menu.
+  useEffect(() => setOpen(false), [location.pathname]);
+
+  return (
+    <header className="border-b border-rule bg-panel">
+      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
+        <Link to={paths.home.getHref()} className="rounded no-underline" aria-label="Edgeledger, home">
+          <Wordmark />
+        </Link>
+        <button
+          type="button"
+          className={`${buttonClasses('secondary', 'sm')} ml-auto md:hidden`}
+          aria-expanded={open}
+          aria-controls={menuId}
+          onClick={() => setOpen((v) => !v)}
+        >
+          Menu
+        </button>
+        <div
+          id={menuId}
+          className={`${open ? 'flex' : 'hidden'} w-full flex-col gap-3 md:flex md:w-auto md:flex-1 md:flex-row md:items-center`}
+        >
+          <nav aria-label="Main" className="md:flex-1">
+            <ul className="flex flex-col gap-1 md:flex-row md:flex-wrap md:items-center">
+              {navItems.map((item) => (
+                <li key={item.to}>
+                  <NavLink to={item.to} end={item.end} className={navClass}>
+                    {item.label}
+                  </NavLink>
+                </li>
+              ))}
+              {mayReview ? (
+                <li>
+                  <NavLink to={paths.reviewDesk.getHref()} className={navClass}>
+                    Review desk
+                  </NavLink>
+                </li>
+              ) : null}
+            </ul>
+          </nav>
+          <div className="flex flex-wrap items-center gap-2">
+            {session.isPending ? null : user ? (
+              <>
+                <Link to={paths.newResult.getHref()} className={buttonClasses('primary', 'sm')}>
+                  Post a result
+                </Link>
+                <NavLink to={paths.myResults.getHref()} className={navClass}>
+                  <span className="sr-only">My results, signed in as </span>
+                  {user.displayName}
+                </NavLink>
+                <button
+                  type="button"
+                  className={buttonClasses('quiet', 'sm')}
+                  onClick={() => signOut.mutate()}
+                  disabled={signOut.isPending}
+                >
+                  Sign out
+                </button>
+              </>
+            ) : (
+              <Link to={paths.signIn.getHref(returnTo)} className={buttonClasses('secondary', 'sm')}>
+                Sign in
+              </Link>
+            )}
+          </div>
+        </div>
+      </div>
+      {signOut.isError ? (
+        <p role="alert" className="bg-danger-soft px-4 py-2 text-center text-danger">
+          Signing out failed. Try again.
+        </p>
+      ) : null}
+    </header>
+  );
+}

@@ -1,0 +1,75 @@
+/**
+ * Every URL the client links to, built in one place so no page types a path by hand.
+ * `path` is the router pattern; `getHref` builds a concrete link.
+ */
+
+function withQuery(base: string, params: Record<string, string | number | undefined | null>): string {
+  const search = new URLSearchParams();
+  for (const [key, value] of Object.entries(params)) {
+    if (value !== undefined && value !== null && value !== '') search.set(key, String(value));
+  }
+  const qs = search.toString();
+  return qs ? `${base}?${qs}` : base;
+}
+
+/** Filters of the comparison page, as they appear in its URL. */
+export interface CompareFilters {
+  method?: string;
+  steel?: string;
+  material?: string;
+  hrcMin?: string;
+  hrcMax?: string;
+}
+
+/** Filters of the results list, as they appear in its URL. */
+export interface ResultFilters {
+  steel?: string;
+  abrasive?: string;
+  method?: string;
+  page?: number;
+}
+
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+  search: { path: '/search', getHref: (q?: string) => withQuery('/search', { q }) },
+  results: {
+    path: '/results',
+    getHref: (filters: ResultFilters = {}) => withQuery('/results', { ...filters }),
+  },
+  newResult: { path: '/results/new', getHref: () => '/results/new' },
+  result: { path: '/results/:id', getHref: (id: number | string) => `/results/${encodeURIComponent(String(id))}` },
+  myResults: { path: '/me', getHref: () => '/me' },
+  reviewDesk: {
+    path: '/review',
+    getHref: (open?: number) => withQuery('/review', { open }),
+  },
+  compare: { path: '/compare', getHref: (filters: CompareFilters = {}) => withQuery('/compare', { ...filters }) },
+  steels: { path: '/steels', getHref: () => '/steels' },
+  steel: { path: '/steels/:slug', getHref: (slug: string) => `/steels/${encodeURIComponent(slug)}` },
+  abrasives: { path: '/abrasives', getHref: () => '/abrasives' },
+  abrasive: { path: '/abrasives/:slug', getHref: (slug: string) => `/abrasives/${encodeURIComponent(slug)}` },
+  methods: { path: '/methods', getHref: () => '/methods' },
+  method: { path: '/methods/:slug', getHref: (slug: string) => `/methods/${encodeURIComponent(slug)}` },
+  tools: {
+    index: { path: '/tools', getHref: () => '/tools' },
+    grit: { path: '/tools/grit', getHref: () => '/tools/grit' },
+    angle: { path: '/tools/angle', getHref: () => '/tools/angle' },
+    hardness: { path: '/tools/hardness', getHref: () => '/tools/hardness' },
+  },
+  signIn: { path: '/sign-in', getHref: (returnTo?: string) => withQuery('/sign-in', { returnTo }) },
+  /** Server routes: reached by a full-page navigation, never by the client router. */
+  auth: {
+    signIn: (returnTo: string, as?: string) => withQuery('/auth/signin', { as, returnTo }),
+    signOut: '/auth/signout',
+    demoAccounts: '/auth/demo-accounts',
+  },
+} as const;
+
+/**
+ * A returnTo value is only honoured when it is a path on this site, so a crafted link cannot
+ * send someone elsewhere after signing in.
+ */
+export function safeReturnTo(value: string | null | undefined): string {
+  if (!value || !value.startsWith('/') || value.startsWith('//') || value.startsWith('/\\')) return '/';
+  return value;
+}

@@ -1,0 +1,191 @@
+/**
+ * Shapes of what the server sends back (API v1). Inputs are typed by the shared zod schemas;
+ * these are the outputs, which the server's presenters build.
+ */
+import type { RichTextNode } from '@shared/rich-text';
+import type { Role } from '@shared/permissions';
+import type { ResultStatus } from '@shared/schemas/result';
+import type { HardnessScale } from '@shared/hardness';
+import type { GritStandard } from '@shared/grit';
+
+export interface SessionUser {
+  handle: string;
+  displayName: string;
+  role: Role;
+}
+
+export interface Session {
+  user: SessionUser | null;
+  csrfToken: string;
+}
+
+export interface DemoAccount {
+  handle: string;
+  displayName?: string;
+  role: Role;
+}
+
+/** A particle-size class in micrometres, lower and upper bound. */
+export interface GritBand {
+  loUm: number;
+  hiUm: number;
+}
+
+export interface WheelSetupValues {
+  wheelDiameterMm: number;
+  barDiameterMm: number;
+  gapMm: number;
+  projectionMm: number;
+}
+
+export interface TrailEntry {
+  from: ResultStatus | null;
+  to: ResultStatus;
+  at: string;
+  by: { handle: string };
+  note: string | null;
+}
+
+export interface Result {
+  id: number;
+  status: ResultStatus;
+  createdAt: string;
+  updatedAt: string;
+  author: SessionUser;
+  steel: string;
+  steelName: string;
+  hardness: { value: number; scale: HardnessScale; measured?: boolean };
+  heatTreatment?: string | null;
+  abrasive: string;
+  abrasiveName: string;
+  abrasiveMaterial: string;
+  bond: string;
+  grit: { standard?: GritStandard | null; grade: string } | null;
+  edgeAngle: { perSideDeg: number } | { setup: WheelSetupValues };
+  sharpness: { method: string; readingsG: number[] };
+  sharpnessMethodName: string;
+  retention: { method: string; cuts: number } | null;
+  notes: RichTextNode | null;
+  notesHtml: string;
+  derived: {
+    gritUm: number | null;
+    gritStandard: string | null;
+    gritGrade: string | null;
+    gritBand: GritBand | null;
+    hrc: number;
+    perSideDeg: number;
+    inclusiveDeg: number;
+    sharpnessMedianG: number;
+  };
+  review: { decision: 'approve' | 'return' | 'reject'; note: string | null; at: string; by: { handle: string } } | null;
+  trail: TrailEntry[];
+  can: { review: boolean; retract: boolean };
+}
+
+export interface Page<T> {
+  items: T[];
+  page: number;
+  pageSize: number;
+  total: number;
+}
+
+export interface CompareRow {
+  method: string;
+  methodName: string;
+  steel: string;
+  steelName: string;
+  material: string;
+  materialLabel: string;
+  gritBand: GritBand;
+  n: number;
+  testers: number;
+  sharpnessG: { median: number; q1: number; q3: number; mean: number; sd: number | null; ci95: [number, number] | null };
+  retentionCuts: { median: number } | null;
+}
+
+export type SearchHitType = 'steel' | 'abrasive' | 'method' | 'result';
+
+export interface SearchHit {
+  type: SearchHitType;
+  id?: number;
+  slug?: string;
+  title: string;
+  snippet: string;
+  score: number;
+}
+
+export interface SearchResponse {
+  hits: SearchHit[];
+  facets: Record<SearchHitType, number>;
+}
+
+export interface Designation {
+  system: string;
+  code: string;
+}
+
+export interface SteelSummary {
+  slug: string;
+  name: string;
+  category: string;
+  designations: Designation[];
+  hardnessHrc: { min: number; max: number } | null;
+  resultCount: number;
+}
+
+export interface Citation {
+  title: string;
+  organisation: string;
+  year: number;
+  standard?: string;
+  url?: string;
+  supports: string;
+}
+
+export interface SteelDetail extends SteelSummary {
+  composition: { element: string; min: number | null; max: number | null }[];
+  body: RichTextNode | null;
+  bodyHtml: string;
+  citations: Citation[];
+  revision: number | { id: number; at?: string; by?: { handle: string }; summary?: string } | null;
+}
+
+export interface AbrasiveSummary {
+  slug: string;
+  name: string;
+  material: string;
+  bond: string;
+  form: string;
+  grit: { standard: string; grade: string } | null;
+  gritUm: number | null;
+  wheelDiameterMm: number | null;
+  wears: boolean;
+  coolant: string;
+  sideUsable: boolean;
+  resultCount: number;
+}
+
+export interface AbrasiveDetail extends AbrasiveSummary {
+  gritRange: { from: string; to: string } | string | null;
+  widthMm: number | null;
+  body: RichTextNode | null;
+  bodyHtml: string;
+  revision: SteelDetail['revision'];
+}
+
+export interface MethodSummary {
+  slug: string;
+  name: string;
+  version: number | string;
+  replacesSlug: string | null;
+  instrument: string;
+  medium: string;
+  readingsPerEdge: number;
+  retentionMedium: string | null;
+  thresholdG: number | null;
+}
+
+export interface MethodDetail extends MethodSummary {
+  body: RichTextNode | null;
+  bodyHtml: string;
+}
