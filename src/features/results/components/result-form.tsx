@@ -1,0 +1,526 @@
+import { lazy, Suspense, useMemo, useState, type ReactNode } from 'react';
+import { Controller, useForm, useWatch, type FieldError, type FieldErrors, type Resolver } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { GRIT_STANDARDS, gritBand, parseGrit, type GritStandard } from '@shared/grit';
+import { HARDNESS_SCALES, toHrc } from '@shared/hardness';
+import { angleFromSetup } from '@shared/geometry';
+import { median } from '@shared/stats';
+import { limits } from '@shared/validations';
+import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
+import { ApiError } from '@/lib/api-client';
+import { friendlyZodMessages } from '@/lib/zod-messages';
+import { formatDegrees, formatGrams, formatGritBand, formatMicrometres, formatNumber, label } from '@/lib/format';
+import { Button } from '@/components/ui/button';
+import { controlA11y, Field, Input, Select, sentence } from '@/components/ui/field';
+import { describeError, Loading } from '@/components/ui/states';
+import type { AbrasiveSummary, MethodSummary, Result, SteelSummary } from '@/types/api';
+import { resultInputSchema, useCreateResult, type ResultInput } from '../api/create-result';
+import {
+  emptyResultForm,
+  flattenErrors,
+  formFieldFor,
+  parseReadings,
+  readingMessage,
+  toResultInput,
+  type ResultFormValues,
+} from './result-form-values';
+
+// The editor is about as large as the rest of the app together: it loads only when this form shows.
+const NotesEditor = lazy(() => import('./notes-editor'));
+
+/** Names of the grit standards as the form shows them (standard designations, our own wording). */
+const GRIT_STANDARD_LABELS: Record<string, string> = {
+  'fepa-f': 'FEPA F (bonded abrasives, F-grits)',
+  'fepa-p': 'FEPA P / ISO 6344 (coated abrasives, P-grits)',
+  jis: 'JIS R6001',
+  ansi: 'ANSI (US grit)',
+  mesh: 'US mesh (ASTM E11 sieves)',
+  iso6106: 'ISO 6106 superabrasive (e.g. D46, B126)',
+  um: 'Particle size in µm',
+};
+
+const zodForm = zodResolver(resultInputSchema, { error: friendlyZodMessages });
+
+function setPath(target: Record<string, unknown>, path: string, value: unknown) {
+  const keys = path.split('.');
+  let node = target;
+  keys.slice(0, -1).forEach((k) => {
+    node[k] = (node[k] as Record<string, unknown>) ?? {};
+    node = node[k] as Record<string, unknown>;
+  });
+  node[keys[keys.length - 1]] = value;
+}
+
+/**
+ * zodResolver over the shared schema, fed with the form's values translated to the API input;
+ * its errors are moved back onto the boxes the person typed in (e.g. a bad third reading is
+ * shown under the readings box), and errors of the angle mode not in use are dropped.
+ */
+const resultResolver: Resolver<ResultFormValues, unknown, ResultInput> = async (values, context, options) => {
+  const out = await zodForm(toResultInput(values) as ResultInput, context, options as never);
+  if (Object.keys(out.errors).length === 0) return { values: out.values as ResultInput, errors: {} };
+  const errors: Record<string, unknown> = {};
+  const seen = new Set<string>();
+  for (const { path, error } of flattenErrors(out.errors)) {
+    const field = formFieldFor(path, values.angleMode);
+    if (!field || seen.has(field)) continue;
+    if (values.angleMode === 'perSide' && field.startsWith('edgeAngle.setup')) continue;
+    if (values.angleMode === 'setup' && field === 'edgeAngle.perSideDeg') continue;
+    seen.add(field);
+    const ref = (options.fields as Record<string, { ref?: unknown } | undefined>)[field]?.ref;
+    setPath(errors, field, { type: error.type, message: readingMessage(path, error.message ?? 'invalid'), ref });
+  }
+  if (seen.size === 0) errors.root = { type: 'schema', message: 'Some entries are not valid.' };
+  return { values: {}, errors: errors as FieldErrors<ResultFormValues> };
+};
+
+/** Runs a computation for a live preview; a refusal becomes a message instead of a value. */
+function attempt<T>(run: () => T): { value: T; error?: undefined } | { value?: undefined; error: string } {
+  try {
+    return { value: run() };
+  } catch (err) {
+    return { error: err instanceof Error ? err.message : 'cannot be computed' };
+  }
+}
+
+function Preview({ id, children, tone = 'muted' }: { id: string; children: ReactNode; tone?: 'muted' | 'caution' }) {
+  return (
+    <p id={id} aria-live="polite" className={`text-sm ${tone === 'caution' ? 'text-caution' : 'text-muted'}`}>
+      {children}
+    </p>
+  );
+}
+
+function Fieldset({ legend, children, aside }: { legend: string; children: ReactNode; aside?: string }) {
+  return (
+    <fieldset className="rounded-md border border-rule bg-panel px-4 pb-4 pt-2">
+      <legend className="px-1 font-serif text-lg font-semibold">
+        {legend}
+        {aside ? <span className="ml-2 font-sans text-sm font-normal text-muted">{aside}</span> : null}
+      </legend>
+      <div className="mt-2 grid gap-4 sm:grid-cols-2">{children}</div>
+    </fieldset>
+  );
+}
+
+export interface ResultFormProps {
+  steels: SteelSummary[];
+  abrasives: AbrasiveSummary[];
+  methods: MethodSummary[];
+  onCreated: (result: Result) => void;
+}
+
+/**
+ * The new-result form: one measured edge. It validates as the person types with the same
+ * schema the server uses, previews the derived values (HRC, µm and grit band, angle, median
+ * reading) and, if the server still refuses something, shows its words under the right box.
+ */
+export function ResultForm({ steels, abrasives, methods, onCreated }: ResultFormProps) {
+  const create = useCreateResult();
+  const [unplaced, setUnplaced] = useState<string[]>([]);
+  const {
+    register,
+    control,
+    handleSubmit,
+    setError,
+    formState: { errors, isSubmitted, isValid },
+  } = useForm<ResultFormValues, unknown, ResultInput>({
+    mode: 'onChange',
+    resolver: resultResolver,
+    defaultValues: emptyResultForm,
+  });
+
+  const values = useWatch({ control });
+  const angleMode = values.angleMode ?? 'perSide';
+  const abrasive = abrasives.find((a) => a.slug === values.abrasive);
+
+  const hrcPreview = useMemo(() => {
+    const v = values.hardness?.value;
+    const scale = values.hardness?.scale ?? 'HRC';
+    if (v === undefined || Number.isNaN(v)) return null;
+    if (scale === 'HRC') return null;
+    const r = attempt(() => toHrc(v, scale));
+    if (r.error !== undefined) return { error: r.error };
+    return Number.isFinite(r.value) ? { text: `≈ ${formatNumber(r.value, 1)} HRC` } : { error: 'no HRC equivalent for this value' };
+  }, [values.hardness?.value, values.hardness?.scale]);
+
+  const gritPreview = useMemo(() => {
+    const grade = values.grit?.grade?.trim();
+    if (!grade) return null;
+    const r = attempt(() => parseGrit(grade, (values.grit?.standard || undefined) as GritStandard | undefined));
+    if (r.error !== undefined) return { error: r.error };
+    const band = gritBand(r.value.micrometres);
+    return {
+      text: `${r.value.grade}${r.value.inferred ? ` (read as ${GRIT_STANDARD_LABELS[r.value.standard] ?? r.value.standard})` : ''} ≈ ${formatMicrometres(r.value.micrometres)} µm, grit band ${formatGritBand(band)}`,
+    };
+  }, [values.grit?.grade, values.grit?.standard]);
+
+  const setup = values.edgeAngle?.setup;
+  const anglePreview = useMemo(() => {
+    if (angleMode === 'perSide') {
+      const deg = values.edgeAngle?.perSideDeg;
+      return deg !== undefined && Number.isFinite(deg) ? { text: `${formatDegrees(deg * 2)} inclusive` } : null;
+    }
+    if (!setup) return null;
+    const nums = [setup.wheelDiameterMm, setup.barDiameterMm, setup.gapMm, setup.projectionMm];
+    if (nums.some((n) => n === undefined || Number.isNaN(n))) return null;
+    const r = attempt(() => angleFromSetup(setup as Required<typeof setup>));
+    if (r.error !== undefined) return { error: r.error };
+    if (!Number.isFinite(r.value.perSideDeg)) return { error: 'the blade cannot touch the wheel with these measurements' };
+    return { text: `${formatDegrees(r.value.perSideDeg)} per side, ${formatDegrees(r.value.inclusiveDeg)} inclusive` };
+  }, [angleMode, values.edgeAngle?.perSideDeg, setup]);
+
+  const readings = parseReadings(values.sharpness?.readingsText ?? '');
+  const goodReadings = readings.filter((n) => Number.isFinite(n) && n > 0);
+  const readingsPreview =
+    goodReadings.length > 0 && goodReadings.length === readings.length
+      ? `${goodReadings.length} reading${goodReadings.length === 1 ? '' : 's'}, median ${formatGrams(median(goodReadings), 1)}`
+      : null;
+
+  const onSubmit = (input: ResultInput) => {
+    setUnplaced([]);
+    create.mutate(input, {
+      onSuccess: onCreated,
+      onError: (err) => {
+        if (!(err instanceof ApiError) || err.status !== 400) return;
+        const leftOver: string[] = [];
+        for (const issue of err.issues) {
+          const field = formFieldFor(issue.path, angleMode);
+          const message = readingMessage(issue.path, issue.message);
+          if (field) setError(field, { type: 'server', message }, { shouldFocus: leftOver.length === 0 });
+          else leftOver.push(issue.path ? `${issue.path}: ${issue.message}` : issue.message);
+        }
+        setUnplaced(leftOver);
+      },
+    });
+  };
+
+  const err = (e: FieldError | undefined) => e?.message;
+  const steelError = err(errors.steel);
+  const hvError = err(errors.hardness?.value);
+  const scaleError = err(errors.hardness?.scale);
+  const heatError = err(errors.heatTreatment);
+  const abrasiveError = err(errors.abrasive);
+  const standardError = err(errors.grit?.standard);
+  const gradeError = err(errors.grit?.grade);
+  const perSideError = err(errors.edgeAngle?.perSideDeg);
+  const setupErrors = errors.edgeAngle?.setup;
+  const setupGroupError = err(setupErrors as FieldError | undefined);
+  const methodError = err(errors.sharpness?.method);
+  const readingsError = err(errors.sharpness?.readingsText);
+  const retMethodError = err(errors.retention?.method);
+  const cutsError = err(errors.retention?.cuts);
+  const notesError = err(errors.notes as FieldError | undefined);
+  const fieldErrorCount = flattenErrors(errors).length;
+
+  const setupField = (
+    name: 'wheelDiameterMm' | 'barDiameterMm' | 'gapMm' | 'projectionMm',
+    text: string,
+    hint: string,
+  ) => {
+    const id = `result-setup-${name}`;
+    const e = err(setupErrors?.[name]);
+    return (
+      <Field id={id} label={text} hint={hint} error={e}>
+        <Input
+          {...controlA11y(id, { hint, error: e })}
+          type="number"
+          step="any"
+          inputMode="decimal"
+          {...register(`edgeAngle.setup.${name}`, { valueAsNumber: true })}
+        />
+      </Field>
+    );
+  };
+
+  return (
+    <form noValidate onSubmit={handleSubmit(onSubmit)} aria-label="New result" className="flex flex-col gap-6">
+      {isSubmitted && fieldErrorCount > 0 ? (
+        <div role="alert" className="rounded-md border border-danger/40 bg-danger-soft px-4 py-3">
+          <p className="font-semibold text-danger">
+            {fieldErrorCount === 1 ? 'One entry needs attention' : `${fieldErrorCount} entries need attention`}; each is marked below.
+          </p>
+        </div>
+      ) : null}
+
+      <Fieldset legend="Steel">
+        <Field id="result-steel" label="Steel" error={steelError} className="sm:col-span-2">
+          <Select {...controlA11y('result-steel', { error: steelError })} {...register('steel')}>
+            <option value="">Choose a steel…</option>
+            {steels.map((s) => (
+              <option key={s.slug} value={s.slug}>
+                {s.name}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field
+          id="result-hardness"
+          label="Hardness"
+          hint={hrcPreview && 'text' in hrcPreview ? hrcPreview.text : 'As measured or as stated by whoever heat-treated it.'}
+          error={hvError}
+        >
+          <Input
+            {...controlA11y('result-hardness', { hint: true, error: hvError })}
+            type="number"
+            step="any"
+            inputMode="decimal"
+            {...register('hardness.value', { valueAsNumber: true })}
+          />
+        </Field>
+        <Field id="result-scale" label="Hardness scale" error={scaleError}>
+          <Select {...controlA11y('result-scale', { error: scaleError })} {...register('hardness.scale')}>
+            {HARDNESS_SCALES.map((s) => (
+              <option key={s} value={s}>
+                {s}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        {hrcPreview && 'error' in hrcPreview ? (
+          <div className="sm:col-span-2">
+            <Preview id="result-hardness-preview" tone="caution">
+              HRC equivalent: {sentence(hrcPreview.error)}
+            </Preview>
+          </div>
+        ) : null}
+        <div className="flex items-center gap-2 sm:col-span-2">
+          <input id="result-measured" type="checkbox" className="h-4 w-4 accent-accent" {...register('hardness.measured')} />
+          <label htmlFor="result-measured">I measured the hardness myself</label>
+        </div>
+        <Field id="result-heat" label="Heat treatment" aside="optional" error={heatError} className="sm:col-span-2">
+          <Input
+            {...controlA11y('result-heat', { error: heatError })}
+            maxLength={500}
+            placeholder="e.g. hardened 1030 °C, tempered twice at 200 °C"
+            {...register('heatTreatment')}
+          />
+        </Field>
+      </Fieldset>
+
+      <Fieldset legend="Final abrasive and grit">
+        <Field
+          id="result-abrasive"
+          label="Final abrasive"
+          hint={
+            abrasive
+              ? `${label(ABRASIVE_MATERIALS, abrasive.material)}${abrasive.grit ? `, ${abrasive.grit.grade}` : ''}${abrasive.gritUm ? ` (≈ ${formatMicrometres(abrasive.gritUm)} µm)` : ''}`
+              : 'The last abrasive the edge saw before it was measured.'
+          }
+          error={abrasiveError}
+          className="sm:col-span-2"
+        >
+          <Select {...controlA11y('result-abrasive', { hint: true, error: abrasiveError })} {...register('abrasive')}>
+            <option value="">Choose an abrasive…</option>
+            {abrasives.map((a) => (
+              <option key={a.slug} value={a.slug}>
+                {a.name}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field id="result-grit-standard" label="Grit standard" aside="optional" error={standardError}>
+          <Select {...controlA11y('result-grit-standard', { error: standardError })} {...register('grit.standard')}>
+            <option value="">Work it out from the grade</option>
+            {GRIT_STANDARDS.map((s) => (
+              <option key={s} value={s}>
+                {GRIT_STANDARD_LABELS[s] ?? s}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field
+          id="result-grit-grade"
+          label="Grit grade"
+          aside="optional"
+          hint={
+            gritPreview && 'text' in gritPreview
+              ? gritPreview.text
+              : 'e.g. F400, P1000, #1000, D46, 140/170 or 15 µm. Leave empty to use the abrasive’s own grit.'
+          }
+          error={gradeError}
+        >
+          <Input
+            {...controlA11y('result-grit-grade', { hint: true, error: gradeError })}
+            maxLength={40}
+            autoComplete="off"
+            {...register('grit.grade')}
+          />
+        </Field>
+        {gritPreview && 'error' in gritPreview && !gradeError ? (
+          <div className="sm:col-span-2">
+            <Preview id="result-grit-preview" tone="caution">
+              {sentence(gritPreview.error)}
+            </Preview>
+          </div>
+        ) : null}
+      </Fieldset>
+
+      <fieldset className="rounded-md border border-rule bg-panel px-4 pb-4 pt-2">
+        <legend className="px-1 font-serif text-lg font-semibold">Edge angle</legend>
+        <div role="radiogroup" aria-label="How the angle is given" className="mt-2 flex flex-wrap gap-x-6 gap-y-2">
+          <label className="flex items-center gap-2">
+            <input type="radio" value="perSide" className="h-4 w-4 accent-accent" {...register('angleMode')} />
+            Degrees per side
+          </label>
+          <label className="flex items-center gap-2">
+            <input type="radio" value="setup" className="h-4 w-4 accent-accent" {...register('angleMode')} />
+            From my wheel setup
+          </label>
+        </div>
+        <div className="mt-4 grid gap-4 sm:grid-cols-2">
+          {angleMode === 'perSide' ? (
+            <Field
+              id="result-per-side"
+              label="Angle per side (°)"
+              hint={anglePreview && 'text' in anglePreview ? anglePreview.text : 'Half the inclusive angle.'}
+              error={perSideError}
+            >
+              <Input
+                {...controlA11y('result-per-side', { hint: true, error: perSideError })}
+                type="number"
+                step="any"
+                inputMode="decimal"
+                {...register('edgeAngle.perSideDeg', { valueAsNumber: true })}
+              />
+            </Field>
+          ) : (
+            <>
+              {setupField('wheelDiameterMm', 'Wheel diameter (mm)', 'Measure the wheel today: a vitrified wheel shrinks as it wears.')}
+              {setupField('barDiameterMm', 'Support bar diameter (mm)', 'The round bar the blade’s jig rests on.')}
+              {setupField('gapMm', 'Gap, bar to rim (mm)', 'Shortest distance from the bar to the wheel’s surface.')}
+              {setupField('projectionMm', 'Projection (mm)', 'From the bar’s axis to the edge, along the blade.')}
+              <div className="sm:col-span-2">
+                {setupGroupError ? (
+                  <p id="result-setup-error" className="text-sm font-medium text-danger">
+                    {sentence(setupGroupError)}
+                  </p>
+                ) : anglePreview ? (
+                  <Preview id="result-setup-preview" tone={'error' in anglePreview ? 'caution' : 'muted'}>
+                    {'text' in anglePreview ? `Angle from this setup: ${anglePreview.text}` : sentence(anglePreview.error)}
+                  </Preview>
+                ) : (
+                  <Preview id="result-setup-preview">Fill in all four to see the angle.</Preview>
+                )}
+              </div>
+            </>
+          )}
+        </div>
+      </fieldset>
+
+      <Fieldset legend="Sharpness">
+        <Field id="result-method" label="Sharpness method" error={methodError}>
+          <Select {...controlA11y('result-method', { error: methodError })} {...register('sharpness.method')}>
+            <option value="">Choose a method…</option>
+            {methods.map((m) => (
+              <option key={m.slug} value={m.slug}>
+                {m.name}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field
+          id="result-readings"
+          label="Readings (g)"
+          hint={
+            readingsPreview ??
+            `Grams of force to cut the test medium, one per test; separate them with commas or spaces (up to ${limits.readingsMax}).`
+          }
+          error={readingsError}
+        >
+          <Input
+            {...controlA11y('result-readings', { hint: true, error: readingsError })}
+            inputMode="decimal"
+            autoComplete="off"
+            placeholder="e.g. 142, 150, 138"
+            {...register('sharpness.readingsText')}
+          />
+        </Field>
+        <p className="text-sm text-muted sm:col-span-2">
+          Test sharpness with the instrument and its test medium, never on skin.
+        </p>
+      </Fieldset>
+
+      <Fieldset legend="Edge retention" aside="optional">
+        <Field id="result-retention-method" label="Retention method" error={retMethodError}>
+          <Select {...controlA11y('result-retention-method', { error: retMethodError })} {...register('retention.method')}>
+            <option value="">Not tested</option>
+            {methods.map((m) => (
+              <option key={m.slug} value={m.slug}>
+                {m.name}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field id="result-cuts" label="Cuts until dull" hint="Cuts counted before the method’s threshold was reached." error={cutsError}>
+          <Input
+            {...controlA11y('result-cuts', { hint: true, error: cutsError })}
+            type="number"
+            step="1"
+            min="0"
+            inputMode="numeric"
+            {...register('retention.cuts', { valueAsNumber: true })}
+          />
+        </Field>
+      </Fieldset>
+
+      <div className="flex flex-col gap-1">
+        <label htmlFor="result-notes" className="font-serif text-lg font-semibold">
+          Notes <span className="font-sans text-sm font-normal text-muted">optional</span>
+        </label>
+        <p id="result-notes-hint" className="text-sm text-muted">
+          How the edge was made and measured: progression, passes, deburring, anything unusual.
+        </p>
+        <Controller
+          control={control}
+          name="notes"
+          render={({ field }) => (
+            <Suspense fallback={<Loading label="Loading the editor…" />}>
+              <NotesEditor
+                id="result-notes"
+                value={field.value}
+                onChange={field.onChange}
+                onBlur={field.onBlur}
+                describedBy={notesError ? 'result-notes-hint result-notes-error' : 'result-notes-hint'}
+                invalid={Boolean(notesError)}
+              />
+            </Suspense>
+          )}
+        />
+        {notesError ? (
+          <p id="result-notes-error" className="text-sm font-medium text-danger">
+            {sentence(notesError)}
+          </p>
+        ) : null}
+      </div>
+
+      {create.isError ? (
+        <div role="alert" className="rounded-md border border-danger/40 bg-danger-soft px-4 py-3">
+          <p className="font-semibold text-danger">The result was not saved.</p>
+          <p>
+            {create.error instanceof ApiError && create.error.status === 400
+              ? `${create.error.error}${unplaced.length ? '' : ' The boxes concerned are marked.'}`
+              : describeError(create.error)}
+          </p>
+          {unplaced.length ? (
+            <ul className="mt-1 list-disc pl-5">
+              {unplaced.map((u) => (
+                <li key={u}>{u}</li>
+              ))}
+            </ul>
+          ) : null}
+        </div>
+      ) : null}
+
+      <div className="flex flex-wrap items-center gap-3">
+        <Button type="submit" busy={create.isPending}>
+          {create.isPending ? 'Submitting…' : 'Submit for review'}
+        </Button>
+        <p className="text-sm text-muted">
+          {isValid ? 'Ready to submit.' : 'Fields are checked as you type.'} A moderator reviews each result before it is
+          published.
+        </p>
+      </div>
+    </form>
+  );
+}

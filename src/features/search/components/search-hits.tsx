@@ -1,0 +1,67 @@
+import { Link } from 'react-router-dom';
+import { paths } from '@/config/paths';
+import type { SearchHit, SearchHitType } from '@/types/api';
+import { Highlight } from './highlight';
+
+/** The order and headings of the groups of hits. */
+export const HIT_GROUPS: { type: SearchHitType; heading: string }[] = [
+  { type: 'steel', heading: 'Steels' },
+  { type: 'abrasive', heading: 'Abrasives' },
+  { type: 'method', heading: 'Methods' },
+  { type: 'result', heading: 'Results' },
+];
+
+/** Where a hit leads: its reference page, or the result itself. */
+export function hitHref(hit: SearchHit): string | null {
+  switch (hit.type) {
+    case 'steel':
+      return hit.slug ? paths.steel.getHref(hit.slug) : null;
+    case 'abrasive':
+      return hit.slug ? paths.abrasive.getHref(hit.slug) : null;
+    case 'method':
+      return hit.slug ? paths.method.getHref(hit.slug) : null;
+    case 'result':
+      return hit.id !== undefined ? paths.result.getHref(hit.id) : null;
+  }
+}
+
+/** Hits grouped by type (steels, abrasives, methods, results), each with its snippet. */
+export function SearchHits({ hits, query, facets }: { hits: SearchHit[]; query: string; facets?: Record<SearchHitType, number> }) {
+  return (
+    <div className="flex flex-col gap-8">
+      {HIT_GROUPS.map(({ type, heading }) => {
+        const group = hits.filter((h) => h.type === type);
+        if (group.length === 0) return null;
+        const total = facets?.[type] ?? group.length;
+        return (
+          <section key={type} aria-labelledby={`hits-${type}`}>
+            <h2 id={`hits-${type}`} className="mb-2 text-xl font-semibold">
+              {heading} <span className="font-sans text-base font-normal text-muted">({total})</span>
+            </h2>
+            <ul className="divide-y divide-rule rounded-md border border-rule bg-panel">
+              {group.map((hit) => {
+                const href = hitHref(hit);
+                return (
+                  <li key={`${hit.type}-${hit.slug ?? hit.id}`} className="px-4 py-3">
+                    {href ? (
+                      <Link to={href} className="font-semibold">
+                        <Highlight text={hit.title} query={query} />
+                      </Link>
+                    ) : (
+                      <span className="font-semibold">{hit.title}</span>
+                    )}
+                    {hit.snippet ? (
+                      <p className="mt-0.5 text-sm text-muted">
+                        <Highlight text={hit.snippet} query={query} />
+                      </p>
+                    ) : null}
+                  </li>
+                );
+              })}
+            </ul>
+          </section>
+        );
+      })}
+    </div>
+  );
+}
