@@ -11,6 +11,7 @@ import { compare } from '../../queries/compare';
 import type { User } from '../../models';
 import { resultsRouter } from './results';
 import { pagesRouter } from './pages';
+import { toolsRouter } from './tools';
 import type { MailCatcher } from '../../mail/mail-catcher';
 
 /** The JSON API under /api. Every state-changing request passes the CSRF check first. */
@@ -29,6 +30,7 @@ export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
 
   router.use(resultsRouter(ctx));
   router.use(pagesRouter());
+  router.use(toolsRouter());
 
   router.get('/compare', validate({ query: compareQuerySchema }), async (req, res) => {
     res.json(await compare(req.valid.query as z.infer<typeof compareQuerySchema>));
