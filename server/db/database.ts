@@ -6,9 +6,13 @@ import { sqliteWithPragmas } from './sqlite-driver';
 import { WriteQueue } from './write-queue';
 import { initModels } from '../models';
 import * as m0001 from './migrations/0001-initial';
+import * as m0006 from './migrations/0006-wheel-log';
 
 /** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
-const migrations = [{ name: '0001-initial', module: m0001 }];
+const migrations = [
+  { name: '0001-initial', module: m0001 },
+  { name: '0006-wheel-log', module: m0006 },
+];
 
 export interface DatabaseOptions {
   /** SQLite file path; ignored when `url` is given. */

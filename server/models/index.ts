@@ -2,10 +2,11 @@ import type { Sequelize } from 'sequelize';
 import { User } from './user';
 import { Abrasive, Method, PageRevision, Steel } from './reference-pages';
 import { ComparisonCell, Result, ResultEvent } from './result';
+import { Wheel, WheelMeasurement } from './wheel';
 
 /** Initialises every model on `sequelize` and declares their associations. */
 export function initModels(sequelize: Sequelize) {
-  for (const m of [User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell]) m.initModel(sequelize);
+  for (const m of [User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement]) m.initModel(sequelize);
   Result.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   Result.belongsTo(Steel, { as: 'steel', foreignKey: 'steelId' });
   Result.belongsTo(Abrasive, { as: 'abrasive', foreignKey: 'abrasiveId' });
@@ -14,6 +15,7 @@ export function initModels(sequelize: Sequelize) {
   Result.hasMany(ResultEvent, { as: 'events', foreignKey: 'resultId' });
   ResultEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
   PageRevision.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  Wheel.hasMany(WheelMeasurement, { as: 'measurements', foreignKey: 'wheelId' });
 }
 
-export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell };
+export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement };

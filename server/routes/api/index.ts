@@ -12,6 +12,7 @@ import type { User } from '../../models';
 import { resultsRouter } from './results';
 import { pagesRouter } from './pages';
 import { toolsRouter } from './tools';
+import { wheelsRouter } from './wheels';
 import type { MailCatcher } from '../../mail/mail-catcher';
 
 /** The JSON API under /api. Every state-changing request passes the CSRF check first. */
@@ -31,6 +32,7 @@ export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
   router.use(resultsRouter(ctx));
   router.use(pagesRouter());
   router.use(toolsRouter());
+  router.use(wheelsRouter(ctx));
 
   router.get('/compare', validate({ query: compareQuerySchema }), async (req, res) => {
     res.json(await compare(req.valid.query as z.infer<typeof compareQuerySchema>));
