@@ -1,0 +1,386 @@
+import { useId, useMemo, useState } from 'react';
+import { ComputationError } from '@shared/computation-error';
+import { angleFromSetup, gapForAngle, projectionForAngle, wearDrift, type WheelSetup } from '@shared/geometry';
+import { PageTitle } from '@/components/ui/page-title';
+import { Field, Input, controlA11y } from '@/components/ui/field';
+import { Facts } from '@/components/ui/facts';
+import { formatDegrees, formatNumber } from '@/lib/format';
+import { SafetyCautions } from './safety-cautions';
+
+type Outcome<T> = { value: T; error?: undefined; field?: undefined } | { value?: undefined; error: string; field?: string };
+
+/** Run a computation; a ComputationError becomes a message for the field it names. */
+function attempt<T>(run: () => T): Outcome<T> {
+  try {
+    return { value: run() };
+  } catch (err) {
+    if (err instanceof ComputationError) return { error: err.message, field: err.field };
+    throw err;
+  }
+}
+
+/** A typed number, accepting a decimal comma; NaN when the box is empty or not a number. */
+function toNumber(text: string): number {
+  const t = text.trim().replace(',', '.');
+  return t === '' ? Number.NaN : Number(t);
+}
+
+function mm(value: number, digits = 1): string {
+  return `${formatNumber(value, digits)}\u00a0mm`;
+}
+
+/** A change of angle for people: "+2.35°", or "no change" below what the display shows. */
+function changeText(deltaDeg: number): string {
+  if (Math.abs(deltaDeg) < 0.005) return 'no change';
+  return `${deltaDeg > 0 ? '+' : '−'}${formatDegrees(Math.abs(deltaDeg), 2)}`;
+}
+
+/** Which way to move the bar to restore the angle, from the gap now less the gap wanted (mm). */
+function moveText(excessMm: number): string {
+  if (Math.abs(excessMm) < 0.05) return 'the bar is where it should be';
+  return `move the bar ${mm(Math.abs(excessMm))} ${excessMm > 0 ? 'closer to' : 'away from'} the wheel`;
+}
+
+/** A labelled number box in millimetres or degrees, with its error underneath. */
+function NumberField({
+  id,
+  label,
+  unit,
+  hint,
+  value,
+  onChange,
+  error,
+}: {
+  id: string;
+  label: string;
+  unit: 'mm' | '°';
+  hint?: string;
+  value: string;
+  onChange: (v: string) => void;
+  error?: string;
+}) {
+  return (
+    <Field id={id} label={`${label} (${unit})`} hint={hint} error={error}>
+      <Input
+        {...controlA11y(id, { hint, error })}
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+        inputMode="decimal"
+        autoComplete="off"
+      />
+    </Field>
+  );
+}
+
+type SetupField = keyof WheelSetup;
+
+const SETUP_LABELS: Record<SetupField, { label: string; hint: string }> = {
+  wheelDiameterMm: { label: 'Wheel diameter', hint: 'Measure it now: a vitrified wheel shrinks as it wears and is dressed.' },
+  barDiameterMm: { label: 'Support bar diameter', hint: 'The round bar the jig slides on.' },
+  gapMm: { label: 'Gap, bar to wheel', hint: 'The shortest distance from the bar’s surface to the rim.' },
+  projectionMm: { label: 'Projection', hint: 'From the bar’s axis to the edge, along the blade.' },
+};
+
+/** The angle geometry page: setup → angle, angle → gap, and the drift as a wheel wears. */
+export default function AngleGeometry() {
+  const id = useId();
+  // A 250 mm wheel with a 12 mm bar: about 15° per side (worked with the formulas on this page).
+  const [setupText, setSetupText] = useState<Record<SetupField, string>>({
+    wheelDiameterMm: '250',
+    barDiameterMm: '12',
+    gapMm: '80',
+    projectionMm: '140',
+  });
+  const [wantedText, setWantedText] = useState('15');
+  const [currentText, setCurrentText] = useState('225');
+
+  const setup = useMemo(() => {
+    const values = Object.fromEntries(Object.entries(setupText).map(([k, v]) => [k, toNumber(v)])) as unknown as WheelSetup;
+    const missing = (Object.keys(setupText) as SetupField[]).filter((k) => !Number.isFinite(values[k]));
+    return { values, missing };
+  }, [setupText]);
+
+  const setupReady = setup.missing.length === 0;
+  const angle = useMemo(() => (setupReady ? attempt(() => angleFromSetup(setup.values)) : null), [setupReady, setup.values]);
+
+  const wanted = toNumber(wantedText);
+  const inverse = useMemo(() => {
+    if (!setupReady || !Number.isFinite(wanted)) return null;
+    const { wheelDiameterMm, barDiameterMm, gapMm, projectionMm } = setup.values;
+    return {
+      gap: attempt(() => gapForAngle({ wheelDiameterMm, barDiameterMm, projectionMm, perSideDeg: wanted })),
+      projection: attempt(() => projectionForAngle({ wheelDiameterMm, barDiameterMm, gapMm, perSideDeg: wanted })),
+    };
+  }, [setupReady, setup.values, wanted]);
+
+  const current = toNumber(currentText);
+  const drift = useMemo(() => {
+    if (!setupReady || !Number.isFinite(current)) return null;
+    const { wheelDiameterMm, barDiameterMm, gapMm, projectionMm } = setup.values;
+    return attempt(() => wearDrift({ originalDiameterMm: wheelDiameterMm, currentDiameterMm: current, barDiameterMm, gapMm, projectionMm }));
+  }, [setupReady, setup.values, current]);
+
+  const setupError = (field: SetupField): string | undefined => {
+    if (setup.missing.includes(field)) return 'Enter a number';
+    if (angle?.error && (angle.field === field || (!angle.field && field === 'projectionMm'))) return angle.error;
+    return undefined;
+  };
+
+  return (
+    <div className="flex flex-col gap-10">
+      <PageTitle
+        title="Angle geometry"
+        lead="The edge angle a wheel and support-bar setup grinds, from four measurements. The model: the blade rests on the bar and touches the rim with its edge; the angle per side lies between the blade and the wheel’s tangent where they meet."
+      >
+        Angle geometry
+      </PageTitle>
+
+      <section aria-labelledby={`${id}-setup`} className="grid gap-6 lg:grid-cols-[1fr_1fr]">
+        <div className="flex flex-col gap-4">
+          <h2 id={`${id}-setup`} className="text-2xl font-semibold">
+            Your setup
+          </h2>
+          <div className="grid gap-4 sm:grid-cols-2">
+            {(Object.keys(SETUP_LABELS) as SetupField[]).map((field) => (
+              <NumberField
+                key={field}
+                id={`${id}-${field}`}
+                label={SETUP_LABELS[field].label}
+                unit="mm"
+                hint={SETUP_LABELS[field].hint}
+                value={setupText[field]}
+                onChange={(v) => setSetupText((s) => ({ ...s, [field]: v }))}
+                error={setupError(field)}
+              />
+            ))}
+          </div>
+          <div aria-live="polite">
+            {angle?.value ? (
+              <Facts
+                items={[
+                  { term: 'Angle per side', value: <strong className="text-xl font-semibold">{formatDegrees(angle.value.perSideDeg, 2)}</strong> },
+                  { term: 'Inclusive angle', value: formatDegrees(angle.value.inclusiveDeg, 2) },
+                ]}
+              />
+            ) : null}
+          </div>
+        </div>
+        <figure className="rounded-md border border-rule bg-panel p-3">
+          {angle?.value ? (
+            <SetupDrawing setup={setup.values} perSideDeg={angle.value.perSideDeg} />
+          ) : (
+            <p className="p-6 text-muted">The drawing appears when the setup is one the blade can reach.</p>
+          )}
+          <figcaption className="mt-2 text-sm text-muted">Drawn to scale from your numbers. The wheel’s axis is O, the bar’s axis S.</figcaption>
+        </figure>
+      </section>
+
+      <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
+        <h2 id={`${id}-inverse`} className="text-2xl font-semibold">
+          Setting up for the angle you want
+        </h2>
+        <div className="grid gap-4 md:grid-cols-[16rem_1fr] md:items-start">
+          <NumberField
+            id={`${id}-wanted`}
+            label="Wanted angle per side"
+            unit="°"
+            value={wantedText}
+            onChange={setWantedText}
+            error={!Number.isFinite(wanted) ? 'Enter a number' : inverse?.gap.field === 'perSideDeg' ? inverse.gap.error : undefined}
+          />
+          {inverse && inverse.gap.field !== 'perSideDeg' ? (
+            <Facts
+              items={[
+                {
+                  term: 'Gap for this angle',
+                  value: inverse.gap.value ? (
+                    <span>
+                      <strong className="font-semibold">{mm(inverse.gap.value.gapMm)}</strong>{' '}
+                      <span className="text-muted">keeping the projection of {mm(setup.values.projectionMm)}</span>
+                    </span>
+                  ) : (
+                    <span className="text-danger">{inverse.gap.error}</span>
+                  ),
+                },
+                {
+                  term: 'Or the projection for it',
+                  value: inverse.projection.value ? (
+                    <span>
+                      <strong className="font-semibold">{mm(inverse.projection.value.projectionMm)}</strong>{' '}
+                      <span className="text-muted">keeping the gap of {mm(setup.values.gapMm)}</span>
+                    </span>
+                  ) : (
+                    <span className="text-danger">{inverse.projection.error}</span>
+                  ),
+                },
+              ]}
+            />
+          ) : null}
+        </div>
+      </section>
+
+      <section aria-labelledby={`${id}-wear`} className="flex flex-col gap-4">
+        <h2 id={`${id}-wear`} className="text-2xl font-semibold">
+          When the wheel wears
+        </h2>
+        <p className="max-w-3xl text-muted">
+          A vitrified wheel gets smaller as it wears and each time it is dressed. If the bar stays where it was, the gap to
+          the rim grows by the radius lost and the same projection grinds a steeper angle. Here the setup above is the one
+          you set on the wheel when it was new (or last measured), and the wheel has since worn to the diameter below.
+        </p>
+        <div className="grid gap-4 md:grid-cols-[16rem_1fr] md:items-start">
+          <NumberField
+            id={`${id}-current`}
+            label="Wheel diameter now"
+            unit="mm"
+            hint="Smaller than the diameter above."
+            value={currentText}
+            onChange={setCurrentText}
+            error={!Number.isFinite(current) ? 'Enter a number' : drift?.field === 'currentDiameterMm' ? drift.error : undefined}
+          />
+          <div aria-live="polite">
+            {drift?.value ? (
+              <Facts
+                items={[
+                  { term: 'Angle when set', value: formatDegrees(drift.value.originalPerSideDeg, 2) + ' per side' },
+                  {
+                    term: 'Angle now',
+                    value: (
+                      <span>
+                        <strong className="font-semibold">{formatDegrees(drift.value.currentPerSideDeg, 2)} per side</strong>{' '}
+                        <span className="text-muted">({changeText(drift.value.currentPerSideDeg - drift.value.originalPerSideDeg)})</span>
+                      </span>
+                    ),
+                  },
+                  { term: 'Gap to the rim now', value: mm(drift.value.currentGapMm) },
+                  {
+                    term: 'Gap that restores the angle',
+                    value: (
+                      <span>
+                        <strong className="font-semibold">{mm(drift.value.restoringGapMm)}</strong>{' '}
+                        <span className="text-muted">({moveText(drift.value.currentGapMm - drift.value.restoringGapMm)})</span>
+                      </span>
+                    ),
+                  },
+                ]}
+              />
+            ) : drift?.error && drift.field !== 'currentDiameterMm' && !angle?.error ? (
+              <p className="text-danger">{drift.error}</p>
+            ) : null}
+          </div>
+        </div>
+        <p className="max-w-3xl rounded-md border border-rule bg-panel px-4 py-3 text-sm">
+          CBN and diamond wheels keep their diameter, so a setup measured once keeps its angle on them. On a vitrified
+          wheel, measure the diameter again after dressing and reset the gap.
+        </p>
+      </section>
+
+      <SafetyCautions />
+    </div>
+  );
+}
+
+/**
+ * The setup drawn to scale: wheel, bar, blade from behind the bar to the rim, the tangent at the
+ * contact point and the angle between them. Coordinates in mm with y up, turned into SVG's y down.
+ */
+function SetupDrawing({ setup, perSideDeg }: { setup: WheelSetup; perSideDeg: number }) {
+  const titleId = useId();
+  const R = setup.wheelDiameterMm / 2;
+  const r = setup.barDiameterMm / 2;
+  const d = R + setup.gapMm + r;
+  const L = setup.projectionMm;
+  // S sits up and to the right of O, as on a machine with the bar above the wheel.
+  const beta = (55 * Math.PI) / 180;
+  const u = [Math.cos(beta), Math.sin(beta)]; // unit vector O → S
+  const v = [Math.sin(beta), -Math.cos(beta)]; // perpendicular, clockwise
+  const along = (R * R - L * L + d * d) / (2 * d);
+  const across = Math.sqrt(Math.max(0, R * R - along * along));
+  const S = [d * u[0], d * u[1]];
+  const C = [along * u[0] + across * v[0], along * u[1] + across * v[1]];
+  const toS = [(S[0] - C[0]) / L, (S[1] - C[1]) / L];
+  const tail = [S[0] + toS[0] * 0.45 * L, S[1] + toS[1] * 0.45 * L]; // the blade runs on past the bar to the handle
+  // Tangent at C, on the side where the blade lies.
+  const radial = [C[0] / R, C[1] / R];
+  let t = [-radial[1], radial[0]];
+  if (t[0] * toS[0] + t[1] * toS[1] < 0) t = [-t[0], -t[1]];
+  const tanLen = 0.6 * R;
+  const arcR = Math.min(0.4 * R, 0.5 * L);
+  const a0 = Math.atan2(t[1], t[0]);
+  const a1 = Math.atan2(toS[1], toS[0]);
+  const arcEnd = [C[0] + arcR * Math.cos(a1), C[1] + arcR * Math.sin(a1)];
+  const arcStart = [C[0] + arcR * Math.cos(a0), C[1] + arcR * Math.sin(a0)];
+  // Gap dimension along O → S, from the rim to the bar's surface.
+  const rim = [R * u[0], R * u[1]];
+  const barEdge = [(d - r) * u[0], (d - r) * u[1]];
+
+  const xs = [-R, R, S[0] + r, S[0] - r, tail[0], C[0]];
+  const ys = [-R, R, S[1] + r, S[1] - r, tail[1], C[1]];
+  const pad = 0.08 * Math.max(...xs.map(Math.abs), ...ys.map(Math.abs));
+  const minX = Math.min(...xs) - pad;
+  const maxX = Math.max(...xs) + pad;
+  const minY = Math.min(...ys) - pad;
+  const maxY = Math.max(...ys) + pad;
+  const X = (p: number[]) => p[0];
+  const Y = (p: number[]) => -p[1];
+  const unit = (maxX - minX) / 300; // stroke widths and text in proportion to the drawing
+  // Which way the arc sweeps from the tangent to the blade, in SVG's flipped y.
+  const cross = t[0] * toS[1] - t[1] * toS[0];
+  const sweep = cross > 0 ? 0 : 1;
+
+  return (
+    <svg
+      viewBox={`${minX} ${-maxY} ${maxX - minX} ${maxY - minY}`}
+      className="mx-auto h-auto max-h-[26rem] w-full"
+      role="img"
+      aria-labelledby={titleId}
+    >
+      <title id={titleId}>
+        {`Wheel of ${formatNumber(setup.wheelDiameterMm)} mm, bar of ${formatNumber(setup.barDiameterMm)} mm at a gap of ${formatNumber(setup.gapMm)} mm, blade projecting ${formatNumber(L)} mm: ${formatDegrees(perSideDeg, 1)} per side.`}
+      </title>
+      <circle cx={0} cy={0} r={R} className="fill-paper stroke-ink" strokeWidth={unit * 1.2} />
+      <circle cx={0} cy={0} r={unit * 2} className="fill-ink" />
+      <text x={unit * 4} y={unit * 10} className="fill-muted" fontSize={unit * 10}>
+        O
+      </text>
+      <line x1={X(rim)} y1={Y(rim)} x2={X(barEdge)} y2={Y(barEdge)} className="stroke-muted" strokeWidth={unit} strokeDasharray={`${unit * 3} ${unit * 3}`} />
+      <circle cx={X(S)} cy={Y(S)} r={r} className="fill-rule stroke-ink" strokeWidth={unit} />
+      <text x={X(S) + r + unit * 4} y={Y(S) - r} className="fill-muted" fontSize={unit * 10}>
+        S
+      </text>
+      <line
+        x1={X(C)}
+        y1={Y(C)}
+        x2={X(C) + t[0] * tanLen}
+        y2={Y(C) - t[1] * tanLen}
+        className="stroke-ink/70"
+        strokeWidth={unit * 1.2}
+        strokeDasharray={`${unit * 5} ${unit * 3}`}
+      />
+      <line
+        x1={X(C)}
+        y1={Y(C)}
+        x2={X(C) - t[0] * tanLen * 0.3}
+        y2={Y(C) + t[1] * tanLen * 0.3}
+        className="stroke-ink/70"
+        strokeWidth={unit * 1.2}
+        strokeDasharray={`${unit * 5} ${unit * 3}`}
+      />
+      <line x1={X(tail)} y1={Y(tail)} x2={X(C)} y2={Y(C)} className="stroke-accent-strong" strokeWidth={unit * 4} strokeLinecap="round" />
+      <path
+        d={`M ${X(arcStart)} ${Y(arcStart)} A ${arcR} ${arcR} 0 0 ${sweep} ${X(arcEnd)} ${Y(arcEnd)}`}
+        className="fill-none stroke-caution"
+        strokeWidth={unit * 1.5}
+      />
+      <text
+        x={X(C) + (t[0] + toS[0]) * arcR * 0.6 + unit * 6}
+        y={Y(C) - (t[1] + toS[1]) * arcR * 0.6}
+        className="fill-caution font-semibold"
+        fontSize={unit * 11}
+      >
+        {formatDegrees(perSideDeg, 1)}
+      </text>
+      <circle cx={X(C)} cy={Y(C)} r={unit * 2.5} className="fill-caution" />
+    </svg>
+  );
+}

@@ -1,0 +1,47 @@
+import { Link } from 'react-router-dom';
+import { paths } from '@/config/paths';
+import { PageTitle } from '@/components/ui/page-title';
+import { SafetyCautions } from './safety-cautions';
+
+const TOOLS = [
+  {
+    href: paths.tools.grit.getHref(),
+    name: 'Grit translator',
+    what: 'Type a grit in any common standard (FEPA F or P, JIS, ANSI, US mesh, diamond and CBN designations, or micrometres) and see its particle size, its grit band and the nearest grade in every other standard.',
+  },
+  {
+    href: paths.tools.angle.getHref(),
+    name: 'Angle geometry',
+    what: 'The edge angle a wheel, support bar and projection give; the gap for the angle you want; and how far the angle drifts as a vitrified wheel wears smaller.',
+  },
+  {
+    href: paths.tools.hardness.getHref(),
+    name: 'Hardness converter',
+    what: 'Rockwell C, Vickers, Brinell and Rockwell A for steel, from the conversion table for non-austenitic steels, without extrapolating past it.',
+  },
+] as const;
+
+/** The tools page: a short guide to each calculator. Everything is computed in the browser. */
+export default function ToolsIndex() {
+  return (
+    <div className="flex flex-col gap-8">
+      <PageTitle
+        title="Tools"
+        lead="Calculators for the numbers that come up at the grinder. They work as you type and send nothing anywhere."
+      >
+        Tools
+      </PageTitle>
+      <ul className="grid gap-4 md:grid-cols-3">
+        {TOOLS.map((tool) => (
+          <li key={tool.href} className="flex flex-col rounded-md border border-rule bg-panel p-4">
+            <h2 className="text-xl font-semibold">
+              <Link to={tool.href}>{tool.name}</Link>
+            </h2>
+            <p className="mt-2 text-sm text-muted">{tool.what}</p>
+          </li>
+        ))}
+      </ul>
+      <SafetyCautions />
+    </div>
+  );
+}
