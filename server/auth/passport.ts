@@ -3,6 +3,7 @@ import OAuth2Strategy, { type VerifyCallback } from 'passport-oauth2';
 import type { AppContext } from '../context';
 import { User } from '../models';
 import { signInFromProvider } from '../commands/sign-in-from-provider';
+import { SignInStateStore } from './sign-in-state';
 
 /** Claims read from the provider's userinfo endpoint. */
 export interface ProviderProfile {
@@ -57,8 +58,8 @@ export function configurePassport(ctx: AppContext): passport.PassportStatic {
         clientSecret: ctx.oauth.clientSecret,
         // Relative: passport-oauth2 resolves it against the request's own origin.
         callbackURL: ctx.env.PUBLIC_URL ? `${ctx.env.PUBLIC_URL}/auth/callback` : '/auth/callback',
-        state: true,
         pkce: true,
+        store: new SignInStateStore(ctx.env.isProduction) as unknown as OAuth2Strategy.StateStore,
         scope: ['openid', 'profile'],
       },
       (_accessToken: string, _refreshToken: string, profile: ProviderProfile, done: VerifyCallback) => {

@@ -8,6 +8,8 @@ import type { User } from '../models';
 declare module 'express-session' {
   interface SessionData {
     csrfToken?: string;
+    /** The account the CSRF token was issued to (null: a visitor); a sign-in gets a new token. */
+    csrfUser?: number | null;
     returnTo?: string;
   }
 }
@@ -36,9 +38,17 @@ export const requireUser: RequestHandler = (req, _res, next) => {
   next();
 };
 
-/** The session's CSRF token, created on first use. */
+/**
+ * The session's CSRF token, created on first use and again whenever the signed-in account
+ * changes, so a token seen before sign-in (which survives the session id's regeneration)
+ * is worthless after it.
+ */
 export function csrfTokenOf(req: Request): string {
-  if (!req.session.csrfToken) req.session.csrfToken = crypto.randomBytes(24).toString('base64url');
+  const owner = actorOf(req)?.id ?? null;
+  if (!req.session.csrfToken || (req.session.csrfUser ?? null) !== owner) {
+    req.session.csrfToken = crypto.randomBytes(24).toString('base64url');
+    req.session.csrfUser = owner;
+  }
   return req.session.csrfToken;
 }
 
@@ -52,9 +62,10 @@ export const csrfProtection: RequestHandler = (req, _res, next) => {
   if (SAFE_METHODS.has(req.method)) return next();
   if (req.get('sec-fetch-site') === 'cross-site') throw forbidden('Cross-site requests are refused.');
   // Only a request that the session cookie authenticates can be forged; a visitor's write is
-  // refused with 401 by the route itself.
-  if (!req.user) return next();
-  const expected = req.session?.csrfToken;
+  // refused with 401 by the route itself, and an API token (Authorization header) is never
+  // attached by a browser on its own.
+  if (!req.user || req.authenticatedBy === 'token') return next();
+  const expected = (req.session?.csrfUser ?? null) === req.user.id ? req.session?.csrfToken : undefined;
   const given = req.get('x-csrf-token');
   if (!expected || !given || given.length !== expected.length || !crypto.timingSafeEqual(Buffer.from(given), Buffer.from(expected))) {
     throw forbidden('Missing or wrong X-CSRF-Token header; fetch /api/session for the current token.');

@@ -1,7 +1,7 @@
 import type { ComponentType } from 'react';
 import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
 import { paths } from '@/config/paths';
-import { AppLayout } from '@/components/layout/app-layout';
+import { AppLayout, AppLayoutFallback } from '@/components/layout/app-layout';
 import { RouteError } from '@/components/errors/route-error';
 
 /**
@@ -19,6 +19,7 @@ const routes: RouteObject[] = [
   {
     path: '/',
     Component: AppLayout,
+    HydrateFallback: AppLayoutFallback,
     ErrorBoundary: RouteError,
     children: [
       { index: true, ...page(() => import('./routes/home')) },

@@ -4,22 +4,7 @@ import { can, type Action } from '@shared/permissions';
 import { paths } from '@/config/paths';
 import { buttonClasses } from '@/components/ui/button';
 import { Loading } from '@/components/ui/states';
-import type { SessionUser } from '@/types/api';
-import { useSession } from '@/lib/auth';
-
-/**
- * The client does not know a person's database id; `can()` needs it only for "own result"
- * checks, and for those the server sends its answer with each result (`result.can`).
- */
-export function actorOf(user: SessionUser | null) {
-  return user ? { id: -1, role: user.role } : null;
-}
-
-/** Whether the signed-in person may do `action` (used only to hide controls). */
-export function useCan(action: Action): boolean {
-  const user = useSession().data?.user ?? null;
-  return can(actorOf(user), action);
-}
+import { actorOf, useSession } from '@/lib/auth';
 
 /**
  * Shows its children to a signed-in person (holding `action`, if given); otherwise explains

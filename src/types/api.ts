@@ -42,7 +42,7 @@ export interface TrailEntry {
   from: ResultStatus | null;
   to: ResultStatus;
   at: string;
-  by: { handle: string };
+  by: { handle: string } | null;
   note: string | null;
 }
 
@@ -77,7 +77,8 @@ export interface Result {
     inclusiveDeg: number;
     sharpnessMedianG: number;
   };
-  review: { decision: 'approve' | 'return' | 'reject'; note: string | null; at: string; by: { handle: string } } | null;
+  /** The last decision; `decision` may be the verb sent or the state it led to ("approved"). */
+  review: { decision: string; note: string | null; at: string; by: { handle: string } | null } | null;
   trail: TrailEntry[];
   can: { review: boolean; retract: boolean };
 }
@@ -136,7 +137,7 @@ export interface SteelSummary {
 export interface Citation {
   title: string;
   organisation: string;
-  year: number;
+  year: number | null;
   standard?: string;
   url?: string;
   supports: string;

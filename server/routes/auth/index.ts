@@ -24,16 +24,14 @@ export function authRouter(ctx: AppContext, auth: passport.PassportStatic): Rout
   router.get('/signin', validate({ query: signinQuery }), (req, res, next) => {
     const { as, returnTo } = req.valid.query as z.infer<typeof signinQuery>;
     if (as && ctx.env.isProduction) throw notFound('Demo sign-in');
-    req.session.returnTo = returnTo ?? '/';
+    req.signinReturnTo = returnTo ?? '/';
     auth.authenticate('provider', { loginHint: as } as object)(req, res, next);
   });
 
   router.get('/callback', (req, res, next) => {
-    auth.authenticate('provider', { failureRedirect: '/sign-in?failed=1', keepSessionInfo: true } as object)(req, res, (err?: unknown) => {
+    auth.authenticate('provider', { failureRedirect: '/sign-in?failed=1' } as object)(req, res, (err?: unknown) => {
       if (err) return next(err);
-      const to = req.session.returnTo ?? '/';
-      delete req.session.returnTo;
-      res.redirect(to);
+      res.redirect(req.signinReturnTo ?? '/');
     });
   });
 

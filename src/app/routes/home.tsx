@@ -3,7 +3,7 @@ import { paths } from '@/config/paths';
 import { PageTitle } from '@/components/ui/page-title';
 import { Empty, ErrorState, Loading } from '@/components/ui/states';
 import { useResults } from '@/features/results/api/get-results';
-import { ResultsTable } from '@/features/results/components/results-table';
+import { LatestResultsTable } from '@/features/results/components/latest-results-table';
 import { SearchForm } from '@/features/search/components/search-form';
 
 /** Home: what Edgeledger is, the demo notice, a search box and the latest published results. */
@@ -43,7 +43,7 @@ export default function HomeRoute() {
         ) : latest.data.items.length === 0 ? (
           <Empty title="No results are published yet">Results appear here once a moderator has reviewed them.</Empty>
         ) : (
-          <ResultsTable results={latest.data.items.slice(0, 10)} label="Latest published results" />
+          <LatestResultsTable results={latest.data.items.slice(0, 10)} label="Table of the latest results" />
         )}
       </section>
     </div>

@@ -31,6 +31,11 @@ export default function SearchRoute() {
     setParams(next, { replace: true });
   }, [q]);
 
+  // Back and forward change the address, not the box: follow them.
+  useEffect(() => {
+    if (urlQ !== q) setText(urlQ);
+  }, [urlQ]);
+
   const results = useSearch(q, type);
   const typeHref = (t?: SearchHitType) => {
     const next = new URLSearchParams();

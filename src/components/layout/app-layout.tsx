@@ -1,12 +1,10 @@
-import { Suspense } from 'react';
+import { Suspense, type ReactNode } from 'react';
 import { Outlet, useNavigation } from 'react-router-dom';
 import { Loading } from '@/components/ui/states';
 import { Header } from './header';
 import { Footer } from './footer';
 
-/** Frame of every page: skip link, header, the page itself, footer, and a bar while a page loads. */
-export function AppLayout() {
-  const navigation = useNavigation();
+function Frame({ children, loading }: { children: ReactNode; loading: boolean }) {
   return (
     <div className="flex min-h-screen flex-col">
       <a
@@ -16,17 +14,36 @@ export function AppLayout() {
         Skip to content
       </a>
       <Header />
-      {navigation.state === 'loading' ? (
+      {loading ? (
         <div role="progressbar" aria-label="Opening page" className="h-0.5 w-full animate-pulse bg-accent" />
       ) : (
         <div aria-hidden="true" className="h-0.5" />
       )}
       <main id="main" tabIndex={-1} className="mx-auto w-full max-w-6xl flex-1 px-4 py-8 focus:outline-none">
-        <Suspense fallback={<Loading />}>
-          <Outlet />
-        </Suspense>
+        {children}
       </main>
       <Footer />
     </div>
+  );
+}
+
+/** Frame of every page: skip link, header, the page itself, footer, and a bar while a page loads. */
+export function AppLayout() {
+  const navigation = useNavigation();
+  return (
+    <Frame loading={navigation.state === 'loading'}>
+      <Suspense fallback={<Loading />}>
+        <Outlet />
+      </Suspense>
+    </Frame>
+  );
+}
+
+/** What shows while the first page's own code is still on its way: the same frame, a loading note. */
+export function AppLayoutFallback() {
+  return (
+    <Frame loading>
+      <Loading />
+    </Frame>
   );
 }

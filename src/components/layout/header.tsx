@@ -1,13 +1,13 @@
 import { useEffect, useId, useState } from 'react';
 import { Link, NavLink, useLocation, useNavigate } from 'react-router-dom';
 import { paths } from '@/config/paths';
-import { useSession, useSignOut } from '@/lib/auth';
-import { useCan } from '@/lib/authorization';
+import { useCan, useSession, useSignOut } from '@/lib/auth';
 import { buttonClasses } from '@/components/ui/button';
 import { Wordmark } from './wordmark';
 
 const navItems = [
-  { to: paths.results.getHref(), label: 'Results', end: false },
+  // `end`: the results list only, not a single result or the new-result form.
+  { to: paths.results.getHref(), label: 'Results', end: true },
   { to: paths.compare.getHref(), label: 'Compare', end: false },
   { to: paths.steels.getHref(), label: 'Steels', end: false },
   { to: paths.abrasives.getHref(), label: 'Abrasives', end: false },
@@ -16,7 +16,7 @@ const navItems = [
 ];
 
 function navClass({ isActive }: { isActive: boolean }) {
-  return `block rounded px-2.5 py-1.5 no-underline ${
+  return `block whitespace-nowrap rounded px-1.5 py-1.5 no-underline ${
     isActive ? 'bg-accent-soft font-semibold text-accent-strong' : 'text-ink hover:bg-paper hover:text-accent-strong'
   }`;
 }
@@ -38,13 +38,13 @@ export function Header() {
 
   return (
     <header className="border-b border-rule bg-panel">
-      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
+      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-2 px-4 py-3">
         <Link to={paths.home.getHref()} className="rounded no-underline" aria-label="Edgeledger, home">
           <Wordmark />
         </Link>
         <button
           type="button"
-          className={`${buttonClasses('secondary', 'sm')} ml-auto md:hidden`}
+          className={`${buttonClasses('secondary', 'sm')} ml-auto lg:hidden`}
           aria-expanded={open}
           aria-controls={menuId}
           onClick={() => setOpen((v) => !v)}
@@ -53,10 +53,10 @@ export function Header() {
         </button>
         <div
           id={menuId}
-          className={`${open ? 'flex' : 'hidden'} w-full flex-col gap-3 md:flex md:w-auto md:flex-1 md:flex-row md:items-center`}
+          className={`${open ? 'flex' : 'hidden'} w-full flex-col gap-3 pb-2 lg:flex lg:w-auto lg:flex-1 lg:flex-row lg:items-center lg:pb-0`}
         >
-          <nav aria-label="Main" className="md:flex-1">
-            <ul className="flex flex-col gap-1 md:flex-row md:flex-wrap md:items-center">
+          <nav aria-label="Main" className="lg:flex-1">
+            <ul className="flex flex-col gap-0.5 lg:flex-row lg:flex-wrap lg:items-center">
               {navItems.map((item) => (
                 <li key={item.to}>
                   <NavLink to={item.to} end={item.end} className={navClass}>
@@ -73,20 +73,20 @@ export function Header() {
               ) : null}
             </ul>
           </nav>
-          <div className="flex flex-wrap items-center gap-2">
+          <div className="flex flex-wrap items-center gap-1.5">
             {session.isPending ? null : user ? (
               <>
                 <Link to={paths.newResult.getHref()} className={buttonClasses('primary', 'sm')}>
                   Post a result
                 </Link>
-                <NavLink to={paths.myResults.getHref()} className={navClass}>
+                <NavLink to={paths.myResults.getHref()} className={navClass} title={`My results (signed in as @${user.handle})`}>
                   <span className="sr-only">My results, signed in as </span>
-                  {user.displayName}
+                  <span className="inline-block max-w-36 truncate align-bottom">{user.displayName}</span>
                 </NavLink>
                 <button
                   type="button"
                   className={buttonClasses('quiet', 'sm')}
-                  onClick={() => signOut.mutate()}
+                  onClick={() => void signOut.mutate()}
                   disabled={signOut.isPending}
                 >
                   Sign out

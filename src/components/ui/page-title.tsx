@@ -6,7 +6,7 @@ export function PageTitle({ children, title, lead }: { children: ReactNode; titl
     document.title = `${title} · Edgeledger`;
   }, [title]);
   return (
-    <header className="mb-6">
+    <header>
       <h1 className="font-serif text-3xl font-semibold leading-tight">{children}</h1>
       {lead ? <p className="mt-2 max-w-3xl text-muted">{lead}</p> : null}
     </header>

@@ -1,4 +1,5 @@
 import { useState, type ReactNode } from 'react';
+import { TableFrame, tdClass, thClass } from './table-frame';
 import {
   flexRender,
   getCoreRowModel,
@@ -8,25 +9,15 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 
-/**
- * The frame every table sits in: on a narrow screen it scrolls sideways inside its own box
- * (keyboard-scrollable, named for screen readers) instead of squeezing the columns.
- */
-export function TableFrame({ label, children }: { label: string; children: ReactNode }) {
-  return (
-    <div role="region" aria-label={label} tabIndex={0} className="overflow-x-auto rounded-md border border-rule bg-panel">
-      {children}
-    </div>
-  );
-}
-
-export const thClass = 'border-b border-rule bg-paper px-3 py-2 text-left align-bottom text-sm font-semibold text-muted';
-export const tdClass = 'border-b border-rule/70 px-3 py-2 align-top';
+// Re-exported so pages that build plain tables can keep importing them from here.
+export { TableFrame, tdClass, thClass };
 
 /** Column settings read by DataTable beyond TanStack's own. */
 export interface ColumnMetaInfo {
   /** Right-aligns numbers so digits line up. */
   numeric?: boolean;
+  /** Long names (abrasives, methods): keeps the column wide enough to read when the table scrolls. */
+  wide?: boolean;
 }
 
 export interface DataTableProps<T> {
@@ -101,8 +92,12 @@ export function DataTable<T>({ label, caption, data, columns, initialSorting = [
               {row.getVisibleCells().map((cell) => {
                 const meta = cell.column.columnDef.meta as ColumnMetaInfo | undefined;
                 return (
-                  <td key={cell.id} className={`${tdClass} ${meta?.numeric ? 'text-right tabular-nums' : ''}`}>
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                  <td key={cell.id} className={`${tdClass} ${meta?.numeric ? 'whitespace-nowrap text-right tabular-nums' : ''}`}>
+                    {meta?.wide ? (
+                      <div className="min-w-48">{flexRender(cell.column.columnDef.cell, cell.getContext())}</div>
+                    ) : (
+                      flexRender(cell.column.columnDef.cell, cell.getContext())
+                    )}
                   </td>
                 );
               })}

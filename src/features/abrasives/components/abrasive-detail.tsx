@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
 import { ABRASIVE_FORMS, ABRASIVE_MATERIALS, BONDS, COOLANTS } from '@shared/vocabulary';
 import { paths } from '@/config/paths';
 import { Caution } from '@/components/ui/caution';
@@ -28,7 +29,9 @@ export function AbrasiveDetail({ abrasive }: { abrasive: Abrasive }) {
             term: 'Grit',
             value: (
               <>
-                {abrasive.grit ? `${abrasive.grit.grade} (${abrasive.grit.standard})` : '—'}
+                {abrasive.grit
+                  ? `${abrasive.grit.grade} (${(GRIT_STANDARD_SHORT_LABELS as Record<string, string>)[abrasive.grit.standard] ?? abrasive.grit.standard})`
+                  : '—'}
                 {abrasive.gritUm ? ` ≈ ${formatMicrometres(abrasive.gritUm)} µm` : ''}
                 {range ? <span className="block text-sm text-muted">Dressable across {range}</span> : null}
               </>

@@ -39,9 +39,9 @@ export function CompareFilters({ methods, steels }: CompareFiltersProps) {
     <form
       aria-label="Filter the comparison"
       onSubmit={(e) => e.preventDefault()}
-      className="grid gap-4 rounded-md border border-rule bg-panel p-4 sm:grid-cols-2 lg:grid-cols-[repeat(3,minmax(0,1fr))_8rem_8rem_auto]"
+      className="grid grid-cols-2 gap-4 rounded-md border border-rule bg-panel p-4 lg:grid-cols-[repeat(3,minmax(0,1fr))_8rem_8rem_auto]"
     >
-      <Field id={`${id}-method`} label="Method">
+      <Field className="col-span-2 lg:col-span-1" id={`${id}-method`} label="Method">
         <Select id={`${id}-method`} value={filters.method ?? ''} onChange={(e) => set('method', e.target.value)}>
           <option value="">All methods</option>
           {methods.map((m) => (
@@ -51,7 +51,7 @@ export function CompareFilters({ methods, steels }: CompareFiltersProps) {
           ))}
         </Select>
       </Field>
-      <Field id={`${id}-steel`} label="Steel">
+      <Field className="col-span-2 lg:col-span-1" id={`${id}-steel`} label="Steel">
         <Select id={`${id}-steel`} value={filters.steel ?? ''} onChange={(e) => set('steel', e.target.value)}>
           <option value="">All steels</option>
           {steels.map((s) => (
@@ -61,7 +61,7 @@ export function CompareFilters({ methods, steels }: CompareFiltersProps) {
           ))}
         </Select>
       </Field>
-      <Field id={`${id}-material`} label="Abrasive material">
+      <Field className="col-span-2 lg:col-span-1" id={`${id}-material`} label="Abrasive material">
         <Select id={`${id}-material`} value={filters.material ?? ''} onChange={(e) => set('material', e.target.value)}>
           <option value="">All materials</option>
           {Object.entries(ABRASIVE_MATERIALS).map(([value, text]) => (
@@ -95,7 +95,7 @@ export function CompareFilters({ methods, steels }: CompareFiltersProps) {
           onChange={(e) => set('hrcMax', e.target.value)}
         />
       </Field>
-      <div className="flex items-end">
+      <div className="col-span-2 flex items-end lg:col-span-1">
         <Button variant="quiet" onClick={() => setFilters({})} disabled={!any}>
           Clear filters
         </Button>

@@ -22,7 +22,11 @@ export function CompareTable({ rows }: { rows: CompareRow[] }) {
     () => [
       column.accessor('methodName', {
         header: 'Method',
-        cell: (info) => <Link to={paths.method.getHref(info.row.original.method)}>{info.getValue()}</Link>,
+        cell: (info) => (
+          <Link to={paths.method.getHref(info.row.original.method)} className="block min-w-40">
+            {info.getValue()}
+          </Link>
+        ),
       }),
       column.accessor('steelName', {
         header: 'Steel',
@@ -56,15 +60,16 @@ export function CompareTable({ rows }: { rows: CompareRow[] }) {
       }),
       column.accessor((r) => r.sharpnessG.median, {
         id: 'median',
-        header: 'Median (q1–q3)',
+        header: 'Median',
         meta: { numeric: true },
         cell: (info) => {
           const s = info.row.original.sharpnessG;
           return (
             <span className="whitespace-nowrap">
-              <strong className="font-semibold">{formatGrams(s.median)}</strong>{' '}
-              <span className="text-muted">
-                ({formatNumber(s.q1, 0)}–{formatNumber(s.q3, 0)})
+              <strong className="block font-semibold">{formatGrams(s.median)}</strong>
+              <span className="block text-sm text-muted">
+                <span className="sr-only">quartiles </span>
+                {formatNumber(s.q1, 0)}–{formatNumber(s.q3, 0)}
               </span>
             </span>
           );
@@ -72,15 +77,22 @@ export function CompareTable({ rows }: { rows: CompareRow[] }) {
       }),
       column.accessor((r) => r.sharpnessG.mean, {
         id: 'mean',
-        header: 'Mean (95 % CI)',
+        header: 'Mean',
         meta: { numeric: true },
         cell: (info) => {
           const s = info.row.original.sharpnessG;
           return (
             <span className="whitespace-nowrap">
-              {formatGrams(s.mean)}{' '}
-              <span className="text-muted">
-                {s.ci95 ? `(${formatNumber(s.ci95[0], 0)}–${formatNumber(s.ci95[1], 0)})` : '(no interval for n = 1)'}
+              <span className="block">{formatGrams(s.mean)}</span>
+              <span className="block text-sm text-muted">
+                {s.ci95 ? (
+                  <>
+                    <span className="sr-only">95 % confidence interval </span>
+                    {formatNumber(s.ci95[0], 0)}–{formatNumber(s.ci95[1], 0)}
+                  </>
+                ) : (
+                  'no interval'
+                )}
               </span>
             </span>
           );
@@ -102,7 +114,7 @@ export function CompareTable({ rows }: { rows: CompareRow[] }) {
       data={rows}
       columns={columns}
       rowKey={(r) => `${r.method}|${r.steel}|${r.material}|${r.gritBand.loUm}`}
-      caption="Sharpness in grams of force to cut the test medium: lower is sharper."
+      caption="Sharpness in grams of force to cut the test medium (lower is sharper): the median with its quartiles q1–q3 beneath, the mean with its 95 % confidence interval beneath."
     />
   );
 }

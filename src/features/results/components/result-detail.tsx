@@ -1,9 +1,10 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
+import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
 import { ABRASIVE_MATERIALS, BONDS, STATUS_LABELS } from '@shared/vocabulary';
 import { paths } from '@/config/paths';
 import { ServerHtml } from '@/components/ui/server-html';
-import { TableFrame, tdClass, thClass } from '@/components/ui/table';
+import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
 import {
   formatDate,
   formatDateTime,
@@ -26,10 +27,27 @@ function Row({ term, children }: { term: string; children: ReactNode }) {
   );
 }
 
-const decisionWords = { approve: 'Approved', return: 'Returned with a note', reject: 'Declined' } as const;
+// The server names a decision by the verb sent or by the state it led to; both read the same here.
+const decisionWords: Record<string, string> = {
+  approve: 'Approved',
+  approved: 'Approved',
+  return: 'Returned with a note',
+  returned: 'Returned with a note',
+  reject: 'Declined',
+  rejected: 'Declined',
+};
 
 /** Everything about one result: what was entered, what was derived, its notes, state and trail. */
-export function ResultDetail({ result, headingLevel = 2 }: { result: Result; headingLevel?: 2 | 3 }) {
+export function ResultDetail({
+  result,
+  headingLevel = 2,
+  methodNames = {},
+}: {
+  result: Result;
+  headingLevel?: 2 | 3;
+  /** Names of methods by slug, for the retention method (the result carries only its slug). */
+  methodNames?: Record<string, string>;
+}) {
   const H = headingLevel === 2 ? 'h2' : 'h3';
   const angle = result.edgeAngle;
   const reviewNote =
@@ -51,7 +69,8 @@ export function ResultDetail({ result, headingLevel = 2 }: { result: Result; hea
             </p>
             <p className="mt-1 whitespace-pre-line">{reviewNote.note}</p>
             <p className="mt-1 text-sm text-muted">
-              @{reviewNote.by.handle}, {formatDateTime(reviewNote.at)}
+              {reviewNote.by ? `@${reviewNote.by.handle}, ` : ''}
+              {formatDateTime(reviewNote.at)}
             </p>
           </div>
         ) : null}
@@ -82,7 +101,7 @@ export function ResultDetail({ result, headingLevel = 2 }: { result: Result; hea
             {result.grit ? (
               <>
                 {result.grit.grade}
-                {result.grit.standard ? ` (${result.grit.standard})` : ''} → {formatMicrometres(result.derived.gritUm)} µm, band{' '}
+                {result.grit.standard ? ` (${GRIT_STANDARD_SHORT_LABELS[result.grit.standard] ?? result.grit.standard})` : ''} → {formatMicrometres(result.derived.gritUm)} µm, band{' '}
                 {formatGritBand(result.derived.gritBand)}
               </>
             ) : result.derived.gritUm ? (
@@ -112,7 +131,9 @@ export function ResultDetail({ result, headingLevel = 2 }: { result: Result; hea
             {result.retention ? (
               <>
                 {formatNumber(result.retention.cuts, 0)} cuts, method{' '}
-                <Link to={paths.method.getHref(result.retention.method)}>{result.retention.method}</Link>
+                <Link to={paths.method.getHref(result.retention.method)}>
+                  {methodNames[result.retention.method] ?? result.retention.method}
+                </Link>
               </>
             ) : (
               'not tested'
@@ -155,7 +176,7 @@ export function ResultDetail({ result, headingLevel = 2 }: { result: Result; hea
                       {t.from ? `${STATUS_LABELS[t.from] ?? t.from} → ` : ''}
                       {STATUS_LABELS[t.to] ?? t.to}
                     </td>
-                    <td className={tdClass}>@{t.by.handle}</td>
+                    <td className={tdClass}>{t.by ? `@${t.by.handle}` : '—'}</td>
                     <td className={`${tdClass} whitespace-pre-line`}>{t.note || '—'}</td>
                   </tr>
                 ))}
@@ -164,7 +185,8 @@ export function ResultDetail({ result, headingLevel = 2 }: { result: Result; hea
           </TableFrame>
           {result.review ? (
             <p className="mt-2 text-sm text-muted">
-              Last decision: {decisionWords[result.review.decision]} by @{result.review.by.handle}.
+              Last decision: {decisionWords[result.review.decision] ?? result.review.decision}
+              {result.review.by ? ` by @${result.review.by.handle}` : ''}, {formatDateTime(result.review.at)}.
             </p>
           ) : null}
         </section>

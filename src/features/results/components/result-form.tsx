@@ -1,8 +1,8 @@
 import { lazy, Suspense, useMemo, useState, type ReactNode } from 'react';
 import { Controller, useForm, useWatch, type FieldError, type FieldErrors, type Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { GRIT_STANDARDS, gritBand, parseGrit, type GritStandard } from '@shared/grit';
-import { HARDNESS_SCALES, toHrc } from '@shared/hardness';
+import { GRIT_STANDARD_LABELS, GRIT_STANDARD_SHORT_LABELS, GRIT_STANDARDS, gritBand, parseGrit, type GritStandard } from '@shared/grit';
+import { HARDNESS_SCALE_LABELS, HARDNESS_SCALES, toHrc } from '@shared/hardness';
 import { angleFromSetup } from '@shared/geometry';
 import { median } from '@shared/stats';
 import { limits } from '@shared/validations';
@@ -27,17 +27,6 @@ import {
 
 // The editor is about as large as the rest of the app together: it loads only when this form shows.
 const NotesEditor = lazy(() => import('./notes-editor'));
-
-/** Names of the grit standards as the form shows them (standard designations, our own wording). */
-const GRIT_STANDARD_LABELS: Record<string, string> = {
-  'fepa-f': 'FEPA F (bonded abrasives, F-grits)',
-  'fepa-p': 'FEPA P / ISO 6344 (coated abrasives, P-grits)',
-  jis: 'JIS R6001',
-  ansi: 'ANSI (US grit)',
-  mesh: 'US mesh (ASTM E11 sieves)',
-  iso6106: 'ISO 6106 superabrasive (e.g. D46, B126)',
-  um: 'Particle size in µm',
-};
 
 const zodForm = zodResolver(resultInputSchema, { error: friendlyZodMessages });
 
@@ -133,15 +122,19 @@ export function ResultForm({ steels, abrasives, methods, onCreated }: ResultForm
   const values = useWatch({ control });
   const angleMode = values.angleMode ?? 'perSide';
   const abrasive = abrasives.find((a) => a.slug === values.abrasive);
+  // Only methods that define a retention medium can count cuts.
+  const retentionMethods = methods.filter((m) => m.retentionMedium);
 
   const hrcPreview = useMemo(() => {
     const v = values.hardness?.value;
     const scale = values.hardness?.scale ?? 'HRC';
-    if (v === undefined || Number.isNaN(v)) return null;
-    if (scale === 'HRC') return null;
+    if (v === undefined || Number.isNaN(v) || v <= 0) return null;
     const r = attempt(() => toHrc(v, scale));
     if (r.error !== undefined) return { error: r.error };
-    return Number.isFinite(r.value) ? { text: `≈ ${formatNumber(r.value, 1)} HRC` } : { error: 'no HRC equivalent for this value' };
+    if (scale === 'HRC') return null;
+    return Number.isFinite(r.value)
+      ? { text: `≈ ${formatNumber(r.value, 1)} HRC (ASTM E140 conversion for steel)` }
+      : { error: 'no HRC equivalent for this value' };
   }, [values.hardness?.value, values.hardness?.scale]);
 
   const gritPreview = useMemo(() => {
@@ -151,7 +144,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated }: ResultForm
     if (r.error !== undefined) return { error: r.error };
     const band = gritBand(r.value.micrometres);
     return {
-      text: `${r.value.grade}${r.value.inferred ? ` (read as ${GRIT_STANDARD_LABELS[r.value.standard] ?? r.value.standard})` : ''} ≈ ${formatMicrometres(r.value.micrometres)} µm, grit band ${formatGritBand(band)}`,
+      text: `${r.value.grade}${r.value.inferred ? ` (read as ${GRIT_STANDARD_SHORT_LABELS[r.value.standard] ?? r.value.standard})` : ''} ≈ ${formatMicrometres(r.value.micrometres)} µm, grit band ${formatGritBand(band)}`,
     };
   }, [values.grit?.grade, values.grit?.standard]);
 
@@ -272,7 +265,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated }: ResultForm
           <Select {...controlA11y('result-scale', { error: scaleError })} {...register('hardness.scale')}>
             {HARDNESS_SCALES.map((s) => (
               <option key={s} value={s}>
-                {s}
+                {HARDNESS_SCALE_LABELS[s] ?? s}
               </option>
             ))}
           </Select>
@@ -280,7 +273,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated }: ResultForm
         {hrcPreview && 'error' in hrcPreview ? (
           <div className="sm:col-span-2">
             <Preview id="result-hardness-preview" tone="caution">
-              HRC equivalent: {sentence(hrcPreview.error)}
+              {sentence(hrcPreview.error)}
             </Preview>
           </div>
         ) : null}
@@ -445,7 +438,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated }: ResultForm
         <Field id="result-retention-method" label="Retention method" error={retMethodError}>
           <Select {...controlA11y('result-retention-method', { error: retMethodError })} {...register('retention.method')}>
             <option value="">Not tested</option>
-            {methods.map((m) => (
+            {retentionMethods.map((m) => (
               <option key={m.slug} value={m.slug}>
                 {m.name}
               </option>

@@ -26,7 +26,7 @@ export function ResultsTable({ results, label, caption, showStatus, hideAuthor }
       column.accessor('createdAt', {
         header: 'Posted',
         cell: (info) => (
-          <Link to={paths.result.getHref(info.row.original.id)} aria-label={`Result ${info.row.original.id}, posted ${formatDate(info.getValue())}`}>
+          <Link to={paths.result.getHref(info.row.original.id)} className="whitespace-nowrap" aria-label={`Result ${info.row.original.id}, posted ${formatDate(info.getValue())}`}>
             {formatDate(info.getValue())}
           </Link>
         ),
@@ -38,7 +38,7 @@ export function ResultsTable({ results, label, caption, showStatus, hideAuthor }
         meta: { numeric: true },
         cell: (info) => formatNumber(info.getValue(), 1),
       }),
-      column.accessor('abrasiveName', { header: 'Final abrasive' }),
+      column.accessor('abrasiveName', { header: 'Final abrasive', meta: { wide: true } }),
       column.accessor((r) => r.derived.gritUm, {
         id: 'gritUm',
         header: 'Grit (µm)',
@@ -58,7 +58,7 @@ export function ResultsTable({ results, label, caption, showStatus, hideAuthor }
         meta: { numeric: true },
         cell: (info) => formatGrams(info.getValue()),
       }),
-      column.accessor('sharpnessMethodName', { header: 'Method' }),
+      column.accessor('sharpnessMethodName', { header: 'Method', meta: { wide: true } }),
       ...(hideAuthor ? [] : [column.accessor((r) => r.author.displayName, { id: 'author', header: 'Tester' })]),
       ...(showStatus
         ? [

@@ -3,7 +3,7 @@ import { STEEL_CATEGORIES } from '@shared/vocabulary';
 import { paths } from '@/config/paths';
 import { Facts } from '@/components/ui/facts';
 import { ServerHtml } from '@/components/ui/server-html';
-import { TableFrame, tdClass, thClass } from '@/components/ui/table';
+import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
 import { formatNumber, label } from '@/lib/format';
 import type { SteelDetail as Steel } from '@/types/api';
 
@@ -124,7 +124,7 @@ export function SteelDetail({ steel }: { steel: Steel }) {
                 ) : (
                   <cite className="not-italic">{c.title}</cite>
                 )}
-                {`, ${c.organisation}, ${c.year}`}
+                {[c.organisation, c.year].filter(Boolean).map((part) => `, ${part}`).join('')}
                 {c.standard ? ` (${c.standard})` : ''}
                 {c.supports ? <span className="block text-sm text-muted">Supports: {c.supports}</span> : null}
               </li>

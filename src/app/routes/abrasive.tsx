@@ -1,0 +1,30 @@
+import { Link, useParams } from 'react-router-dom';
+import { paths } from '@/config/paths';
+import { PageTitle } from '@/components/ui/page-title';
+import { ErrorState, Loading } from '@/components/ui/states';
+import { useAbrasive } from '@/features/abrasives/api/get-abrasive';
+import { AbrasiveDetail } from '@/features/abrasives/components/abrasive-detail';
+
+/** One abrasive's reference page. */
+export default function AbrasiveRoute() {
+  const { slug = '' } = useParams();
+  const page = useAbrasive(slug);
+  if (page.isPending) return <Loading />;
+  if (page.isError) {
+    return (
+      <div className="flex flex-col gap-4">
+        <ErrorState error={page.error} onRetry={() => page.refetch()} />
+        <Link to={paths.abrasives.getHref()}>All abrasives</Link>
+      </div>
+    );
+  }
+  return (
+    <article className="flex flex-col gap-6">
+      <p className="-mb-4 text-sm">
+        <Link to={paths.abrasives.getHref()}>Abrasives</Link>
+      </p>
+      <PageTitle title={page.data.name}>{page.data.name}</PageTitle>
+      <AbrasiveDetail abrasive={page.data} />
+    </article>
+  );
+}

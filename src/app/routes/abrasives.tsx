@@ -1,0 +1,25 @@
+import { PageTitle } from '@/components/ui/page-title';
+import { Empty, ErrorState, Loading } from '@/components/ui/states';
+import { useAbrasives } from '@/features/abrasives/api/get-abrasives';
+import { AbrasivesTable } from '@/features/abrasives/components/abrasives-table';
+
+/** Abrasives: the list of reference pages. */
+export default function AbrasivesRoute() {
+  const list = useAbrasives();
+  return (
+    <div className="flex flex-col gap-6">
+      <PageTitle title="Abrasives" lead="Generic abrasive types: material, bond, form, grit, size, and whether they wear.">
+        Abrasives
+      </PageTitle>
+      {list.isPending ? (
+        <Loading />
+      ) : list.isError ? (
+        <ErrorState error={list.error} onRetry={() => list.refetch()} />
+      ) : list.data.items.length === 0 ? (
+        <Empty title="No abrasive pages yet" />
+      ) : (
+        <AbrasivesTable abrasives={list.data.items} />
+      )}
+    </div>
+  );
+}

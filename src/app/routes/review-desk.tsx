@@ -1,0 +1,117 @@
+import { useEffect, useRef } from 'react';
+import { Link, useSearchParams } from 'react-router-dom';
+import { paths } from '@/config/paths';
+import { useCan } from '@/lib/auth';
+import { SignInRequired } from '@/lib/authorization';
+import { formatDate, formatGrams } from '@/lib/format';
+import { PageTitle } from '@/components/ui/page-title';
+import { Empty, ErrorState, Loading } from '@/components/ui/states';
+import { useReviewDesk } from '@/features/results/api/get-review-desk';
+import { useMethods } from '@/features/methods/api/get-methods';
+import { ResultDetail } from '@/features/results/components/result-detail';
+import { ReviewDecisionForm } from '@/features/results/components/review-decision-form';
+import type { Result } from '@/types/api';
+
+function Queue() {
+  const desk = useReviewDesk();
+  const methods = useMethods();
+  const methodNames = Object.fromEntries((methods.data?.items ?? []).map((m) => [m.slug, m.name]));
+  const [params, setParams] = useSearchParams();
+  const openId = Number(params.get('open') ?? '');
+  const headingRef = useRef<HTMLHeadingElement>(null);
+  const open = desk.data?.items.find((r) => r.id === openId) ?? null;
+
+  useEffect(() => {
+    if (open) headingRef.current?.focus();
+  }, [open?.id]);
+
+  if (desk.isPending) return <Loading label="Loading the queue…" />;
+  if (desk.isError) return <ErrorState error={desk.error} onRetry={() => desk.refetch()} />;
+
+  const items = desk.data.items;
+  const close = () => setParams(new URLSearchParams(), { replace: true });
+  const decided = (r: Result) => {
+    const next = items.find((i) => i.id !== r.id);
+    setParams(next ? new URLSearchParams({ open: String(next.id) }) : new URLSearchParams(), { replace: true });
+  };
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
+      <section aria-labelledby="queue">
+        <h2 id="queue" className="mb-2 text-xl font-semibold">
+          Awaiting review <span className="font-sans text-base font-normal text-muted">({items.length})</span>
+        </h2>
+        {items.length === 0 ? (
+          <Empty title="The queue is empty">Nothing is waiting for review.</Empty>
+        ) : (
+          <ol className="divide-y divide-rule rounded-md border border-rule bg-panel">
+            {items.map((r) => (
+              <li key={r.id}>
+                <Link
+                  to={paths.reviewDesk.getHref(r.id)}
+                  aria-current={r.id === openId ? 'true' : undefined}
+                  className={`block px-4 py-3 no-underline ${r.id === openId ? 'bg-accent-soft' : 'hover:bg-paper'}`}
+                >
+                  <span className="block font-semibold text-ink">
+                    {r.steelName} on {r.abrasiveName}
+                  </span>
+                  <span className="block text-sm text-muted">
+                    #{r.id} · {r.author.displayName} · {formatDate(r.createdAt)} · median {formatGrams(r.derived.sharpnessMedianG)}
+                  </span>
+                </Link>
+              </li>
+            ))}
+          </ol>
+        )}
+      </section>
+
+      <section aria-labelledby="open-item" className="min-w-0">
+        {open ? (
+          <div className="flex flex-col gap-6">
+            <div className="flex flex-wrap items-baseline justify-between gap-2">
+              <h2 id="open-item" ref={headingRef} tabIndex={-1} className="text-2xl font-semibold">
+                Result {open.id}: {open.steelName} on {open.abrasiveName}
+              </h2>
+              <button type="button" className="text-accent-strong underline" onClick={close}>
+                Close
+              </button>
+            </div>
+            <ResultDetail result={open} headingLevel={3} methodNames={methodNames} />
+            <section aria-labelledby="decision">
+              <h3 id="decision" className="mb-2 text-xl font-semibold">
+                Decision
+              </h3>
+              {open.can.review ? (
+                <ReviewDecisionForm key={open.id} result={open} onDecided={decided} />
+              ) : (
+                <p className="text-muted">You cannot review your own result; another moderator will.</p>
+              )}
+            </section>
+          </div>
+        ) : (
+          <div className="rounded-md border border-dashed border-rule px-5 py-8 text-muted">
+            <h2 id="open-item" className="sr-only">
+              No result open
+            </h2>
+            {items.length ? 'Open a result from the queue to read it in full and decide.' : 'When members post results, they appear here, oldest first.'}
+          </div>
+        )}
+      </section>
+    </div>
+  );
+}
+
+/** Review desk (moderators): pending results oldest first; open one, read it, approve, return or reject. */
+export default function ReviewDeskRoute() {
+  const mayReview = useCan('read:review-desk');
+  return (
+    <div className="flex flex-col gap-6">
+      <PageTitle title="Review desk" lead="Approve what is sound; return with a note what needs changes; reject with a reason what cannot be used.">
+        Review desk
+      </PageTitle>
+      <SignInRequired what="open the review desk" action="read:review-desk">
+        {mayReview ? <Queue /> : null}
+      </SignInRequired>
+    </div>
+  );
+}

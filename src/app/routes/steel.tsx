@@ -1,0 +1,30 @@
+import { Link, useParams } from 'react-router-dom';
+import { paths } from '@/config/paths';
+import { PageTitle } from '@/components/ui/page-title';
+import { ErrorState, Loading } from '@/components/ui/states';
+import { useSteel } from '@/features/steels/api/get-steel';
+import { SteelDetail } from '@/features/steels/components/steel-detail';
+
+/** One steel's reference page. */
+export default function SteelRoute() {
+  const { slug = '' } = useParams();
+  const page = useSteel(slug);
+  if (page.isPending) return <Loading />;
+  if (page.isError) {
+    return (
+      <div className="flex flex-col gap-4">
+        <ErrorState error={page.error} onRetry={() => page.refetch()} />
+        <Link to={paths.steels.getHref()}>All steels</Link>
+      </div>
+    );
+  }
+  return (
+    <article className="flex flex-col gap-6">
+      <p className="-mb-4 text-sm">
+        <Link to={paths.steels.getHref()}>Steels</Link>
+      </p>
+      <PageTitle title={page.data.name}>{page.data.name}</PageTitle>
+      <SteelDetail steel={page.data} />
+    </article>
+  );
+}
