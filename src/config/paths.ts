@@ -55,8 +55,27 @@ export const paths = {
     grit: { path: '/tools/grit', getHref: () => '/tools/grit' },
     angle: { path: '/tools/angle', getHref: () => '/tools/angle' },
     hardness: { path: '/tools/hardness', getHref: () => '/tools/hardness' },
+    wheelLog: { path: '/tools/wheel-log', getHref: () => '/tools/wheel-log' },
   },
   signIn: { path: '/sign-in', getHref: (returnTo?: string) => withQuery('/sign-in', { returnTo }) },
+  /** The wiki on a steel, abrasive or method page; `section` is "steels", "abrasives" or "methods". */
+  wiki: {
+    edit: { path: '/:section/:slug/edit', getHref: (section: string, slug: string) => `/${section}/${encodeURIComponent(slug)}/edit` },
+    history: { path: '/:section/:slug/history', getHref: (section: string, slug: string) => `/${section}/${encodeURIComponent(slug)}/history` },
+    compare: {
+      path: '/:section/:slug/history/compare',
+      getHref: (section: string, slug: string, from: number, to: number) => withQuery(`/${section}/${encodeURIComponent(slug)}/history/compare`, { from, to }),
+    },
+    revision: { path: '/:section/:slug/revisions/:id', getHref: (section: string, slug: string, id: number) => `/${section}/${encodeURIComponent(slug)}/revisions/${id}` },
+    page: (section: string, slug: string) => `/${section}/${encodeURIComponent(slug)}`,
+  },
+  /** Publishing and curation: import, profiles, unsubscribe, the audit log, publisher applications, mail catcher. */
+  importResults: { path: '/import', getHref: () => '/import' },
+  profile: { path: '/members/:handle', getHref: (handle: string) => `/members/${encodeURIComponent(handle)}` },
+  unsubscribe: { path: '/unsubscribe', getHref: () => '/unsubscribe' },
+  audit: { path: '/audit', getHref: () => '/audit' },
+  publisherApplications: { path: '/admin/publishers', getHref: () => '/admin/publishers' },
+  devMail: { path: '/dev/mail', getHref: () => '/dev/mail' },
   /** Server routes: reached by a full-page navigation, never by the client router. */
   auth: {
     signIn: (returnTo: string, as?: string) => withQuery('/auth/signin', { as, returnTo }),

@@ -14,6 +14,16 @@ export const queryKeys = {
     detail: (id: number) => ['results', 'detail', id] as const,
   },
   reviewDesk: ['review-desk'] as const,
+  wheels: ['wheels'] as const,
+  /** Publishing and curation (issue 6). */
+  me: ['me'] as const,
+  tokens: ['tokens'] as const,
+  profile: (handle: string) => ['profiles', handle] as const,
+  photos: (resultId: number) => ['photos', resultId] as const,
+  audit: (filters: { actor?: string; action?: string; page?: number }) => ['audit', filters] as const,
+  publisherApplications: (status?: string) => ['publisher-applications', status ?? null] as const,
+  publishingSettings: ['publishing-settings'] as const,
+  devMail: ['dev-mail'] as const,
   compare: {
     all: ['compare'] as const,
     table: (filters: CompareFilters) => ['compare', filters] as const,
@@ -31,6 +41,13 @@ export const queryKeys = {
     all: ['abrasives'] as const,
     list: () => ['abrasives', 'list'] as const,
     detail: (slug: string) => ['abrasives', 'detail', slug] as const,
+  },
+  wiki: {
+    all: ['wiki'] as const,
+    history: (section: string, slug: string) => ['wiki', 'history', section, slug] as const,
+    revision: (section: string, slug: string, id: number) => ['wiki', 'revision', section, slug, id] as const,
+    /** The same key as the section's own detail query (e.g. queryKeys.steels.detail). */
+    page: (section: string, slug: string) => [section, 'detail', slug] as const,
   },
   methods: {
     all: ['methods'] as const,

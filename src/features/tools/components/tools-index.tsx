@@ -19,6 +19,11 @@ const TOOLS = [
     name: 'Hardness converter',
     what: 'Rockwell C, Vickers, Brinell and Rockwell A for steel, from the conversion table for non-austenitic steels, without extrapolating past it.',
   },
+  {
+    href: paths.tools.wheelLog.getHref(),
+    name: 'Wheel log',
+    what: 'Your wheels’ measured diameters over time, how fast they wear, and the gap from bar to rim that gives your usual angles today (for members).',
+  },
 ] as const;
 
 /** The tools page: a short guide to each calculator. Everything is computed in the browser. */
@@ -31,7 +36,7 @@ export default function ToolsIndex() {
       >
         Tools
       </PageTitle>
-      <ul className="grid gap-4 md:grid-cols-3">
+      <ul className="grid gap-4 md:grid-cols-2">
         {TOOLS.map((tool) => (
           <li key={tool.href} className="flex flex-col rounded-md border border-rule bg-panel p-4">
             <h2 className="text-xl font-semibold">
