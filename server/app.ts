@@ -9,27 +9,43 @@ import type { AppContext } from './context';
 import { configurePassport } from './auth/passport';
 import { authRouter } from './routes/auth';
 import { apiRouter } from './routes/api';
-import { errorHandler } from './middleware/error-handler';
+import { bearerToken } from './middleware/bearer-token';
+import { errorHandler, SIGN_IN_FAILED_PATH } from './middleware/error-handler';
+import { rateLimits } from './middleware/rate-limit';
+import { requestLog, signInOutcomeLog } from './middleware/request-log';
+import { sessionLifetime } from './middleware/session-lifetime';
+import { configureLogging, logError, logger } from './logging';
 import type { MailCatcher } from './mail/mail-catcher';
 
 export interface AppOptions {
   /** Folder of the built client; served with an SPA fallback when it exists. */
   clientDir?: string;
   mailCatcher?: MailCatcher;
+  /** Where unexpected errors go; the pino logger's `server_error` line by default. */
   log?: (err: unknown) => void;
+}
+
+/** The session cookie's name: `__Host-` in production (secure, whole site, no Domain). */
+export function sessionCookieName(isProduction: boolean): string {
+  return isProduction ? '__Host-edgeledger' : 'edgeledger';
 }
 
 /** Builds the Express app (without listening), so tests can drive it with supertest. */
 export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
+  if (logger().level !== ctx.env.LOG_LEVEL) configureLogging({ level: ctx.env.LOG_LEVEL });
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', false);
+  // Off by default: req.ip is the socket's peer, so X-Forwarded-For from a client changes
+  // nothing (rate limits key on it). Behind N reverse proxies, TRUST_PROXY=N.
+  app.set('trust proxy', ctx.env.TRUST_PROXY > 0 ? ctx.env.TRUST_PROXY : false);
   app.use(
     helmet({
       contentSecurityPolicy: {
         directives: {
           defaultSrc: ["'self'"],
           scriptSrc: ["'self'"],
+          // Scripts are strict (no inline, no eval); styles allow inline because TipTap injects
+          // its base <style> element (checked in headless Chromium: blocked under style-src 'self').
           styleSrc: ["'self'", "'unsafe-inline'"],
           imgSrc: ["'self'", 'data:'],
           fontSrc: ["'self'"],
@@ -43,6 +59,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
       },
     }),
   );
+  app.use(requestLog());
   app.use(express.json({ limit: '256kb' }));
 
   const SessionStore = ConnectSessionSequelize(session.Store);
@@ -51,21 +68,38 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
     { sid: { type: DataTypes.STRING(36), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
     { tableName: 'sessions' },
   );
-  const store = new SessionStore({ db: ctx.db.sequelize, table: 'Session', checkExpirationInterval: 15 * 60 * 1000, expiration: 7 * 24 * 3600 * 1000 });
+  const idleMs = ctx.env.SESSION_IDLE_MINUTES * 60_000;
+  const absoluteMs = ctx.env.SESSION_ABSOLUTE_HOURS * 3_600_000;
+  // disableTouch: the lifetime middleware writes the last-seen time back at most once a
+  // minute, instead of the store updating the row on every request.
+  const storeOptions = { db: ctx.db.sequelize, table: 'Session', checkExpirationInterval: 15 * 60 * 1000, expiration: idleMs, disableTouch: true };
+  const store = new SessionStore(storeOptions);
   app.use(
     session({
-      name: ctx.env.isProduction ? '__Host-edgeledger' : 'edgeledger',
+      name: sessionCookieName(ctx.env.isProduction),
       secret: ctx.env.SESSION_SECRET ?? 'edgeledger-local-development-secret',
       store,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: ctx.env.isProduction, path: '/', maxAge: 7 * 24 * 3600 * 1000 },
+      rolling: false,
+      // SameSite=Lax, not Strict: the provider's redirect back to /auth/callback is a cross-site
+      // navigation, and the state check needs the session cookie on it. Writes are covered by
+      // the CSRF token and the Sec-Fetch-Site check.
+      cookie: { httpOnly: true, sameSite: 'lax', secure: ctx.env.isProduction, path: '/', maxAge: idleMs },
     }),
   );
+  app.use(sessionLifetime({ idleMs, absoluteMs }));
   const auth = configurePassport(ctx);
   app.use(auth.initialize());
   app.use(auth.session());
+
+  // API tokens authenticate before the rate limits, so a token's calls count against its account.
+  app.use('/api', bearerToken(ctx));
+  const limits = rateLimits(ctx.env);
+  app.use('/auth/signin', limits.signin);
+  app.use('/auth/callback', signInOutcomeLog(SIGN_IN_FAILED_PATH));
+  app.use('/api/search', limits.search);
+  app.use('/api', limits.posts, limits.uploads);
 
   app.use('/auth', authRouter(ctx, auth));
   app.use('/api', apiRouter(ctx, options.mailCatcher));
@@ -76,6 +110,6 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
     app.get('/{*splat}', (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
   }
 
-  app.use(errorHandler(options.log ?? ((err) => console.error(err))));
+  app.use(errorHandler(options.log ?? logError));
   return app;
 }

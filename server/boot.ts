@@ -6,8 +6,11 @@ import type { AppContext } from './context';
 import { Database } from './db/database';
 import { SearchIndex } from './search/search-index';
 import { allSearchDocs } from './search/documents';
+import { keepCellsInStep } from './aggregates/cell-search';
 import { Mailer } from './mail/mailer';
 import { MailCatcher } from './mail/mail-catcher';
+import { LocalS3 } from './storage/local-s3';
+import { ObjectStorage } from './storage/object-storage';
 import { LocalOAuthProvider } from './auth/local-provider';
 import { createApp } from './app';
 import { loadDemoData } from '../seed/load';
@@ -55,6 +58,13 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
     mailCatcher = new MailCatcher(env.dataDir);
     smtpPort = await mailCatcher.start(env.SMTP_PORT);
   }
+  let localS3: LocalS3 | undefined;
+  let s3Endpoint = env.S3_ENDPOINT;
+  if (!s3Endpoint) {
+    localS3 = new LocalS3(env.dataDir, env.S3_BUCKET);
+    s3Endpoint = await localS3.start(env.S3_PORT);
+  }
+  const storage = new ObjectStorage({ endpoint: s3Endpoint, bucket: env.S3_BUCKET, region: env.S3_REGION, accessKeyId: env.S3_ACCESS_KEY, secretAccessKey: env.S3_SECRET_KEY });
 
   const search = new SearchIndex();
   const started = Date.now();
@@ -67,6 +77,7 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
     db,
     search,
     mailer,
+    storage,
     oauth: {
       authorizeUrl: env.OAUTH_AUTHORIZE_URL ?? `${oauthUrl}/authorize`,
       tokenUrl: env.OAUTH_TOKEN_URL ?? `${oauthUrl}/token`,
@@ -76,6 +87,8 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
     },
     baseUrl: '',
   };
+  // Comparison cells refreshed by a write reach the search index after its commit.
+  const stopCellSync = keepCellsInStep(ctx);
   const app = createApp(ctx, { clientDir: path.resolve('dist'), mailCatcher });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
@@ -88,19 +101,32 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
   log(`Search index: ${search.size} documents in ${indexMs} ms.`);
   if (oauthUrl) log(`Local OAuth2 provider at ${oauthUrl}`);
   if (mailCatcher) log(`Local mail catcher (SMTP) on 127.0.0.1:${smtpPort}; messages in ${mailCatcher.file}`);
+  if (localS3) log(`Local S3 fake at ${s3Endpoint}; objects in ${localS3.directory}`);
   log(`Edgeledger ready at ${url}`);
 
   let stopping: Promise<void> | undefined;
   const stop = () =>
     (stopping ??= (async () => {
+      // Stop accepting, let the requests under way finish, and close each keep-alive
+      // connection as soon as it falls idle (server.close() alone waits for their timeout);
+      // after 10 s whatever is left is cut.
       await new Promise<void>((resolve) => {
-        server.close(() => resolve());
+        const idle = setInterval(() => server.closeIdleConnections(), 50);
+        const deadline = setTimeout(() => server.closeAllConnections(), 10_000);
+        server.close(() => {
+          clearInterval(idle);
+          clearTimeout(deadline);
+          resolve();
+        });
         server.closeIdleConnections();
       });
+      stopCellSync();
       await db.close();
       mailer.close();
       await provider?.stop();
       await mailCatcher?.stop();
+      storage.close();
+      await localS3?.stop();
     })());
   return { ctx, server, url, oauthUrl, smtpPort, mailCatcher, stop };
 }

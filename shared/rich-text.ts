@@ -21,8 +21,30 @@ export const ALLOWED_NODES = [
 export const ALLOWED_MARKS = ['bold', 'italic', 'link', 'code'] as const;
 export const HEADING_LEVELS = [2, 3, 4] as const;
 
-/** A link may point only at the web or at an e-mail address. */
-export const SAFE_HREF = /^(https?:\/\/|mailto:)[^\s<>"]+$/i;
+/**
+ * The site-relative paths a link may point at: a reference page ("/steels/aisi-d2",
+ * "/abrasives/<slug>", "/methods/<slug>") or a result ("/results/12"), with an optional
+ * "#section". Only a single leading slash followed by a known section, so "//host",
+ * "/\\host", "/../" and query strings never match.
+ */
+const SITE_PATH_SOURCE = '\\/(?:(?:steels|abrasives|methods)\\/[a-z0-9]+(?:-[a-z0-9]+)*|results\\/[1-9][0-9]{0,9})(?:#[a-z0-9-]{1,80})?';
+
+/** A site-relative link to a page or result, case-sensitive (slugs are lower-case). */
+export const SITE_PATH = new RegExp(`^${SITE_PATH_SOURCE}$`);
+
+/**
+ * A link may point only at the web, at an e-mail address, or at a page of this site (SITE_PATH).
+ * The scheme is matched in any case, the site path only in lower case (no `i` flag), so
+ * "/Steels/X" is refused rather than stored as a link that can never resolve.
+ */
+export const SAFE_HREF = new RegExp(`^(?:(?:[Hh][Tt][Tt][Pp][Ss]?:\\/\\/|[Mm][Aa][Ii][Ll][Tt][Oo]:)[^\\s<>"]+|${SITE_PATH_SOURCE})$`);
+
+/** The page a site-relative link points at, or null when `href` is not one (e.g. an https address). */
+export function parseSitePath(href: string): { section: 'steels' | 'abrasives' | 'methods' | 'results'; key: string } | null {
+  if (!SITE_PATH.test(href)) return null;
+  const [, section, key] = href.split('#')[0].split('/');
+  return { section: section as 'steels' | 'abrasives' | 'methods' | 'results', key };
+}
 
 export interface RichTextMark {
   type: (typeof ALLOWED_MARKS)[number];
@@ -45,7 +67,7 @@ const markSchema = z.discriminatedUnion('type', [
       type: z.literal('link'),
       attrs: z
         .object({
-          href: z.string().max(2000).regex(SAFE_HREF, 'links may use only http, https or mailto'),
+          href: z.string().max(2000).regex(SAFE_HREF, 'links may use only http, https, mailto or a page path such as /steels/aisi-d2'),
         })
         .passthrough()
         .transform(({ href }) => ({ href })),
@@ -77,7 +99,8 @@ const nodeSchema: z.ZodType<RichTextNode> = z.lazy(() =>
       if (node.type === 'heading' && !HEADING_LEVELS.includes(node.attrs?.level as 2)) {
         ctx.addIssue({ code: 'custom', message: 'heading level must be 2, 3 or 4', path: ['attrs', 'level'] });
       }
-      if (node.type === 'text' && typeof node.text !== 'string') {
+      // ProseMirror throws on an empty text node, so '' is refused here rather than at render time.
+      if (node.type === 'text' && (typeof node.text !== 'string' || node.text.length === 0)) {
         ctx.addIssue({ code: 'custom', message: 'a text node needs text', path: ['text'] });
       }
     }),

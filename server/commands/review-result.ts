@@ -1,13 +1,14 @@
-import { can, type Actor } from '@shared/permissions';
+import { atLeast, can, type Actor } from '@shared/permissions';
 import type { ReviewInput, ResultStatus } from '@shared/schemas/result';
 import { STATUS_LABELS } from '@shared/vocabulary';
 import type { AppContext } from '../context';
-import { conflict, forbidden, notFound } from '../errors';
+import { conflict, forbidden, HttpError, notFound } from '../errors';
 import { Result, ResultEvent, User } from '../models';
 import { cellKeyOf, refreshCell } from '../aggregates/comparison-cells';
 import { resultDoc } from '../search/documents';
 import { loadResult } from './submit-result';
 import { notifyReviewOutcome } from './notify-review-outcome';
+import { recordAudit, recordRefusal } from './record-audit';
 
 const outcome: Record<ReviewInput['decision'], ResultStatus> = { approve: 'approved', return: 'returned', reject: 'rejected' };
 
@@ -17,6 +18,7 @@ const outcome: Record<ReviewInput['decision'], ResultStatus> = { approve: 'appro
  * after the commit. A result already decided is refused with 409, naming its state.
  */
 export async function reviewResult(ctx: AppContext, actor: Actor, id: number, review: ReviewInput): Promise<Result> {
+  const audit = { action: `result.${review.decision}`, subjectType: 'result', subjectId: id, reason: review.note ?? null };
   await ctx.db.write(async (transaction) => {
     const result = await Result.findByPk(id, { transaction });
     if (!result) throw notFound('Result');
@@ -29,7 +31,12 @@ export async function reviewResult(ctx: AppContext, actor: Actor, id: number, re
     const to = outcome[review.decision];
     await result.update({ status: to, approvedAt: to === 'approved' ? new Date() : null }, { transaction });
     await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'pending', toStatus: to, note: review.note ?? null }, { transaction });
+    await recordAudit(actor, { ...audit, details: { from: 'pending', to } }, transaction);
     if (to === 'approved') await refreshCell(cellKeyOf(result), transaction);
+  }).catch(async (err: unknown) => {
+    // A moderator's refused attempt (already decided, or their own result) is kept in the audit log too.
+    if (err instanceof HttpError && (err.status === 409 || err.status === 403) && atLeast(actor.role, 'moderator')) await recordRefusal(ctx, actor, audit, err.message);
+    throw err;
   });
   const result = await loadResult(id);
   if (result.status === 'approved') ctx.search.upsert(resultDoc(result));

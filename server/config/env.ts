@@ -24,11 +24,32 @@ const envSchema = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().default('Edgeledger <no-reply@edgeledger.test>'),
+  /** S3-compatible object store for photos; unset: the local fake (s3rver) under DATA_DIR/s3. */
+  S3_ENDPOINT: z.string().url().optional(),
+  S3_BUCKET: z.string().min(3).max(63).default('edgeledger'),
+  S3_ACCESS_KEY: z.string().default('S3RVER'),
+  S3_SECRET_KEY: z.string().default('S3RVER'),
+  S3_REGION: z.string().default('us-east-1'),
+  /** Port of the local S3 fake; 0 picks a free one (only this process talks to it). */
+  S3_PORT: port.default(0),
   SEED_DEMO: z.enum(['auto', 'never']).default('auto'),
-  LOG_LEVEL: z.enum(['silent', 'error', 'info']).default('info'),
+  // Unset: 'silent' under NODE_ENV=test, 'info' otherwise (see loadEnv).
+  LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).optional(),
+  /** Number of reverse proxies in front of the server whose X-Forwarded-* headers are trusted; 0: none. */
+  TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0),
+  /** Session idle timeout, minutes without a request (fractions allowed). */
+  SESSION_IDLE_MINUTES: z.coerce.number().positive().max(60 * 24 * 30).default(120),
+  /** Session absolute timeout, hours since sign-in whatever the activity. */
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().positive().max(24 * 90).default(24),
+  /** Rate limits per client per minute (signed-in: per account; otherwise per address). */
+  RATE_LIMIT_SIGNIN_PER_MIN: z.coerce.number().int().positive().default(20),
+  RATE_LIMIT_POSTS_PER_MIN: z.coerce.number().int().positive().default(60),
+  RATE_LIMIT_UPLOADS_PER_MIN: z.coerce.number().int().positive().default(30),
+  RATE_LIMIT_SEARCH_PER_MIN: z.coerce.number().int().positive().default(300),
 });
 
-export type Env = z.infer<typeof envSchema> & {
+export type Env = Omit<z.infer<typeof envSchema>, 'LOG_LEVEL'> & {
+  LOG_LEVEL: NonNullable<z.infer<typeof envSchema>['LOG_LEVEL']>;
   /** Absolute data folder. */
   dataDir: string;
   /** Whether the local stand-ins (OAuth provider, mail catcher) run in this process. */
@@ -48,6 +69,7 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
   if (isProduction && !env.SESSION_SECRET) throw new Error('Invalid environment:\n  SESSION_SECRET: required in production');
   return {
     ...env,
+    LOG_LEVEL: env.LOG_LEVEL ?? (env.NODE_ENV === 'test' ? 'silent' : 'info'),
     dataDir: path.resolve(env.DATA_DIR),
     localProviders: !env.OAUTH_AUTHORIZE_URL,
     isProduction,

@@ -6,11 +6,17 @@ import { sqliteWithPragmas } from './sqlite-driver';
 import { WriteQueue } from './write-queue';
 import { initModels } from '../models';
 import * as m0001 from './migrations/0001-initial';
+import * as m0002 from './migrations/0002-reference-wiki';
+import * as m0003 from './migrations/0003-comparison-bands';
+import * as m0005 from './migrations/0005-publishing';
 import * as m0006 from './migrations/0006-wheel-log';
 
 /** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
 const migrations = [
   { name: '0001-initial', module: m0001 },
+  { name: '0002-reference-wiki', module: m0002 },
+  { name: '0003-comparison-bands', module: m0003 },
+  { name: '0005-publishing', module: m0005 },
   { name: '0006-wheel-log', module: m0006 },
 ];
 

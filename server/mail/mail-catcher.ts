@@ -10,6 +10,8 @@ export interface CaughtMessage {
   text: string;
   html: string;
   date: string;
+  /** The List-Unsubscribe header, when the message has one. */
+  unsubscribe?: string;
 }
 
 /**
@@ -42,6 +44,9 @@ export class MailCatcher {
               html: typeof mail.html === 'string' ? mail.html : '',
               date: (mail.date ?? new Date()).toISOString(),
             };
+            // mailparser folds List-* headers into one "list" object.
+            const list = mail.headers.get('list') as { unsubscribe?: { url?: string } } | undefined;
+            if (list?.unsubscribe?.url) record.unsubscribe = list.unsubscribe.url;
             fs.appendFileSync(this.file, `${JSON.stringify(record)}\n`);
             callback();
           })

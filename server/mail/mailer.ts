@@ -5,6 +5,8 @@ export interface MailMessage {
   subject: string;
   text: string;
   html: string;
+  /** Extra headers, e.g. List-Unsubscribe. */
+  headers?: Record<string, string>;
 }
 
 /** Sends e-mail over SMTP: to the local mail catcher by default, any host by environment. */

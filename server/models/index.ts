@@ -2,7 +2,9 @@ import type { Sequelize } from 'sequelize';
 import { User } from './user';
 import { Abrasive, Method, PageRevision, Steel } from './reference-pages';
 import { ComparisonCell, Result, ResultEvent } from './result';
+import { PageEvent } from './page-event';
 import { Wheel, WheelMeasurement } from './wheel';
+import { ApiToken, AuditEntry, Flag, Follow, ImportBatch, ImportBatchResult, NotificationSetting, Photo, PublisherApplication, SiteSetting, initPublishingModels } from './publishing';
 
 /** Initialises every model on `sequelize` and declares their associations. */
 export function initModels(sequelize: Sequelize) {
@@ -15,7 +17,13 @@ export function initModels(sequelize: Sequelize) {
   Result.hasMany(ResultEvent, { as: 'events', foreignKey: 'resultId' });
   ResultEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
   PageRevision.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  PageRevision.belongsTo(User, { as: 'reviewer', foreignKey: 'reviewedById' });
+  PageEvent.initModel(sequelize);
+  PageEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
   Wheel.hasMany(WheelMeasurement, { as: 'measurements', foreignKey: 'wheelId' });
+  initPublishingModels(sequelize);
 }
 
 export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement };
+export { PublisherApplication, ApiToken, ImportBatch, ImportBatchResult, Photo, Flag, AuditEntry, Follow, NotificationSetting, SiteSetting };
+export { PageEvent };

@@ -1,5 +1,6 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
 import type { RichTextNode } from '@shared/rich-text';
+import type { User } from './user';
 
 export interface Citation {
   title: string;
@@ -17,9 +18,15 @@ const common = {
   body: { type: DataTypes.JSON, allowNull: true },
   citations: { type: DataTypes.JSON, allowNull: false, defaultValue: [] },
   currentRevisionId: { type: DataTypes.INTEGER, allowNull: true },
+  isProtected: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+  mergedIntoId: { type: DataTypes.INTEGER, allowNull: true },
+  sources: { type: DataTypes.JSON, allowNull: false, defaultValue: {} },
   createdAt: DataTypes.DATE,
   updatedAt: DataTypes.DATE,
 };
+
+/** Which citation (index into `citations`) an infobox value came from, by field name. */
+export type PageSources = Record<string, number>;
 
 /** A steel grade's reference page. */
 export class Steel extends Model<InferAttributes<Steel>, InferCreationAttributes<Steel>> {
@@ -35,6 +42,11 @@ export class Steel extends Model<InferAttributes<Steel>, InferCreationAttributes
   declare body: RichTextNode | null;
   declare citations: CreationOptional<Citation[]>;
   declare currentRevisionId: CreationOptional<number | null>;
+  /** Only moderators may edit a protected page. */
+  declare isProtected: CreationOptional<boolean>;
+  /** Set when this page was merged into another; its slug then redirects there. */
+  declare mergedIntoId: CreationOptional<number | null>;
+  declare sources: CreationOptional<PageSources>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -71,9 +83,16 @@ export class Abrasive extends Model<InferAttributes<Abrasive>, InferCreationAttr
   declare wears: boolean;
   declare coolant: string;
   declare sideUsable: boolean;
+  /** Free-text price, if known (e.g. "about 180 EUR in 2025"); invented in the demo data. */
+  declare priceNote: CreationOptional<string | null>;
   declare body: RichTextNode | null;
   declare citations: CreationOptional<Citation[]>;
   declare currentRevisionId: CreationOptional<number | null>;
+  /** Only moderators may edit a protected page. */
+  declare isProtected: CreationOptional<boolean>;
+  /** Set when this page was merged into another; its slug then redirects there. */
+  declare mergedIntoId: CreationOptional<number | null>;
+  declare sources: CreationOptional<PageSources>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -93,6 +112,7 @@ export class Abrasive extends Model<InferAttributes<Abrasive>, InferCreationAttr
         wears: { type: DataTypes.BOOLEAN, allowNull: false },
         coolant: { type: DataTypes.STRING(30), allowNull: false },
         sideUsable: { type: DataTypes.BOOLEAN, allowNull: false },
+        priceNote: { type: DataTypes.STRING(120), allowNull: true },
       },
       { sequelize, tableName: 'abrasives' },
     );
@@ -114,6 +134,11 @@ export class Method extends Model<InferAttributes<Method>, InferCreationAttribut
   declare body: RichTextNode | null;
   declare citations: CreationOptional<Citation[]>;
   declare currentRevisionId: CreationOptional<number | null>;
+  /** Only moderators may edit a protected page. */
+  declare isProtected: CreationOptional<boolean>;
+  /** Set when this page was merged into another; its slug then redirects there. */
+  declare mergedIntoId: CreationOptional<number | null>;
+  declare sources: CreationOptional<PageSources>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -144,8 +169,20 @@ export class PageRevision extends Model<InferAttributes<PageRevision>, InferCrea
   declare fields: Record<string, unknown>;
   declare body: RichTextNode | null;
   declare status: 'live' | 'proposed' | 'declined';
+  /** 'edit' (a saved form), 'revert' (restores `revertedFromId`) or 'merge' (a stale proposal applied together with later edits). */
+  declare kind: CreationOptional<'edit' | 'revert' | 'merge'>;
+  /** The revision the editor started from (optimistic concurrency). */
+  declare baseRevisionId: CreationOptional<number | null>;
+  declare revertedFromId: CreationOptional<number | null>;
+  /** For kind 'merge': the approved proposal this revision applies. */
+  declare appliedFromId: CreationOptional<number | null>;
+  declare reviewedById: CreationOptional<number | null>;
+  declare reviewNote: CreationOptional<string | null>;
+  declare reviewedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  declare author?: NonAttribute<User>;
+  declare reviewer?: NonAttribute<User>;
 
   static initModel(sequelize: Sequelize) {
     PageRevision.init(
@@ -158,6 +195,13 @@ export class PageRevision extends Model<InferAttributes<PageRevision>, InferCrea
         fields: { type: DataTypes.JSON, allowNull: false },
         body: { type: DataTypes.JSON, allowNull: true },
         status: { type: DataTypes.STRING(20), allowNull: false },
+        kind: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'edit' },
+        baseRevisionId: { type: DataTypes.INTEGER, allowNull: true },
+        revertedFromId: { type: DataTypes.INTEGER, allowNull: true },
+        appliedFromId: { type: DataTypes.INTEGER, allowNull: true },
+        reviewedById: { type: DataTypes.INTEGER, allowNull: true },
+        reviewNote: { type: DataTypes.TEXT, allowNull: true },
+        reviewedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

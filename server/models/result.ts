@@ -97,52 +97,5 @@ export class ResultEvent extends Model<InferAttributes<ResultEvent>, InferCreati
   }
 }
 
-/** Precomputed aggregate of one comparison cell: method × steel × abrasive material × grit band. */
-export class ComparisonCell extends Model<InferAttributes<ComparisonCell>, InferCreationAttributes<ComparisonCell>> {
-  declare methodId: number;
-  declare steelId: number;
-  declare material: string;
-  declare gritPhi: number;
-  declare n: number;
-  declare testers: number;
-  declare medianG: number;
-  declare q1G: number;
-  declare q3G: number;
-  declare meanG: number;
-  declare sdG: number | null;
-  declare ciLoG: number | null;
-  declare ciHiG: number | null;
-  declare retentionMedianCuts: number | null;
-  declare hrcMin: number;
-  declare hrcMax: number;
-  declare angleMinDeg: number;
-  declare angleMaxDeg: number;
-  declare updatedAt: CreationOptional<Date>;
-
-  static initModel(sequelize: Sequelize) {
-    ComparisonCell.init(
-      {
-        methodId: { type: DataTypes.INTEGER, primaryKey: true },
-        steelId: { type: DataTypes.INTEGER, primaryKey: true },
-        material: { type: DataTypes.STRING(30), primaryKey: true },
-        gritPhi: { type: DataTypes.INTEGER, primaryKey: true },
-        n: { type: DataTypes.INTEGER, allowNull: false },
-        testers: { type: DataTypes.INTEGER, allowNull: false },
-        medianG: { type: DataTypes.FLOAT, allowNull: false },
-        q1G: { type: DataTypes.FLOAT, allowNull: false },
-        q3G: { type: DataTypes.FLOAT, allowNull: false },
-        meanG: { type: DataTypes.FLOAT, allowNull: false },
-        sdG: { type: DataTypes.FLOAT, allowNull: true },
-        ciLoG: { type: DataTypes.FLOAT, allowNull: true },
-        ciHiG: { type: DataTypes.FLOAT, allowNull: true },
-        retentionMedianCuts: { type: DataTypes.FLOAT, allowNull: true },
-        hrcMin: { type: DataTypes.FLOAT, allowNull: false },
-        hrcMax: { type: DataTypes.FLOAT, allowNull: false },
-        angleMinDeg: { type: DataTypes.FLOAT, allowNull: false },
-        angleMaxDeg: { type: DataTypes.FLOAT, allowNull: false },
-        updatedAt: DataTypes.DATE,
-      },
-      { sequelize, tableName: 'comparison_cells', createdAt: false },
-    );
-  }
-}
+/** The comparison cell model lives in ./comparison-cell.ts (whole- and half-φ bands, migration 0003). */
+export { ComparisonCell } from './comparison-cell';

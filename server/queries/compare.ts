@@ -1,70 +1,116 @@
-import { Op, type WhereOptions } from 'sequelize';
-import type { z } from 'zod';
-import type { compareQuerySchema } from '@shared/schemas/result';
-import { bandOfPhi } from '@shared/derive-result';
-import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
-import { ComparisonCell, Method, Result, Steel } from '../models';
-import { aggregateGroups } from '../aggregates/comparison-cells';
+import { createHash } from 'node:crypto';
+import type { CompareFilters, CompareQuery } from '@shared/schemas/compare';
+import { sortRows, type CompareRow } from '@shared/compare-view';
+import { SHRINKAGE_PSEUDO_RESULTS } from '@shared/compare-shrinkage';
+import { comparisonCsv, comparisonJson, type ExportContext } from '@shared/compare-export';
+import { onCellsChanged } from '../aggregates/comparison-cells';
+import { filtersInWords, filtersQueryString, resolveView, viewRows, type ResolvedView } from './compare-view';
+import type { Lookups } from './compare-lookups';
 
-type CompareQuery = z.infer<typeof compareQuerySchema>;
-type CellRow = ReturnType<typeof aggregateGroups>[number];
+/** The method version a view compares, with the versions it replaces and is replaced by. */
+function methodOf(view: ResolvedView) {
+  const m = view.method;
+  const replacedBy = [...view.look.methods.values()].find((x) => x.replacesId === m.id);
+  return {
+    slug: m.slug,
+    name: m.name,
+    version: m.version,
+    replaces: m.replacesId ? (view.look.methods.get(m.replacesId)?.slug ?? null) : null,
+    replacedBy: replacedBy?.slug ?? null,
+  };
+}
 
 /**
- * The comparison: one row per method × steel × abrasive material × grit band, from approved
- * results only. Without a hardness filter the rows come from the precomputed cells; with one,
- * they are aggregated from the matching results, by the same function.
+ * GET /api/compare: one page of the comparison's cells (method × steel × abrasive material ×
+ * grit band) for one method version, sorted, with the totals of the whole view. Read from the
+ * precomputed cells unless a filter needs each result (`source` says which).
  */
 export async function compare(query: CompareQuery) {
-  const [methods, steels] = await Promise.all([Method.findAll({ attributes: ['id', 'slug', 'name'] }), Steel.findAll({ attributes: ['id', 'slug', 'name'] })]);
-  const methodById = new Map(methods.map((m) => [m.id, m]));
-  const steelById = new Map(steels.map((s) => [s.id, s]));
-  const idOf = (list: { id: number; slug: string }[], slug?: string) => (slug ? (list.find((x) => x.slug === slug)?.id ?? -1) : undefined);
-  const methodId = idOf(methods, query.method);
-  const steelId = idOf(steels, query.steel);
+  return computeCompare(query, await resolveView(query));
+}
 
-  let cells: CellRow[];
-  if (query.hrcMin === undefined && query.hrcMax === undefined) {
-    const where: WhereOptions<ComparisonCell> & Record<string, unknown> = {};
-    if (methodId !== undefined) where.methodId = methodId;
-    if (steelId !== undefined) where.steelId = steelId;
-    if (query.material) where.material = query.material;
-    cells = (await ComparisonCell.findAll({ where, raw: true })) as unknown as CellRow[];
-  } else {
-    const where: Record<string, unknown> = { status: 'approved' };
-    if (methodId !== undefined) where.sharpnessMethodId = methodId;
-    if (steelId !== undefined) where.steelId = steelId;
-    if (query.material) where.material = query.material;
-    where.hrc = { ...(query.hrcMin !== undefined ? { [Op.gte]: query.hrcMin } : {}), ...(query.hrcMax !== undefined ? { [Op.lte]: query.hrcMax } : {}) };
-    const rows = await Result.findAll({
-      where,
-      attributes: ['sharpnessMethodId', 'steelId', 'material', 'gritPhi', 'authorId', 'sharpnessMedianG', 'retentionCuts', 'hrc', 'perSideDeg'],
-      raw: true,
-    });
-    cells = aggregateGroups(rows as unknown as Parameters<typeof aggregateGroups>[0]);
+/** A response body ready to send, with its entity tag. */
+export interface CompareBody {
+  body: string;
+  etag: string;
+}
+
+/**
+ * GET /api/compare as serialised JSON. Views the cells answer are kept, serialised, until a
+ * cell changes or the page names are read again (every few seconds), so a repeated view costs
+ * a map lookup; views that need the results are computed each time.
+ */
+export async function compareBody(query: CompareQuery): Promise<CompareBody> {
+  const view = await resolveView(query);
+  const cacheable = view.liveKeys.length === 0;
+  const id = cacheable ? JSON.stringify(query) : '';
+  const hit = cacheable ? responses.get(id) : undefined;
+  if (hit && hit.look === view.look) return hit;
+  const started = generation;
+  const body = JSON.stringify(await computeCompare(query, view));
+  const entry = { look: view.look, body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+  // A cell changed while this was computed: the answer may hold the old cell, so keep it not.
+  if (cacheable && started === generation) {
+    if (responses.size >= RESPONSES_MAX) responses.clear();
+    responses.set(id, entry);
   }
+  return entry;
+}
 
-  const rows = cells.map((c) => ({
-    method: methodById.get(c.methodId)?.slug ?? String(c.methodId),
-    methodName: methodById.get(c.methodId)?.name ?? '',
-    steel: steelById.get(c.steelId)?.slug ?? String(c.steelId),
-    steelName: steelById.get(c.steelId)?.name ?? '',
-    material: c.material,
-    materialLabel: ABRASIVE_MATERIALS[c.material as keyof typeof ABRASIVE_MATERIALS] ?? c.material,
-    gritBand: bandOfPhi(c.gritPhi),
-    n: c.n,
-    testers: c.testers,
-    sharpnessG: {
-      median: c.medianG,
-      q1: c.q1G,
-      q3: c.q3G,
-      mean: c.meanG,
-      sd: c.sdG,
-      ci95: c.ciLoG !== null && c.ciHiG !== null ? ([c.ciLoG, c.ciHiG] as [number, number]) : null,
-    },
-    retentionCuts: c.retentionMedianCuts !== null ? { median: c.retentionMedianCuts } : null,
-    hrcRange: [c.hrcMin, c.hrcMax] as [number, number],
-    angleRange: [c.angleMinDeg, c.angleMaxDeg] as [number, number],
-  }));
-  rows.sort((a, b) => a.methodName.localeCompare(b.methodName) || a.steelName.localeCompare(b.steelName) || a.material.localeCompare(b.material) || b.gritBand.hiUm - a.gritBand.hiUm);
-  return { rows };
+const RESPONSES_MAX = 2000;
+const responses = new Map<string, CompareBody & { look: Lookups }>();
+let generation = 0;
+onCellsChanged(() => {
+  generation++;
+  responses.clear();
+});
+
+async function computeCompare(query: CompareQuery, view: ResolvedView) {
+  const { rows, source, overallMedianG, methodResults } = await viewRows(view);
+  const sorted = sortRows(rows, query.sort);
+  const start = (query.page - 1) * query.pageSize;
+  return {
+    method: methodOf(view),
+    step: view.step,
+    source,
+    /** Filters that made the view come from the results table rather than the cells. */
+    liveFilters: view.liveKeys,
+    sort: query.sort ?? null,
+    total: rows.length,
+    totalResults: rows.reduce((s, r) => s + r.n, 0),
+    methodResults,
+    shrinkage: { pseudoResults: SHRINKAGE_PSEUDO_RESULTS, overallMedianG },
+    page: query.page,
+    pageSize: query.pageSize,
+    rows: sorted.slice(start, start + query.pageSize),
+  };
+}
+/** The body of GET /api/compare. */
+export type CompareResponse = Awaited<ReturnType<typeof computeCompare>>;
+
+
+/** The day in UTC as YYYY-MM-DD. */
+const isoDay = (d: Date) => d.toISOString().slice(0, 10);
+
+/**
+ * GET /api/compare/export: the whole view (every page) as CSV or JSON, with the licence, a
+ * citation naming the date and the URL of the view, and the method version.
+ */
+export async function compareExport(filters: CompareFilters & { sort?: string }, format: 'csv' | 'json', baseUrl: string, now = new Date()) {
+  const view = await resolveView(filters);
+  const { rows } = await viewRows(view);
+  const sorted: CompareRow[] = sortRows(rows, filters.sort);
+  const { sort, ...rest } = filters;
+  const qs = filtersQueryString({ ...rest, method: view.method.slug }, { sort });
+  const ctx: ExportContext = {
+    url: `${baseUrl}/compare${qs ? `?${qs}` : ''}`,
+    retrievedOn: isoDay(now),
+    methods: [{ slug: view.method.slug, name: view.method.name, version: view.method.version }],
+    filters: filtersInWords(view),
+    step: view.step,
+  };
+  const name = `edgeledger-comparison-${view.method.slug}-${ctx.retrievedOn}`;
+  return format === 'csv'
+    ? { filename: `${name}.csv`, contentType: 'text/csv; charset=utf-8', body: comparisonCsv(sorted, ctx) }
+    : { filename: `${name}.json`, contentType: 'application/json; charset=utf-8', body: JSON.stringify(comparisonJson(sorted, ctx), null, 2) };
 }

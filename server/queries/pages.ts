@@ -1,6 +1,28 @@
-import { fn, col } from 'sequelize';
-import { Abrasive, Method, Result, Steel } from '../models';
+import { fn, col, Op, type Transaction } from 'sequelize';
+import { parseSitePath, type RichTextNode } from '@shared/rich-text';
+import { normalizeFields, type PageContent, type PageType } from '@shared/schemas/pages';
+import { median } from '@shared/stats';
+import { changedFields } from '@shared/page-diff';
+import type { Actor } from '@shared/permissions';
+import { presentDeskRevision } from '../presenters/pages';
+import { Abrasive, Method, PageEvent, PageRevision, Result, Steel, User } from '../models';
 import { notFound } from '../errors';
+
+/** A reference page of any type. */
+export type PageModel = Steel | Abrasive | Method;
+
+/** The model class of each page type. */
+export const PAGE_MODELS = { steel: Steel, abrasive: Abrasive, method: Method } as const;
+
+/** What a page type is called in messages ("Steel page was not found."). */
+export const PAGE_WHAT: Record<PageType, string> = { steel: 'Steel page', abrasive: 'Abrasive page', method: 'Method page' };
+
+/** The result columns that refer to a page of each type. */
+export const RESULT_COLUMNS: Record<PageType, ('steelId' | 'abrasiveId' | 'sharpnessMethodId' | 'retentionMethodId')[]> = {
+  steel: ['steelId'],
+  abrasive: ['abrasiveId'],
+  method: ['sharpnessMethodId', 'retentionMethodId'],
+};
 
 /** Approved result counts per steel or abrasive id. */
 export async function approvedCounts(by: 'steelId' | 'abrasiveId'): Promise<Map<number, number>> {
@@ -8,13 +30,168 @@ export async function approvedCounts(by: 'steelId' | 'abrasiveId'): Promise<Map<
   return new Map(rows.map((r) => [Number(r[by]), Number(r.n)]));
 }
 
-export const listSteels = () => Steel.findAll({ order: [['name', 'ASC']] });
-export const listAbrasives = () => Abrasive.findAll({ order: [['material', 'ASC'], ['gritUm', 'DESC']] });
-export const listMethods = () => Method.findAll({ order: [['name', 'ASC'], ['version', 'ASC']] });
+// Lists leave out pages merged into another: their slugs only redirect.
+const notMerged = { mergedIntoId: null };
+export const listSteels = () => Steel.findAll({ where: notMerged, order: [['name', 'ASC']] });
+export const listAbrasives = () => Abrasive.findAll({ where: notMerged, order: [['material', 'ASC'], ['gritUm', 'DESC']] });
+export const listMethods = () => Method.findAll({ where: notMerged, order: [['name', 'ASC'], ['version', 'ASC']] });
 
-/** One page by slug, or 404. */
-export async function findPage<T extends typeof Steel | typeof Abrasive | typeof Method>(model: T, slug: string, what: string): Promise<InstanceType<T>> {
-  const page = await (model as typeof Steel).findOne({ where: { slug } });
+/** One page by slug, or 404. Finds merged pages too (callers decide whether to redirect). */
+export async function findPage<T extends typeof Steel | typeof Abrasive | typeof Method>(model: T, slug: string, what: string, transaction?: Transaction): Promise<InstanceType<T>> {
+  const page = await (model as typeof Steel).findOne({ where: { slug }, transaction });
   if (!page) throw notFound(what);
   return page as InstanceType<T>;
+}
+
+/** One page of `type` by slug, or 404. */
+export function findPageOfType(type: PageType, slug: string, transaction?: Transaction): Promise<PageModel> {
+  return findPage(PAGE_MODELS[type] as typeof Steel, slug, PAGE_WHAT[type], transaction);
+}
+
+/** The page a merged page finally redirects to (following a chain), or null when `page` is not merged. */
+export async function survivorOf(type: PageType, page: PageModel): Promise<PageModel | null> {
+  let current: PageModel = page;
+  for (let hops = 0; current.mergedIntoId && hops < 20; hops++) {
+    const next = (await (PAGE_MODELS[type] as typeof Steel).findByPk(current.mergedIntoId)) as PageModel | null;
+    if (!next) break;
+    current = next;
+  }
+  return current === page ? null : current;
+}
+
+const revisionIncludes = [
+  { model: User, as: 'author' },
+  { model: User, as: 'reviewer' },
+];
+
+/** Every revision of a page, newest first, with author and reviewer. */
+export function revisionsOf(type: PageType, pageId: number): Promise<PageRevision[]> {
+  return PageRevision.findAll({ where: { pageType: type, pageId }, include: revisionIncludes, order: [['id', 'DESC']] });
+}
+
+/** One revision of a page, or 404 when it does not exist or belongs to another page. */
+export async function findRevisionOf(type: PageType, pageId: number, id: number, transaction?: Transaction): Promise<PageRevision> {
+  const revision = await PageRevision.findByPk(id, { include: revisionIncludes, transaction });
+  if (!revision || revision.pageType !== type || revision.pageId !== pageId) throw notFound('Revision');
+  return revision;
+}
+
+/** Page-level actions (protect, merge) on a page, newest first. */
+export function eventsOf(type: PageType, pageId: number): Promise<PageEvent[]> {
+  return PageEvent.findAll({ where: { pageType: type, pageId }, include: [{ model: User, as: 'actor' }], order: [['id', 'DESC']] });
+}
+
+/** A revision's content: its fields reduced to the editable ones of its page type, and its body. */
+export function contentOf(revision: PageRevision): PageContent {
+  return { fields: normalizeFields(revision.pageType, revision.fields), body: revision.body };
+}
+
+/** Proposed revisions waiting for review, oldest first, each with its page's slug and name. */
+export async function proposedRevisions(limit = 200): Promise<{ revision: PageRevision; page: PageModel | null }[]> {
+  const revisions = await PageRevision.findAll({ where: { status: 'proposed' }, include: revisionIncludes, order: [['createdAt', 'ASC'], ['id', 'ASC']], limit });
+  const pages = new Map<string, PageModel>();
+  for (const type of ['steel', 'abrasive', 'method'] as const) {
+    const ids = revisions.filter((r) => r.pageType === type).map((r) => r.pageId);
+    if (!ids.length) continue;
+    for (const p of (await (PAGE_MODELS[type] as typeof Steel).findAll({ where: { id: { [Op.in]: ids } } })) as PageModel[]) pages.set(`${type}:${p.id}`, p);
+  }
+  return revisions.map((revision) => ({ revision, page: pages.get(`${revision.pageType}:${revision.pageId}`) ?? null }));
+}
+
+/** How many proposals wait on each page of a type, by page id. */
+export async function proposalCounts(type: PageType): Promise<Map<number, number>> {
+  const rows = (await PageRevision.findAll({ where: { pageType: type, status: 'proposed' }, attributes: ['pageId', [fn('COUNT', col('id')), 'n']], group: ['pageId'], raw: true })) as unknown as { pageId: number; n: number }[];
+  return new Map(rows.map((r) => [Number(r.pageId), Number(r.n)]));
+}
+
+/** Every site link ("/steels/…", "/results/12") in the given documents. */
+function siteLinks(docs: (RichTextNode | null | undefined)[]): { section: string; key: string }[] {
+  const out: { section: string; key: string }[] = [];
+  const walk = (n: RichTextNode) => {
+    for (const m of n.marks ?? []) {
+      const target = m.type === 'link' && m.attrs?.href ? parseSitePath(m.attrs.href) : null;
+      if (target) out.push(target);
+    }
+    for (const c of n.content ?? []) walk(c);
+  };
+  for (const d of docs) if (d) walk(d);
+  return out;
+}
+
+/**
+ * A checker telling which site links in `docs` lead somewhere: a page of that section with
+ * that slug (a merged page counts, since it redirects), or an approved result. One query per
+ * section that the documents link to.
+ */
+export async function linkCheckerFor(docs: (RichTextNode | null | undefined)[]): Promise<(href: string) => boolean> {
+  const links = siteLinks(docs);
+  const known = new Set<string>();
+  const bySection = new Map<string, string[]>();
+  for (const l of links) bySection.set(l.section, [...(bySection.get(l.section) ?? []), l.key]);
+  const models = { steels: Steel, abrasives: Abrasive, methods: Method } as const;
+  for (const [section, keys] of bySection) {
+    if (section === 'results') {
+      const ids = keys.map(Number);
+      for (const r of await Result.findAll({ where: { id: { [Op.in]: ids }, status: 'approved' }, attributes: ['id'] })) known.add(`/results/${r.id}`);
+      continue;
+    }
+    const model = models[section as keyof typeof models] as typeof Steel;
+    for (const p of await model.findAll({ where: { slug: { [Op.in]: keys } }, attributes: ['slug'] })) known.add(`/${section}/${p.slug}`);
+  }
+  return (href) => known.has(href.split('#')[0]);
+}
+
+/** Approved results on a page, grouped: by abrasive material on a steel page, by steel on an abrasive page. */
+export interface ResultGroup {
+  key: string;
+  label: string;
+  /** Number of approved results. */
+  n: number;
+  /** Lowest (keenest) median sharpness reading of one result, grams. */
+  bestG: number;
+  /** Median of the results' median readings, grams. */
+  medianG: number;
+}
+
+/**
+ * The approved results on a steel (grouped by abrasive material) or an abrasive (grouped by
+ * steel), most results first: count, best and median sharpness in grams.
+ */
+export async function resultSummary(type: 'steel' | 'abrasive', pageId: number): Promise<{ count: number; groups: ResultGroup[] }> {
+  const rows = (await Result.findAll({
+    where: { status: 'approved', ...(type === 'steel' ? { steelId: pageId } : { abrasiveId: pageId }) },
+    attributes: ['material', 'steelId', 'sharpnessMedianG'],
+    raw: true,
+  })) as unknown as { material: string; steelId: number; sharpnessMedianG: number }[];
+  const groups = new Map<string, number[]>();
+  for (const r of rows) {
+    const key = type === 'steel' ? r.material : String(r.steelId);
+    groups.set(key, [...(groups.get(key) ?? []), r.sharpnessMedianG]);
+  }
+  const steelNames = new Map<string, { slug: string; name: string }>();
+  if (type === 'abrasive' && groups.size) {
+    for (const s of await Steel.findAll({ where: { id: { [Op.in]: [...groups.keys()].map(Number) } }, attributes: ['id', 'slug', 'name'] })) steelNames.set(String(s.id), { slug: s.slug, name: s.name });
+  }
+  const list = [...groups].map(([key, values]) => {
+    const steel = steelNames.get(key);
+    return { key: steel?.slug ?? key, label: steel?.name ?? key, n: values.length, bestG: Math.min(...values), medianG: Math.round(median(values) * 10) / 10 };
+  });
+  list.sort((a, b) => b.n - a.n || a.label.localeCompare(b.label));
+  return { count: rows.length, groups: list };
+}
+
+/**
+ * The review desk's page edits: every proposed revision, oldest first, as `kind: 'page-revision'`
+ * items naming the page, the author, the fields changed against the revision it started from,
+ * and whether the page has moved on since.
+ */
+export async function reviewDeskRevisions(viewer: Actor) {
+  const queue = await proposedRevisions();
+  const baseIds = [...new Set(queue.map((q) => q.revision.baseRevisionId).filter((id): id is number => id !== null))];
+  const bases = new Map((await PageRevision.findAll({ where: { id: { [Op.in]: baseIds } } })).map((b) => [b.id, b]));
+  return queue.map(({ revision, page }) => {
+    const base = revision.baseRevisionId ? bases.get(revision.baseRevisionId) : undefined;
+    const changed = base ? changedFields(revision.pageType, contentOf(base), contentOf(revision)) : [];
+    return presentDeskRevision(revision, page, changed, viewer);
+  });
 }

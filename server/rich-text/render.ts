@@ -1,23 +1,53 @@
 import { generateHTML } from '@tiptap/html/server';
 import sanitizeHtml from 'sanitize-html';
 import { richTextExtensions } from '@shared/rich-text-extensions';
-import type { RichTextNode } from '@shared/rich-text';
+import { SAFE_HREF, SITE_PATH, type RichTextNode } from '@shared/rich-text';
 
 /** Tags and attributes the renderer may emit; anything else is removed on the way out. */
 const sanitizeOptions: sanitizeHtml.IOptions = {
   allowedTags: ['p', 'h2', 'h3', 'h4', 'ul', 'ol', 'li', 'blockquote', 'br', 'hr', 'strong', 'em', 'code', 'a'],
-  allowedAttributes: { a: ['href', 'rel'], ol: ['start'] },
+  allowedAttributes: { a: ['href', 'rel', 'class', 'data-broken', 'title'], ol: ['start'] },
+  // Only the two classes the link transform below sets; nothing from a document.
+  allowedClasses: { a: ['page-link', 'page-link-broken'] },
   allowedSchemes: ['http', 'https', 'mailto'],
   allowProtocolRelative: false,
-  transformTags: { a: sanitizeHtml.simpleTransform('a', { rel: 'nofollow noopener noreferrer' }) },
 };
+
+export interface RenderOptions {
+  /**
+   * Whether a site-relative link ("/steels/aisi-d2") points at a page that exists. When given,
+   * links it answers false for are marked broken (`class="page-link page-link-broken"`,
+   * `data-broken="true"`); without it, site links are rendered unmarked.
+   */
+  linkExists?: (href: string) => boolean;
+}
+
+/**
+ * The link transform: external links get rel="nofollow noopener noreferrer"; site paths get
+ * class "page-link" (and the broken marks); any other href (which validation should already
+ * have refused) loses its href, so a gap in the schema cannot become a live link.
+ */
+function linkTransform(options: RenderOptions): sanitizeHtml.Transformer {
+  return (tagName, attribs): sanitizeHtml.Tag => {
+    const href = attribs.href ?? '';
+    if (SITE_PATH.test(href)) {
+      const broken = options.linkExists ? !options.linkExists(href.split('#')[0]) : false;
+      const marks: sanitizeHtml.Attributes = broken
+        ? { class: 'page-link page-link-broken', 'data-broken': 'true', title: 'No page at this address yet' }
+        : { class: 'page-link' };
+      return { tagName, attribs: { href, ...marks } };
+    }
+    if (!SAFE_HREF.test(href)) return { tagName, attribs: {} };
+    return { tagName, attribs: { href, rel: 'nofollow noopener noreferrer' } };
+  };
+}
 
 /**
  * Renders a validated TipTap document to HTML with the shared extensions, then sanitises the
  * result again with the same allow-list, so a gap in either layer is closed by the other.
  */
-export function renderRichText(doc: RichTextNode | null | undefined): string {
+export function renderRichText(doc: RichTextNode | null | undefined, options: RenderOptions = {}): string {
   if (!doc) return '';
   const html = generateHTML(doc as Parameters<typeof generateHTML>[0], richTextExtensions);
-  return sanitizeHtml(html, sanitizeOptions);
+  return sanitizeHtml(html, { ...sanitizeOptions, transformTags: { a: linkTransform(options) } });
 }

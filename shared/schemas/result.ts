@@ -113,19 +113,12 @@ export const resultListQuerySchema = z
   })
   .strict();
 
-export const compareQuerySchema = z
-  .object({
-    method: slugSchema.optional(),
-    steel: slugSchema.optional(),
-    material: z.string().max(60).optional(),
-    hrcMin: z.coerce.number().min(0).max(100).optional(),
-    hrcMax: z.coerce.number().min(0).max(100).optional(),
-  })
-  .strict();
+/** The comparison's query lives in ./compare.ts with its other schemas; kept here for old importers. */
+export { compareQuerySchema } from './compare';
 
 export const searchQuerySchema = z
   .object({
     q: z.string().trim().min(1, 'type something to search for').max(limits.searchQueryMax),
-    type: z.enum(['steel', 'abrasive', 'method', 'result']).optional(),
+    type: z.enum(['steel', 'abrasive', 'method', 'result', 'cell']).optional(),
   })
   .strict();

@@ -6,14 +6,22 @@ import request from 'supertest';
 import { loadEnv } from '../../server/config/env';
 import { boot, type Running } from '../../server/boot';
 
+/** Rate limits high enough that a test file's many sign-ins and posts never meet them; tests of the limits pass their own. */
+export const testRateLimits = {
+  RATE_LIMIT_SIGNIN_PER_MIN: '100000',
+  RATE_LIMIT_POSTS_PER_MIN: '100000',
+  RATE_LIMIT_UPLOADS_PER_MIN: '100000',
+  RATE_LIMIT_SEARCH_PER_MIN: '100000',
+};
+
 /**
  * Starts the real server (with the real local OAuth2 provider and mail catcher) on free
  * loopback ports, over a fresh copy of the migrated demo database.
  */
-export async function startTestServer(): Promise<Running & { dataDir: string }> {
+export async function startTestServer(envOverrides: Record<string, string> = {}): Promise<Running & { dataDir: string }> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-test-'));
   fs.copyFileSync(inject('baseDatabase'), path.join(dataDir, 'edgeledger.sqlite'));
-  const env = loadEnv({ NODE_ENV: 'test', PORT: '0', OAUTH_PORT: '0', SMTP_PORT: '0', DATA_DIR: dataDir, SEED_DEMO: 'never' });
+  const env = loadEnv({ NODE_ENV: 'test', PORT: '0', OAUTH_PORT: '0', SMTP_PORT: '0', DATA_DIR: dataDir, SEED_DEMO: 'never', ...testRateLimits, ...envOverrides });
   const running = await boot(env, () => undefined);
   return {
     ...running,

@@ -1,18 +1,26 @@
 import { Router } from 'express';
-import { compareQuerySchema, searchQuerySchema } from '@shared/schemas/result';
+import { searchQuerySchema } from '@shared/schemas/result';
 import type { z } from 'zod';
 import type { AppContext } from '../../context';
-import { actorOf, csrfProtection, csrfTokenOf, requireUser } from '../../middleware/auth';
+import { csrfProtection, csrfTokenOf } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
-import { forbidden, notFound } from '../../errors';
-import { can } from '@shared/permissions';
+import { notFound } from '../../errors';
 import { presentAccount } from '../../presenters/user';
-import { compare } from '../../queries/compare';
 import type { User } from '../../models';
 import { resultsRouter } from './results';
 import { pagesRouter } from './pages';
 import { toolsRouter } from './tools';
 import { wheelsRouter } from './wheels';
+import { compareRouter } from './compare';
+import { publishersRouter } from './publishers';
+import { importRouter } from './import';
+import { tokensRouter } from './tokens';
+import { photosRouter } from './photos';
+import { flagsRouter } from './flags';
+import { auditRouter } from './audit';
+import { profilesRouter } from './profiles';
+import { meRouter } from './me';
+import { devRouter } from './dev';
 import type { MailCatcher } from '../../mail/mail-catcher';
 
 /** The JSON API under /api. Every state-changing request passes the CSRF check first. */
@@ -30,24 +38,26 @@ export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
   });
 
   router.use(resultsRouter(ctx));
-  router.use(pagesRouter());
+  router.use(pagesRouter(ctx));
   router.use(toolsRouter());
   router.use(wheelsRouter(ctx));
 
-  router.get('/compare', validate({ query: compareQuerySchema }), async (req, res) => {
-    res.json(await compare(req.valid.query as z.infer<typeof compareQuerySchema>));
-  });
+  router.use(compareRouter(ctx));
 
   router.get('/search', validate({ query: searchQuerySchema }), (req, res) => {
     const { q, type } = req.valid.query as z.infer<typeof searchQuerySchema>;
     res.json(ctx.search.search(q, type));
   });
 
-  router.get('/dev/mail', requireUser, (req, res) => {
-    if (ctx.env.isProduction || !mailCatcher) throw notFound('The mail catcher');
-    if (!can(actorOf(req), 'read:dev-mail')) throw forbidden('The mail catcher is for admins.');
-    res.json(mailCatcher.messages());
-  });
+  router.use(publishersRouter(ctx));
+  router.use(importRouter(ctx));
+  router.use(tokensRouter(ctx));
+  router.use(photosRouter(ctx));
+  router.use(flagsRouter(ctx));
+  router.use(auditRouter());
+  router.use(profilesRouter());
+  router.use(meRouter(ctx));
+  router.use(devRouter(ctx, mailCatcher));
 
   router.use(() => {
     throw notFound('That API route');

@@ -1,6 +1,8 @@
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { PageTitle } from '@/components/ui/page-title';
+import { FollowButton } from '@/features/me/components/follow-button';
+import { FlagForm } from '@/features/curation/components/flag-form';
 import { ErrorState, Loading } from '@/components/ui/states';
 import { useAbrasive } from '@/features/abrasives/api/get-abrasive';
 import { AbrasiveDetail } from '@/features/abrasives/components/abrasive-detail';
@@ -24,6 +26,10 @@ export default function AbrasiveRoute() {
         <Link to={paths.abrasives.getHref()}>Abrasives</Link>
       </p>
       <PageTitle title={page.data.name}>{page.data.name}</PageTitle>
+      <div className="-mt-3 flex flex-wrap items-center gap-2">
+        <FollowButton pageType="abrasive" slug={page.data.slug} name={page.data.name} />
+        <FlagForm subjectType="abrasive" subject={page.data.slug} what="this page" />
+      </div>
       <AbrasiveDetail abrasive={page.data} />
     </article>
   );

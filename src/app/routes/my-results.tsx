@@ -7,6 +7,7 @@ import { PageTitle } from '@/components/ui/page-title';
 import { Empty, ErrorState, Loading } from '@/components/ui/states';
 import { useResults } from '@/features/results/api/get-results';
 import { ResultsTable } from '@/features/results/components/results-table';
+import { OwnPageSections } from '@/features/me/components/own-page';
 
 function MyResultsList({ handle }: { handle: string }) {
   const results = useResults({ author: handle, page: 1 });
@@ -40,7 +41,17 @@ export default function MyResultsRoute() {
       <PageTitle title="My results" lead="What you have posted, and where each result stands in review.">
         My results
       </PageTitle>
-      <SignInRequired what="see your results">{user ? <MyResultsList handle={user.handle} /> : null}</SignInRequired>
+      <SignInRequired what="see your results">
+        {user ? <OwnPageSections /> : null}
+        {user ? (
+          <section aria-labelledby="all-results" className="mt-8 flex flex-col gap-2">
+            <h2 id="all-results" className="text-xl font-semibold">
+              All your results
+            </h2>
+            <MyResultsList handle={user.handle} />
+          </section>
+        ) : null}
+      </SignInRequired>
     </div>
   );
 }

@@ -7,6 +7,7 @@ import { useAbrasives } from '@/features/abrasives/api/get-abrasives';
 import { useMethods } from '@/features/methods/api/get-methods';
 import { useSteels } from '@/features/steels/api/get-steels';
 import { ResultForm } from '@/features/results/components/result-form';
+import { checkDuplicates } from '@/features/me/api/check-duplicates';
 
 function NewResultForm() {
   const navigate = useNavigate();
@@ -22,6 +23,7 @@ function NewResultForm() {
       abrasives={abrasives.data.items}
       methods={methods.data.items}
       onCreated={(result) => navigate(paths.result.getHref(result.id))}
+      findDuplicates={checkDuplicates}
     />
   );
 }

@@ -6,6 +6,9 @@ import { useResult } from '@/features/results/api/get-result';
 import { useMethods } from '@/features/methods/api/get-methods';
 import { ResultDetail } from '@/features/results/components/result-detail';
 import { ReviewDecisionForm } from '@/features/results/components/review-decision-form';
+import { ResultPhotos } from '@/features/photos/components/result-photos';
+import { RetractForm } from '@/features/me/components/retract-form';
+import { FlagForm } from '@/features/curation/components/flag-form';
 
 /** One result: everything entered and derived, its notes, state, review note and trail. */
 export default function ResultRoute() {
@@ -30,6 +33,9 @@ export default function ResultRoute() {
         {r.steelName} on {r.abrasiveName}
       </PageTitle>
       <ResultDetail result={r} methodNames={methodNames} />
+      <ResultPhotos resultId={r.id} />
+      <RetractForm result={r} />
+      {r.status === 'approved' ? <FlagForm subjectType="result" subject={r.id} what="this result" /> : null}
       {r.can.review && r.status === 'pending' ? (
         <section aria-labelledby="decide">
           <h2 id="decide" className="mb-2 text-xl font-semibold">

@@ -3,6 +3,8 @@ import { Link, useSearchParams } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { useCan } from '@/lib/auth';
 import { SignInRequired } from '@/lib/authorization';
+import { DeskRevisions } from '@/features/wiki/components/desk-revisions';
+import { DeskFilters, DeskImportsAndFlags, deskFiltersOf, withOpen } from '@/features/curation/components/desk-panel';
 import { formatDate, formatGrams } from '@/lib/format';
 import { PageTitle } from '@/components/ui/page-title';
 import { Empty, ErrorState, Loading } from '@/components/ui/states';
@@ -13,7 +15,8 @@ import { ReviewDecisionForm } from '@/features/results/components/review-decisio
 import type { Result } from '@/types/api';
 
 function Queue() {
-  const desk = useReviewDesk();
+  const [deskParams] = useSearchParams();
+  const desk = useReviewDesk({ filters: deskFiltersOf(deskParams) });
   const methods = useMethods();
   const methodNames = Object.fromEntries((methods.data?.items ?? []).map((m) => [m.slug, m.name]));
   const [params, setParams] = useSearchParams();
@@ -29,10 +32,10 @@ function Queue() {
   if (desk.isError) return <ErrorState error={desk.error} onRetry={() => desk.refetch()} />;
 
   const items = desk.data.items;
-  const close = () => setParams(new URLSearchParams(), { replace: true });
+  const close = () => setParams(withOpen(params, null), { replace: true });
   const decided = (r: Result) => {
     const next = items.find((i) => i.id !== r.id);
-    setParams(next ? new URLSearchParams({ open: String(next.id) }) : new URLSearchParams(), { replace: true });
+    setParams(withOpen(params, next ? next.id : null), { replace: true });
   };
 
   return (
@@ -48,7 +51,7 @@ function Queue() {
             {items.map((r) => (
               <li key={r.id}>
                 <Link
-                  to={paths.reviewDesk.getHref(r.id)}
+                  to={`${paths.reviewDesk.getHref()}?${withOpen(params, r.id)}`}
                   aria-current={r.id === openId ? 'true' : undefined}
                   className={`block px-4 py-3 no-underline ${r.id === openId ? 'bg-accent-soft' : 'hover:bg-paper'}`}
                 >
@@ -110,7 +113,10 @@ export default function ReviewDeskRoute() {
         Review desk
       </PageTitle>
       <SignInRequired what="open the review desk" action="read:review-desk">
+        {mayReview ? <DeskFilters /> : null}
+        {mayReview ? <DeskImportsAndFlags /> : null}
         {mayReview ? <Queue /> : null}
+        {mayReview ? <DeskRevisions /> : null}
       </SignInRequired>
     </div>
   );

@@ -26,6 +26,8 @@ export function Header() {
   const session = useSession();
   const user = session.data?.user ?? null;
   const mayReview = useCan('read:review-desk');
+  // Staff may import too, but reach it from their page; the header stays one line for them.
+  const mayImport = useCan('import:results') && user?.role === 'publisher';
   const location = useLocation();
   const navigate = useNavigate();
   const signOut = useSignOut({ onSuccess: () => navigate(paths.home.getHref()) });
@@ -68,6 +70,13 @@ export function Header() {
                 <li>
                   <NavLink to={paths.reviewDesk.getHref()} className={navClass}>
                     Review desk
+                  </NavLink>
+                </li>
+              ) : null}
+              {mayImport ? (
+                <li>
+                  <NavLink to={paths.importResults.getHref()} className={navClass}>
+                    Import
                   </NavLink>
                 </li>
               ) : null}

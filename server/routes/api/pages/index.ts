@@ -1,35 +1,147 @@
-import { Router } from 'express';
+import { Router, type Response } from 'express';
 import { z } from 'zod';
 import { slugSchema } from '@shared/schemas/result';
+import { can, type Actor } from '@shared/permissions';
+import { gritBandPhi } from '@shared/grit';
+import { matchesComposition, parseCompositionFilter } from '@shared/composition-filter';
+import {
+  abrasiveListQuerySchema,
+  PAGE_SECTIONS,
+  PAGE_TYPES,
+  pageEditSchemas,
+  pageMergeSchema,
+  pageProtectSchema,
+  pageRevertSchema,
+  pageReviewSchema,
+  steelListQuerySchema,
+  type PageEdit,
+  type PageMerge,
+  type PageProtect,
+  type PageRevert,
+  type PageReview,
+  type PageType,
+} from '@shared/schemas/pages';
+import type { AppContext } from '../../../context';
+import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
-import { Abrasive, Method, Steel } from '../../../models';
-import { approvedCounts, findPage, listAbrasives, listMethods, listSteels } from '../../../queries/pages';
-import { presentAbrasive, presentAbrasiveSummary, presentMethod, presentMethodSummary, presentSteel, presentSteelSummary } from '../../../presenters/pages';
+import { forbidden, notFound } from '../../../errors';
+import { Method, PageRevision, type Abrasive, type Steel } from '../../../models';
+import {
+  approvedCounts,
+  eventsOf,
+  findPageOfType,
+  findRevisionOf,
+  linkCheckerFor,
+  PAGE_MODELS,
+  listAbrasives,
+  listMethods,
+  listSteels,
+  proposalCounts,
+  resultSummary,
+  revisionsOf,
+  survivorOf,
+  type PageModel,
+} from '../../../queries/pages';
+import {
+  presentAbrasive,
+  presentAbrasiveSummary,
+  presentMethod,
+  presentMethodSummary,
+  presentPageEvent,
+  presentRevision,
+  presentRevisionSummary,
+  presentSteel,
+  presentSteelSummary,
+} from '../../../presenters/pages';
+import { revisePage, type ReviseOutcome } from '../../../commands/revise-page';
+import { reviewPageRevision } from '../../../commands/review-page-revision';
+import { revertPage } from '../../../commands/revert-page';
+import { protectPage } from '../../../commands/protect-page';
+import { mergePages } from '../../../commands/merge-pages';
 
 const slugParams = z.object({ slug: slugSchema }).strict();
+const revisionParams = z.object({ slug: slugSchema, id: z.coerce.number().int().positive() }).strict();
+const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
-/** The reference pages: steels, abrasives and methods, as lists and one by one. */
-export function pagesRouter(): Router {
+/** Every method that is a version of the same protocol as `method` (linked by `replacesId`), oldest first. */
+function versionsOf(method: Method, all: Method[]): Method[] {
+  const byId = new Map(all.map((m) => [m.id, m]));
+  let first = method;
+  for (let hops = 0; first.replacesId && byId.has(first.replacesId) && hops < 50; hops++) first = byId.get(first.replacesId)!;
+  const chain = [first];
+  for (let next = all.find((m) => m.replacesId === first.id); next && chain.length < 50; next = all.find((m) => m.replacesId === chain[chain.length - 1].id)) {
+    chain.push(next);
+  }
+  return chain.filter((m) => !m.mergedIntoId || m.id === method.id);
+}
+
+/** A page whole, as GET /api/{section}/:slug answers it, for `viewer`. */
+async function presentPage(type: PageType, page: PageModel, viewer: Actor | null) {
+  const [linkExists, proposals] = await Promise.all([linkCheckerFor([page.body]), proposalCounts(type)]);
+  const extras = { viewer, linkExists, proposals: proposals.get(page.id) ?? 0 };
+  if (type === 'steel') {
+    const results = await resultSummary('steel', page.id);
+    return presentSteel(page as Steel, results.count, { ...extras, results });
+  }
+  if (type === 'abrasive') {
+    const results = await resultSummary('abrasive', page.id);
+    return presentAbrasive(page as Abrasive, results.count, { ...extras, results });
+  }
+  const methods = await Method.findAll();
+  return presentMethod(page as Method, new Map(methods.map((m) => [m.id, m.slug])), { ...extras, versions: versionsOf(page as Method, methods) });
+}
+
+/** Sends a refused stale save: 409 with the current revision, the conflicting fields and a suggested merge. */
+async function sendStale(res: Response, outcome: Extract<ReviseOutcome, { outcome: 'stale' }>, viewer: Actor) {
+  const linkExists = await linkCheckerFor([outcome.current.body]);
+  const author = outcome.current.author?.handle;
+  res.status(409).json({
+    error: `Someone saved this page while you were editing: revision ${outcome.current.id}${author ? ` by ${author}` : ''} is now current. Nothing was saved; review their changes, merge yours into the current revision and save again.`,
+    current: presentRevision(outcome.current, outcome.page, viewer, linkExists),
+    conflicts: outcome.conflicts,
+    merged: outcome.merged,
+  });
+}
+
+/**
+ * The reference pages: steels, abrasives and methods, as lists (with filters) and one by one;
+ * and the wiki on each: edit (PUT), history, one revision, revert, protect, merge; and the
+ * review of proposed revisions.
+ *
+ * A merged page's slug answers GET with `301 Moved Permanently`, `Location:
+ * /api/{section}/{survivor}` and a body `{ redirectTo, mergedInto: { slug, name } }` (not
+ * cached, since a browser would otherwise remember it for good). Its history stays readable at
+ * /api/{section}/{merged-slug}/revisions.
+ */
+export function pagesRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/steels', async (_req, res) => {
+  router.get('/steels', validate({ query: steelListQuerySchema }), async (req, res) => {
+    const q = req.valid.query as z.infer<typeof steelListQuerySchema>;
+    const filters = q.composition ? parseCompositionFilter(q.composition) : [];
     const [steels, counts] = await Promise.all([listSteels(), approvedCounts('steelId')]);
-    res.json({ items: steels.map((s) => presentSteelSummary(s, counts.get(s.id) ?? 0)) });
-  });
-  router.get('/steels/:slug', validate({ params: slugParams }), async (req, res) => {
-    const steel = await findPage(Steel, (req.valid.params as { slug: string }).slug, 'Steel page');
-    const counts = await approvedCounts('steelId');
-    res.json(presentSteel(steel, counts.get(steel.id) ?? 0));
+    const items = steels.filter(
+      (s) =>
+        (!q.category || s.category === q.category) &&
+        matchesComposition(s.composition, filters) &&
+        // A hardness filter keeps steels whose typical range overlaps it.
+        (q.hrcMin === undefined || (s.hardnessMaxHrc ?? -Infinity) >= q.hrcMin) &&
+        (q.hrcMax === undefined || (s.hardnessMinHrc ?? Infinity) <= q.hrcMax),
+    );
+    res.json({ items: items.map((s) => presentSteelSummary(s, counts.get(s.id) ?? 0)) });
   });
 
-  router.get('/abrasives', async (_req, res) => {
+  router.get('/abrasives', validate({ query: abrasiveListQuerySchema }), async (req, res) => {
+    const q = req.valid.query as z.infer<typeof abrasiveListQuerySchema>;
     const [abrasives, counts] = await Promise.all([listAbrasives(), approvedCounts('abrasiveId')]);
-    res.json({ items: abrasives.map((a) => presentAbrasiveSummary(a, counts.get(a.id) ?? 0)) });
-  });
-  router.get('/abrasives/:slug', validate({ params: slugParams }), async (req, res) => {
-    const abrasive = await findPage(Abrasive, (req.valid.params as { slug: string }).slug, 'Abrasive page');
-    const counts = await approvedCounts('abrasiveId');
-    res.json(presentAbrasive(abrasive, counts.get(abrasive.id) ?? 0));
+    const items = abrasives.filter(
+      (a) =>
+        (!q.material || a.material === q.material) &&
+        (!q.bond || a.bond === q.bond) &&
+        (!q.form || a.form === q.form) &&
+        (q.gritPhi === undefined || gritBandPhi(a.gritUm) === q.gritPhi),
+    );
+    res.json({ items: items.map((a) => presentAbrasiveSummary(a, counts.get(a.id) ?? 0)) });
   });
 
   router.get('/methods', async (_req, res) => {
@@ -37,10 +149,116 @@ export function pagesRouter(): Router {
     const slugById = new Map(methods.map((m) => [m.id, m.slug]));
     res.json({ items: methods.map((m) => presentMethodSummary(m, slugById)) });
   });
-  router.get('/methods/:slug', validate({ params: slugParams }), async (req, res) => {
-    const method = await findPage(Method, (req.valid.params as { slug: string }).slug, 'Method page');
-    const methods = await listMethods();
-    res.json(presentMethod(method, new Map(methods.map((m) => [m.id, m.slug]))));
+
+  for (const type of PAGE_TYPES) {
+    const section = PAGE_SECTIONS[type];
+
+    router.get(`/${section}/:slug`, validate({ params: slugParams }), async (req, res) => {
+      const page = await findPageOfType(type, (req.valid.params as { slug: string }).slug);
+      const survivor = await survivorOf(type, page);
+      if (survivor) {
+        res
+          .status(301)
+          .set('Cache-Control', 'no-store')
+          .location(`/api/${section}/${survivor.slug}`)
+          .json({ redirectTo: survivor.slug, mergedInto: { slug: survivor.slug, name: survivor.name } });
+        return;
+      }
+      res.json(await presentPage(type, page, actorOf(req)));
+    });
+
+    router.put(`/${section}/:slug`, requireUser, validate({ params: slugParams, body: pageEditSchemas[type] }), async (req, res) => {
+      const actor = actorOf(req)!;
+      const outcome = await revisePage(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageEdit);
+      if (outcome.outcome === 'stale') return sendStale(res, outcome, actor);
+      const revision = await findRevisionOf(type, outcome.page.id, outcome.revision.id);
+      const page = await findPageOfType(type, outcome.page.slug);
+      const linkExists = await linkCheckerFor([revision.body]);
+      if (outcome.outcome === 'proposed') {
+        res.status(202).json({ status: 'proposed', revision: presentRevision(revision, page, actor, linkExists) });
+        return;
+      }
+      res.json({ status: 'live', revision: presentRevision(revision, page, actor, linkExists), page: await presentPage(type, page, actor) });
+    });
+
+    router.get(`/${section}/:slug/revisions`, validate({ params: slugParams }), async (req, res) => {
+      const viewer = actorOf(req);
+      const page = await findPageOfType(type, (req.valid.params as { slug: string }).slug);
+      const [revisions, events] = await Promise.all([revisionsOf(type, page.id), eventsOf(type, page.id)]);
+      res.json({
+        page: { slug: page.slug, name: page.name, currentRevisionId: page.currentRevisionId, isProtected: page.isProtected, mergedInto: (await survivorOf(type, page))?.slug ?? null },
+        items: revisions
+          .filter((r) => can(viewer, 'read:page-revision', { authorId: r.authorId, status: r.status }))
+          .map((r) => presentRevisionSummary(r, page.currentRevisionId, viewer)),
+        events: events.map(presentPageEvent),
+      });
+    });
+
+    router.get(`/${section}/:slug/revisions/:id`, validate({ params: revisionParams }), async (req, res) => {
+      const viewer = actorOf(req);
+      const { slug, id } = req.valid.params as z.infer<typeof revisionParams>;
+      const page = await findPageOfType(type, slug);
+      const revision = await findRevisionOf(type, page.id, id);
+      if (!can(viewer, 'read:page-revision', { authorId: revision.authorId, status: revision.status })) throw notFound('Revision');
+      res.json(presentRevision(revision, page, viewer, await linkCheckerFor([revision.body])));
+    });
+
+    router.post(`/${section}/:slug/revert`, requireUser, validate({ params: slugParams, body: pageRevertSchema }), async (req, res) => {
+      const actor = actorOf(req)!;
+      if (!can(actor, 'revert:page')) throw forbidden('Only moderators revert pages.');
+      const outcome = await revertPage(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageRevert);
+      if (outcome.outcome === 'stale') return sendStale(res, outcome, actor);
+      const page = await findPageOfType(type, outcome.page.slug);
+      const revision = await findRevisionOf(type, page.id, outcome.revision.id);
+      res.json({ status: 'live', revision: presentRevision(revision, page, actor, await linkCheckerFor([revision.body])), page: await presentPage(type, page, actor) });
+    });
+
+    router.post(`/${section}/:slug/protect`, requireUser, validate({ params: slugParams, body: pageProtectSchema }), async (req, res) => {
+      const actor = actorOf(req)!;
+      if (!can(actor, 'protect:page')) throw forbidden('Only moderators protect pages.');
+      const page = await protectPage(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageProtect);
+      res.json(await presentPage(type, page, actor));
+    });
+
+    router.post(`/${section}/:slug/merge`, requireUser, validate({ params: slugParams, body: pageMergeSchema }), async (req, res) => {
+      const actor = actorOf(req)!;
+      if (!can(actor, 'merge:page')) throw forbidden('Only moderators merge pages.');
+      const outcome = await mergePages(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageMerge);
+      const survivor = await findPageOfType(type, outcome.target.slug);
+      res.json({ merged: { slug: outcome.source.slug, name: outcome.source.name }, movedResults: outcome.movedResultIds.length, page: await presentPage(type, survivor, actor) });
+    });
+  }
+
+  router.post('/page-revisions/:id/review', requireUser, validate({ params: idParams, body: pageReviewSchema }), async (req, res) => {
+    const actor = actorOf(req)!;
+    if (!can(actor, 'read:review-desk')) throw forbidden('Only moderators review page edits.');
+    const outcome = await reviewPageRevision(ctx, actor, (req.valid.params as z.infer<typeof idParams>).id, req.valid.body as PageReview);
+    const type = outcome.revision.pageType;
+    const page = await findPageOfType(type, outcome.page.slug);
+    if (outcome.outcome === 'conflict') {
+      res.status(409).json({
+        error: `The page changed since this edit was proposed, and both changed ${outcome.conflicts.join(', ')}. Nothing was saved; decline it with a note, or make the edit by hand.`,
+        current: presentRevision(outcome.current, page, actor),
+        conflicts: outcome.conflicts,
+        merged: outcome.merged,
+      });
+      return;
+    }
+    const [revision, applied] = await Promise.all([findRevisionOf(type, page.id, outcome.revision.id), findRevisionOf(type, page.id, outcome.applied.id)]);
+    res.json({
+      status: revision.status,
+      revision: presentRevision(revision, page, actor),
+      applied: presentRevision(applied, page, actor),
+    });
+  });
+
+  router.get('/page-revisions/:id', validate({ params: idParams }), async (req, res) => {
+    const viewer = actorOf(req);
+    const revision = await PageRevision.findByPk((req.valid.params as z.infer<typeof idParams>).id);
+    if (!revision || !can(viewer, 'read:page-revision', { authorId: revision.authorId, status: revision.status })) throw notFound('Revision');
+    const page = (await (PAGE_MODELS[revision.pageType] as typeof Method).findByPk(revision.pageId)) as PageModel | null;
+    if (!page) throw notFound('Page');
+    res.json(presentRevision(await findRevisionOf(revision.pageType, page.id, revision.id), page, viewer));
   });
 
   return router;

@@ -8,8 +8,13 @@ import { forbidden } from '../../../errors';
 import { can } from '@shared/permissions';
 import { submitResult } from '../../../commands/submit-result';
 import { reviewResult } from '../../../commands/review-result';
-import { findResult, listResults, reviewQueue } from '../../../queries/results';
+import { findResult, listResults } from '../../../queries/results';
 import { presentResult } from '../../../presenters/result';
+import { reviewDeskRevisions } from '../../../queries/pages';
+import { bulkApproveSchema, retractInputSchema, reviewDeskQuerySchema, type ReviewDeskQuery } from '@shared/schemas/publishing';
+import { deskResultItems, openFlags, pendingImports } from '../../../queries/review-desk';
+import { bulkApproveResults } from '../../../commands/bulk-approve-results';
+import { retractResult } from '../../../commands/retract-result';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
@@ -43,10 +48,30 @@ export function resultsRouter(ctx: AppContext): Router {
     res.json(presentResult(await findResult(id, actor), actor));
   });
 
-  router.get('/review-desk', requireUser, async (req, res) => {
+  router.get('/review-desk', requireUser, validate({ query: reviewDeskQuerySchema }), async (req, res) => {
     const actor = actorOf(req)!;
     if (!can(actor, 'read:review-desk')) throw forbidden('The review desk is for moderators.');
-    res.json({ items: (await reviewQueue()).map((r) => presentResult(r, actor)) });
+    const filters = req.valid.query as ReviewDeskQuery;
+    const show = (kind: ReviewDeskQuery['kind']) => !filters.kind || filters.kind === kind;
+    // `revisions`: proposed page edits (kind 'page-revision'), beside the results in `items`;
+    // `flags`: open flags; `imports`: publishers' imports with results still pending.
+    res.json({
+      items: show('result') ? await deskResultItems(filters, actor) : [],
+      revisions: show('page-revision') ? await reviewDeskRevisions(actor) : [],
+      flags: show('flag') ? await openFlags(filters) : [],
+      imports: show('result') ? await pendingImports() : [],
+    });
+  });
+
+  router.post('/review-desk/bulk-approve', requireUser, validate({ body: bulkApproveSchema }), async (req, res) => {
+    res.json(await bulkApproveResults(ctx, actorOf(req)!, req.valid.body as z.infer<typeof bulkApproveSchema>));
+  });
+
+  router.post('/results/:id/retract', requireUser, validate({ params: idParams, body: retractInputSchema }), async (req, res) => {
+    const actor = actorOf(req)!;
+    const { id } = req.valid.params as z.infer<typeof idParams>;
+    await retractResult(ctx, actor, id, (req.valid.body as z.infer<typeof retractInputSchema>).reason);
+    res.json(presentResult(await findResult(id, actor), actor));
   });
 
   return router;

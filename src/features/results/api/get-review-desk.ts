@@ -1,22 +1,24 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiGet } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
+import type { ReviewDeskQuery } from '@shared/schemas/publishing';
 import type { Result } from '@/types/api';
 
-/** GET /api/review-desk (moderators): results awaiting review, oldest first. */
-export function getReviewDesk(signal?: AbortSignal): Promise<{ items: Result[] }> {
-  return apiGet<{ items: Result[] }>('/api/review-desk', {}, signal);
+/** GET /api/review-desk (moderators): results awaiting review, oldest first; `filters` narrow it (author, steel, importId, kind). */
+export function getReviewDesk(signal?: AbortSignal, filters: ReviewDeskQuery = {}): Promise<{ items: Result[] }> {
+  return apiGet<{ items: Result[] }>('/api/review-desk', { ...filters }, signal);
 }
 
-/** Query options for the review desk; always refetched on open, since others review too. */
-export const reviewDeskQueryOptions = () =>
+/** Query options for the review desk; always refetched on open, since others review too. Unfiltered, the key is `queryKeys.reviewDesk` itself. */
+export const reviewDeskQueryOptions = (filters: ReviewDeskQuery = {}) =>
   queryOptions({
-    queryKey: queryKeys.reviewDesk,
-    queryFn: ({ signal }) => getReviewDesk(signal),
+    queryKey: (Object.keys(filters).length ? [...queryKeys.reviewDesk, filters] : queryKeys.reviewDesk) as readonly unknown[],
+    queryFn: ({ signal }) => getReviewDesk(signal, filters),
     staleTime: 0,
   });
 
 /** The review desk's queue, as a query. */
-export function useReviewDesk(options: { enabled?: boolean } = {}) {
-  return useQuery({ ...reviewDeskQueryOptions(), ...options });
+export function useReviewDesk(options: { enabled?: boolean; filters?: ReviewDeskQuery } = {}) {
+  const { filters, ...rest } = options;
+  return useQuery({ ...reviewDeskQueryOptions(filters), ...rest });
 }

@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
 import { ABRASIVE_MATERIALS, BONDS, STATUS_LABELS } from '@shared/vocabulary';
 import { paths } from '@/config/paths';
+import { Badge } from '@/components/ui/badge';
 import { ServerHtml } from '@/components/ui/server-html';
 import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
 import {
@@ -59,8 +60,9 @@ export function ResultDetail({
         <p className="flex flex-wrap items-center gap-2">
           <span className="text-muted">State:</span> <StatusBadge status={result.status} />
           <span className="text-sm text-muted">
-            posted {formatDate(result.createdAt)} by {result.author.displayName} (@{result.author.handle})
+            posted {formatDate(result.createdAt)} by <Link to={paths.profile.getHref(result.author.handle)}>{result.author.displayName}</Link> (@{result.author.handle})
           </span>
+          {result.author.role === 'publisher' ? <Badge tone="accent">Publisher</Badge> : null}
         </p>
         {reviewNote ? (
           <div role="note" className="rounded-md border-l-4 border-caution bg-caution-soft px-4 py-3">

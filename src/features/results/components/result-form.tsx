@@ -97,6 +97,8 @@ export interface ResultFormProps {
   abrasives: AbrasiveSummary[];
   methods: MethodSummary[];
   onCreated: (result: Result) => void;
+  /** Asked before posting: the author's earlier results this one repeats (POST /api/me/duplicate-check). */
+  findDuplicates?: (input: ResultInput) => Promise<{ id: number; status: string }[]>;
 }
 
 /**
@@ -104,9 +106,11 @@ export interface ResultFormProps {
  * schema the server uses, previews the derived values (HRC, µm and grit band, angle, median
  * reading) and, if the server still refuses something, shows its words under the right box.
  */
-export function ResultForm({ steels, abrasives, methods, onCreated }: ResultFormProps) {
+export function ResultForm({ steels, abrasives, methods, onCreated, findDuplicates }: ResultFormProps) {
   const create = useCreateResult();
   const [unplaced, setUnplaced] = useState<string[]>([]);
+  // Earlier results of one's own that this one repeats; posting again needs a second press.
+  const [duplicates, setDuplicates] = useState<{ id: number; status: string }[] | null>(null);
   const {
     register,
     control,
@@ -170,8 +174,13 @@ export function ResultForm({ steels, abrasives, methods, onCreated }: ResultForm
       ? `${goodReadings.length} reading${goodReadings.length === 1 ? '' : 's'}, median ${formatGrams(median(goodReadings), 1)}`
       : null;
 
-  const onSubmit = (input: ResultInput) => {
+  const onSubmit = async (input: ResultInput) => {
     setUnplaced([]);
+    if (findDuplicates && duplicates === null) {
+      const found = await findDuplicates(input).catch(() => []);
+      if (found.length) return setDuplicates(found);
+    }
+    setDuplicates(null);
     create.mutate(input, {
       onSuccess: onCreated,
       onError: (err) => {
@@ -505,9 +514,25 @@ export function ResultForm({ steels, abrasives, methods, onCreated }: ResultForm
         </div>
       ) : null}
 
+      {duplicates?.length ? (
+        <div role="alert" className="rounded-md border border-caution/40 bg-caution-soft px-4 py-3">
+          <p className="font-semibold">You have posted this before</p>
+          <p>
+            Same steel, abrasive, grit, angle and readings as your result{duplicates.length === 1 ? '' : 's'}{' '}
+            {duplicates.map((d, i) => (
+              <span key={d.id}>
+                {i ? ', ' : ''}
+                <a href={`/results/${d.id}`}>#{d.id}</a>
+              </span>
+            ))}
+            . Press “Post it anyway” if this is a new measurement.
+          </p>
+        </div>
+      ) : null}
+
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" busy={create.isPending}>
-          {create.isPending ? 'Submitting…' : 'Submit for review'}
+          {create.isPending ? 'Submitting…' : duplicates?.length ? 'Post it anyway' : 'Submit for review'}
         </Button>
         <p className="text-sm text-muted">
           {isValid ? 'Ready to submit.' : 'Fields are checked as you type.'} A moderator reviews each result before it is

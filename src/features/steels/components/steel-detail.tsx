@@ -1,11 +1,24 @@
+import { lazy, Suspense } from 'react';
 import { Link } from 'react-router-dom';
-import { STEEL_CATEGORIES } from '@shared/vocabulary';
+import { ABRASIVE_MATERIALS, STEEL_CATEGORIES } from '@shared/vocabulary';
 import { paths } from '@/config/paths';
 import { Facts } from '@/components/ui/facts';
-import { ServerHtml } from '@/components/ui/server-html';
 import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
-import { formatNumber, label } from '@/lib/format';
+import { formatGrams, formatNumber, label } from '@/lib/format';
+import { WikiToolbar } from '@/features/wiki/components/wiki-toolbar';
+import { ServerHtml } from '@/components/ui/server-html';
+import { wikiHtmlClasses } from '@/features/wiki/components/wiki-html';
+import { PageReferences, SourceMark } from '@/features/wiki/components/page-references';
+import { MergedNote, useMergedRedirect } from '@/features/wiki/components/merged-redirect';
+import type { WikiParts } from '@/features/wiki/types';
 import type { SteelDetail as Steel } from '@/types/api';
+
+const CompositionChart = lazy(() => import('./composition-chart'));
+
+/** What the steel page adds to the steel: the wiki parts and its results grouped by abrasive material. */
+type SteelPage = Omit<Steel, 'revision' | 'citations'> & WikiParts & {
+  results?: { count: number; groups: { key: string; label: string; n: number; bestG: number; medianG: number }[] };
+};
 
 function range(min: number | null, max: number | null): string {
   if (min !== null && max !== null) return min === max ? formatNumber(min, 3) : `${formatNumber(min, 3)}–${formatNumber(max, 3)}`;
@@ -14,16 +27,30 @@ function range(min: number | null, max: number | null): string {
   return '—';
 }
 
-/** A steel grade's reference page: designations, composition (wt %), hardness, notes and sources. */
-export function SteelDetail({ steel }: { steel: Steel }) {
+/**
+ * A steel grade's reference page: the wiki's controls, designations, composition (wt %) as a
+ * table and a chart, typical hardness, the approved results by abrasive material, the text and
+ * its references (infobox values marked with the reference they came from).
+ */
+export function SteelDetail({ steel: data }: { steel: Steel }) {
+  const steel = data as SteelPage;
+  const mergedFrom = useMergedRedirect('steels', steel.slug);
+  const mark = (field: string) => <SourceMark sources={steel.sources} field={field} citations={steel.citations} />;
   return (
     <div className="flex flex-col gap-8">
+      <MergedNote from={mergedFrom} />
+      {steel.can ? <WikiToolbar section="steels" page={steel} /> : null}
       <Facts
         items={[
-          { term: 'Category', value: label(STEEL_CATEGORIES, steel.category) },
+          { term: 'Category', value: <>{label(STEEL_CATEGORIES, steel.category)}{mark('category')}</> },
           {
             term: 'Typical hardness',
-            value: steel.hardnessHrc ? `${steel.hardnessHrc.min}–${steel.hardnessHrc.max} HRC` : '—',
+            value: (
+              <>
+                {steel.hardnessHrc ? `${steel.hardnessHrc.min}–${steel.hardnessHrc.max} HRC` : '—'}
+                {mark('hardnessHrc')}
+              </>
+            ),
           },
           {
             term: 'Results',
@@ -45,7 +72,7 @@ export function SteelDetail({ steel }: { steel: Steel }) {
       <div className="grid gap-8 lg:grid-cols-2">
         <section aria-labelledby="designations">
           <h2 id="designations" className="mb-2 text-xl font-semibold">
-            Designations
+            Designations{mark('designations')}
           </h2>
           {steel.designations.length ? (
             <TableFrame label="Designations">
@@ -71,69 +98,85 @@ export function SteelDetail({ steel }: { steel: Steel }) {
           )}
         </section>
 
-        <section aria-labelledby="composition">
-          <h2 id="composition" className="mb-2 text-xl font-semibold">
-            Composition
+        <section aria-labelledby="composition" className="flex flex-col gap-3">
+          <h2 id="composition" className="text-xl font-semibold">
+            Composition{mark('composition')}
           </h2>
           {steel.composition.length ? (
-            <TableFrame label="Composition in percent by weight">
-              <table className="w-full border-collapse">
-                <thead>
-                  <tr>
-                    <th scope="col" className={thClass}>Element</th>
-                    <th scope="col" className={`${thClass} text-right`}>wt %</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {steel.composition.map((c) => (
-                    <tr key={c.element}>
-                      <td className={tdClass}>{c.element}</td>
-                      <td className={`${tdClass} text-right tabular-nums`}>{range(c.min, c.max)}</td>
+            <>
+              <TableFrame label="Composition in percent by weight">
+                <table className="w-full border-collapse">
+                  <thead>
+                    <tr>
+                      <th scope="col" className={thClass}>Element</th>
+                      <th scope="col" className={`${thClass} text-right`}>wt %</th>
                     </tr>
-                  ))}
-                </tbody>
-              </table>
-            </TableFrame>
+                  </thead>
+                  <tbody>
+                    {steel.composition.map((c) => (
+                      <tr key={c.element}>
+                        <td className={tdClass}>{c.element}</td>
+                        <td className={`${tdClass} text-right tabular-nums`}>{range(c.min, c.max)}</td>
+                      </tr>
+                    ))}
+                  </tbody>
+                </table>
+              </TableFrame>
+              <Suspense fallback={null}>
+                <CompositionChart composition={steel.composition} />
+              </Suspense>
+            </>
           ) : (
             <p className="text-muted">No composition recorded.</p>
           )}
         </section>
       </div>
 
+      {steel.results && steel.results.groups.length ? (
+        <section aria-labelledby="results-by-material">
+          <h2 id="results-by-material" className="mb-2 text-xl font-semibold">
+            Published results by abrasive material
+          </h2>
+          <TableFrame label="Published results on this steel by abrasive material">
+            <table className="w-full border-collapse">
+              <thead>
+                <tr>
+                  <th scope="col" className={thClass}>Abrasive material</th>
+                  <th scope="col" className={`${thClass} text-right`}>Results</th>
+                  <th scope="col" className={`${thClass} text-right`}>Best (lowest) reading</th>
+                  <th scope="col" className={`${thClass} text-right`}>Median reading</th>
+                  <th scope="col" className={thClass}><span className="sr-only">Comparison</span></th>
+                </tr>
+              </thead>
+              <tbody>
+                {steel.results.groups.map((g) => (
+                  <tr key={g.key}>
+                    <td className={tdClass}>{label(ABRASIVE_MATERIALS, g.key)}</td>
+                    <td className={`${tdClass} text-right tabular-nums`}>{g.n}</td>
+                    <td className={`${tdClass} text-right tabular-nums`}>{formatGrams(g.bestG)}</td>
+                    <td className={`${tdClass} text-right tabular-nums`}>{formatGrams(g.medianG)}</td>
+                    <td className={tdClass}>
+                      <Link to={paths.compare.getHref({ steel: steel.slug, material: g.key })}>Compare</Link>
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </TableFrame>
+          <p className="mt-1 text-sm text-muted">Readings are the force to sever the test medium, in grams: lower is keener. Methods differ; the comparison keeps them apart.</p>
+        </section>
+      ) : null}
+
       {steel.bodyHtml?.trim() ? (
         <section aria-labelledby="about">
           <h2 id="about" className="mb-2 text-xl font-semibold">
             About this steel
           </h2>
-          <ServerHtml html={steel.bodyHtml} className="max-w-3xl" />
+          <ServerHtml html={steel.bodyHtml} className={`${wikiHtmlClasses} max-w-3xl`} />
         </section>
       ) : null}
 
-      <section aria-labelledby="sources">
-        <h2 id="sources" className="mb-2 text-xl font-semibold">
-          Sources
-        </h2>
-        {steel.citations.length ? (
-          <ol className="list-decimal space-y-2 pl-6">
-            {steel.citations.map((c, i) => (
-              <li key={`${c.title}-${i}`}>
-                {c.url ? (
-                  <a href={c.url} rel="noopener noreferrer nofollow">
-                    {c.title}
-                  </a>
-                ) : (
-                  <cite className="not-italic">{c.title}</cite>
-                )}
-                {[c.organisation, c.year].filter(Boolean).map((part) => `, ${part}`).join('')}
-                {c.standard ? ` (${c.standard})` : ''}
-                {c.supports ? <span className="block text-sm text-muted">Supports: {c.supports}</span> : null}
-              </li>
-            ))}
-          </ol>
-        ) : (
-          <p className="text-muted">No sources cited yet.</p>
-        )}
-      </section>
+      <PageReferences citations={steel.citations} />
     </div>
   );
 }

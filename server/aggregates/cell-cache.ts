@@ -1,0 +1,85 @@
+import { QueryTypes } from 'sequelize';
+import { ComparisonCell, Result } from '../models';
+import { onCellsChanged, type CellRecord } from './comparison-cells';
+
+/**
+ * An in-process read cache of the precomputed cells, one entry per method and band step. The
+ * server is the one process that writes the database (DEVELOPERS.md, decision 001) and every
+ * cell refresh announces itself after its commit, so an entry is dropped exactly when its
+ * method's cells change and is read again, from the table, by the next request.
+ */
+
+/** A method's cells for one band step, with the method's totals. */
+export interface MethodCells {
+  methodId: number;
+  step: 1 | 0.5;
+  cells: CellRecord[];
+  /** Approved results of the method (Σ n over its cells). */
+  results: number;
+  /** Median of every approved result's median reading for the method, g; null without results. */
+  overallMedianG: number | null;
+}
+
+const entries = new Map<string, Promise<MethodCells>>();
+let totals: Promise<Map<number, number>> | null = null;
+
+onCellsChanged((change) => {
+  totals = null;
+  if ('all' in change) entries.clear();
+  else for (const k of change.keys) for (const step of [1, 0.5]) entries.delete(`${k.methodId}|${step}`);
+});
+
+/**
+ * The method's overall median, read from the (method, status, median) index: the middle one or
+ * two values in order, so the cost is an index walk to the middle, not a sort.
+ */
+async function overallMedian(methodId: number, n: number): Promise<number | null> {
+  if (n === 0) return null;
+  const rows = await Result.sequelize!.query<{ g: number }>(
+    'SELECT sharpnessMedianG AS g FROM results WHERE sharpnessMethodId = :methodId AND status = :status ORDER BY sharpnessMedianG LIMIT :limit OFFSET :offset',
+    { replacements: { methodId, status: 'approved', limit: n % 2 ? 1 : 2, offset: n % 2 ? (n - 1) / 2 : n / 2 - 1 }, type: QueryTypes.SELECT },
+  );
+  if (!rows.length) return null;
+  return rows.reduce((s, r) => s + r.g, 0) / rows.length;
+}
+
+async function load(methodId: number, step: 1 | 0.5): Promise<MethodCells> {
+  const cells = (await ComparisonCell.findAll({ where: { methodId, bandWidth: step === 1 ? 2 : 1 }, raw: true })) as unknown as CellRecord[];
+  const results = cells.reduce((s, c) => s + c.n, 0);
+  return { methodId, step, cells, results, overallMedianG: await overallMedian(methodId, results) };
+}
+
+/** The cached cells of one method and band step (read from the table on first use after a change). */
+export function methodCells(methodId: number, step: 1 | 0.5): Promise<MethodCells> {
+  const id = `${methodId}|${step}`;
+  let entry = entries.get(id);
+  if (!entry) {
+    entry = load(methodId, step);
+    entries.set(id, entry);
+    entry.catch(() => entries.delete(id));
+  }
+  return entry;
+}
+
+/** Approved results per sharpness method id, from the whole-φ cells (cached like the cells). */
+export function resultsPerMethod(): Promise<Map<number, number>> {
+  if (!totals) {
+    const t = (async () => {
+      const rows = await Result.sequelize!.query<{ methodId: number; n: number }>('SELECT methodId, SUM(n) AS n FROM comparison_cells WHERE bandWidth = 2 GROUP BY methodId', {
+        type: QueryTypes.SELECT,
+      });
+      return new Map(rows.map((r) => [r.methodId, Number(r.n)]));
+    })();
+    totals = t;
+    t.catch(() => {
+      if (totals === t) totals = null;
+    });
+  }
+  return totals;
+}
+
+/** Drops every entry (tests and the bench use it to measure the uncached path). */
+export function clearCellCache(): void {
+  entries.clear();
+  totals = null;
+}

@@ -1,0 +1,26 @@
+import { can, type Actor } from '@shared/permissions';
+import type { AppContext } from '../context';
+import { forbidden, notFound } from '../errors';
+import { Result, ResultEvent } from '../models';
+import { cellKeyOf, refreshCell } from '../aggregates/comparison-cells';
+import { loadResult } from './submit-result';
+
+/**
+ * The author withdraws their approved result: it is kept (state `retracted`), leaves the
+ * comparison cell in the same transaction, gets a trail entry with the reason, and leaves the
+ * search index right after the commit.
+ */
+export async function retractResult(ctx: AppContext, actor: Actor, id: number, reason: string): Promise<Result> {
+  await ctx.db.write(async (transaction) => {
+    const result = await Result.findByPk(id, { transaction });
+    if (!result || !can(actor, 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Result');
+    if (!can(actor, 'retract:result', { authorId: result.authorId, status: result.status })) {
+      throw forbidden(result.authorId === actor.id ? 'Only a published result can be withdrawn.' : 'Only the author withdraws a result.');
+    }
+    await result.update({ status: 'retracted' }, { transaction });
+    await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'approved', toStatus: 'retracted', note: reason }, { transaction });
+    await refreshCell(cellKeyOf(result), transaction);
+  });
+  ctx.search.remove(`result:${id}`);
+  return loadResult(id);
+}

@@ -1,0 +1,190 @@
+import { Op, type Transaction } from 'sequelize';
+import { can, type Actor } from '@shared/permissions';
+import { deriveResult } from '@shared/derive-result';
+import { parseGrit, type GritStandard } from '@shared/grit';
+import { changedFields, mergeEdits } from '@shared/page-diff';
+import { pageFieldsSchemas, splitEdit, type AbrasiveFields, type MethodFields, type PageContent, type PageEdit, type PageType, type SteelFields } from '@shared/schemas/pages';
+import type { AppContext } from '../context';
+import { badRequest, conflict, forbidden, type FieldIssue } from '../errors';
+import { fieldIssues } from '../middleware/validate';
+import { Abrasive, Method, PageRevision, Result, Steel } from '../models';
+import { refreshCellsOf } from '../aggregates/comparison-cells';
+import { pageSearchDoc, resultDocsOfPage } from '../search/documents';
+import { contentOf, findPageOfType, findRevisionOf, survivorOf, type PageModel } from '../queries/pages';
+
+/** What saving an edit came to: live at once, proposed for review, or refused as stale (nothing written). */
+export type ReviseOutcome =
+  | { outcome: 'live' | 'proposed'; revision: PageRevision; page: PageModel }
+  | {
+      outcome: 'stale';
+      page: PageModel;
+      /** The page's current revision, saved after the editor's base. */
+      current: PageRevision;
+      /** Fields (and 'body') both the editor and the later revision changed, differently. */
+      conflicts: string[];
+      /** The editor's changes laid over the current revision where they do not conflict. */
+      merged: PageContent;
+    };
+
+/**
+ * Checks a revision's content against its page type's schema once more before it is applied:
+ * merged and reverted contents are built on the server and must hold to the same rules.
+ */
+function validContent(type: PageType, content: PageContent): PageContent {
+  const parsed = pageFieldsSchemas[type].safeParse(content.fields);
+  if (!parsed.success) throw badRequest('These fields do not make a valid page.', fieldIssues(parsed.error));
+  return { fields: parsed.data as Record<string, unknown>, body: content.body };
+}
+
+/**
+ * A designation names one steel: a second page claiming "EN 1.2379" is a duplicate, which a
+ * moderator merges rather than two pages drifting apart. Throws 400 naming the designation.
+ */
+async function checkDesignationsFree(page: PageModel, fields: SteelFields, transaction: Transaction) {
+  const others = await Steel.findAll({ where: { id: { [Op.ne]: page.id }, mergedIntoId: null }, attributes: ['slug', 'name', 'designations'], transaction });
+  const issues: FieldIssue[] = [];
+  fields.designations.forEach((d, i) => {
+    const owner = others.find((o) => o.designations.some((x) => x.system === d.system && x.code.toLowerCase() === d.code.toLowerCase()));
+    if (owner) issues.push({ path: `designations.${i}.code`, message: `${d.system} ${d.code} is already on the page "${owner.name}" (${owner.slug}); ask a moderator to merge the pages` });
+  });
+  if (issues.length) throw badRequest('A designation belongs to another steel page.', issues);
+}
+
+/**
+ * Re-derives the stored grit and material of every result on an abrasive after its page
+ * changed them (a result without its own grit takes the abrasive's), and refreshes the
+ * comparison cells those results leave and enter. Returns how many results changed.
+ */
+async function rederiveAbrasiveResults(abrasive: Abrasive, transaction: Transaction): Promise<number> {
+  const rows = await Result.findAll({ where: { abrasiveId: abrasive.id }, transaction });
+  const touched: Pick<Result, 'sharpnessMethodId' | 'steelId' | 'material' | 'gritPhi'>[] = [];
+  let changed = 0;
+  for (const r of rows) {
+    const d = deriveResult(r.input, { standard: abrasive.gritStandard as GritStandard, grade: abrasive.gritGrade });
+    const next = { material: abrasive.material, gritStandard: d.gritStandard, gritGrade: d.gritGrade, gritUm: d.gritUm, gritPhi: d.gritPhi };
+    if (r.material === next.material && r.gritStandard === next.gritStandard && r.gritGrade === next.gritGrade && r.gritUm === next.gritUm && r.gritPhi === next.gritPhi) continue;
+    if (r.status === 'approved') touched.push({ sharpnessMethodId: r.sharpnessMethodId, steelId: r.steelId, material: r.material, gritPhi: r.gritPhi });
+    await r.update(next, { transaction });
+    if (r.status === 'approved') touched.push({ sharpnessMethodId: r.sharpnessMethodId, steelId: r.steelId, material: next.material, gritPhi: next.gritPhi });
+    changed += 1;
+  }
+  if (touched.length) await refreshCellsOf(touched, transaction);
+  return changed;
+}
+
+/**
+ * Makes `content` the page's current state, from revision `revisionId`, inside the caller's
+ * transaction: the page's columns follow the revision's fields (an abrasive's grit is parsed to
+ * µm), and an abrasive whose material or grit changed re-derives its results and their cells.
+ */
+export async function applyContent(type: PageType, page: PageModel, content: PageContent, revisionId: number, transaction: Transaction): Promise<void> {
+  const { fields, body } = validContent(type, content);
+  if (type === 'steel') {
+    const f = fields as SteelFields;
+    await checkDesignationsFree(page, f, transaction);
+    await (page as Steel).update(
+      {
+        name: f.name, category: f.category, designations: f.designations, composition: f.composition,
+        hardnessMinHrc: f.hardnessHrc?.min ?? null, hardnessMaxHrc: f.hardnessHrc?.max ?? null,
+        citations: f.citations, sources: f.sources as Record<string, number>, body, currentRevisionId: revisionId,
+      },
+      { transaction },
+    );
+    return;
+  }
+  if (type === 'abrasive') {
+    const f = fields as AbrasiveFields;
+    const a = page as Abrasive;
+    const grit = parseGrit(f.grit.grade, f.grit.standard);
+    const gritChanged = a.material !== f.material || a.gritStandard !== grit.standard || a.gritGrade !== grit.grade;
+    await a.update(
+      {
+        name: f.name, material: f.material, bond: f.bond, form: f.form,
+        gritStandard: grit.standard, gritGrade: grit.grade, gritUm: grit.micrometres, gritRange: f.gritRange,
+        wheelDiameterMm: f.wheelDiameterMm, widthMm: f.widthMm, wears: f.wears, coolant: f.coolant, sideUsable: f.sideUsable,
+        priceNote: f.priceNote, citations: f.citations, sources: f.sources as Record<string, number>, body, currentRevisionId: revisionId,
+      },
+      { transaction },
+    );
+    if (gritChanged) await rederiveAbrasiveResults(a, transaction);
+    return;
+  }
+  const f = fields as MethodFields;
+  await (page as Method).update(
+    {
+      name: f.name, instrument: f.instrument, medium: f.medium, readingsPerEdge: f.readingsPerEdge,
+      retentionMedium: f.retentionMedium, thresholdG: f.thresholdG, citations: f.citations, sources: f.sources as Record<string, number>,
+      body, currentRevisionId: revisionId,
+    },
+    { transaction },
+  );
+}
+
+/**
+ * Brings the search index in step after a committed change to a page: its own document (or
+ * none, once merged away) and, when its name or identity changed, the documents of the
+ * approved results whose titles carry it.
+ */
+export async function reindexPage(ctx: AppContext, type: PageType, page: PageModel, options: { results?: boolean } = {}): Promise<void> {
+  const doc = await pageSearchDoc(type, page.id);
+  if (doc) ctx.search.upsert(doc);
+  else ctx.search.remove(`${type}:${page.slug}`);
+  if (options.results) for (const d of await resultDocsOfPage(type, page.id)) ctx.search.upsert(d);
+}
+
+/** Fields whose change alters how results on the page are titled or found. */
+export const RESULT_VISIBLE_FIELDS = ['name', 'designations', 'material', 'grit'];
+
+/** Refuses an edit of a page that was merged away, naming the page that survives. */
+export async function refuseIfMerged(type: PageType, page: PageModel): Promise<void> {
+  if (!page.mergedIntoId) return;
+  const survivor = await survivorOf(type, page);
+  throw conflict(`This page was merged into "${survivor?.name ?? 'another page'}"${survivor ? ` (${survivor.slug})` : ''}; edit that page instead.`);
+}
+
+/**
+ * Saves an edit of a page as a new revision. The edit names the revision it started from; when
+ * another revision became current in the meantime nothing is written and the outcome is
+ * 'stale', with the current revision, the conflicting fields and a suggested merge. Otherwise a
+ * moderator's or publisher's edit goes live at once (the page follows it, the search index after
+ * the commit) and a member's is stored as a proposal for the review desk. Protected pages take
+ * edits from moderators only. An edit that changes nothing is refused.
+ */
+export async function revisePage(ctx: AppContext, actor: Actor, type: PageType, slug: string, edit: PageEdit): Promise<ReviseOutcome> {
+  const { base, summary, content } = splitEdit(type, edit);
+  const outcome = await ctx.db.write(async (transaction): Promise<ReviseOutcome> => {
+    const page = await findPageOfType(type, slug, transaction);
+    await refuseIfMerged(type, page);
+    const subject = { isProtected: page.isProtected };
+    if (!can(actor, 'edit:page', subject)) throw forbidden('This page is protected: only moderators edit it.');
+    const baseRevision = await findRevisionOf(type, page.id, base, transaction).catch(() => {
+      throw badRequest('Invalid input.', [{ path: 'baseRevision', message: `revision ${base} is not a revision of this page` }]);
+    });
+    if (baseRevision.status !== 'live') {
+      throw badRequest('Invalid input.', [{ path: 'baseRevision', message: `revision ${base} was never live; start from the page as it is` }]);
+    }
+    if (page.currentRevisionId !== base) {
+      const current = await findRevisionOf(type, page.id, page.currentRevisionId!, transaction);
+      const merge = mergeEdits(type, contentOf(baseRevision), content, contentOf(current));
+      return { outcome: 'stale', page, current, conflicts: merge.conflicts, merged: merge.content };
+    }
+    if (changedFields(type, contentOf(baseRevision), content).length === 0) {
+      throw badRequest(`Nothing changed: the fields and text are the same as revision ${base}.`, [{ path: '(body)', message: 'change something before saving' }]);
+    }
+    // Validates before anything is written, also for proposals (a proposal must be applicable).
+    validContent(type, content);
+    if (type === 'steel') await checkDesignationsFree(page, content.fields as SteelFields, transaction);
+    const live = can(actor, 'publish:page', subject);
+    const revision = await PageRevision.create(
+      { pageType: type, pageId: page.id, authorId: actor.id, summary, fields: content.fields, body: content.body, status: live ? 'live' : 'proposed', kind: 'edit', baseRevisionId: base },
+      { transaction },
+    );
+    if (live) await applyContent(type, page, content, revision.id, transaction);
+    return { outcome: live ? 'live' : 'proposed', revision, page };
+  });
+  if (outcome.outcome === 'live') {
+    const changed = changedFields(type, contentOf(await findRevisionOf(type, outcome.page.id, base)), content);
+    await reindexPage(ctx, type, outcome.page, { results: changed.some((f) => RESULT_VISIBLE_FIELDS.includes(f)) });
+  }
+  return outcome;
+}

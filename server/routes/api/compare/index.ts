@@ -1,0 +1,59 @@
+import { Router } from 'express';
+import type { z } from 'zod';
+import {
+  compareCellQuerySchema,
+  compareExportQuerySchema,
+  comparePairedQuerySchema,
+  comparePointsQuerySchema,
+  compareQuerySchema,
+} from '@shared/schemas/compare';
+import type { AppContext } from '../../../context';
+import { validate } from '../../../middleware/validate';
+import { actorOf } from '../../../middleware/auth';
+import { compareBody, compareExport } from '../../../queries/compare';
+import { compareCell } from '../../../queries/compare-cell';
+import { comparePaired } from '../../../queries/compare-paired';
+import { comparePoints } from '../../../queries/compare-points';
+
+/**
+ * The comparison under /api/compare: the table (and pivot), its export, a cell's results, the
+ * tester-paired comparison of two cells, and the chart points. All read approved results only.
+ */
+export function compareRouter(ctx: AppContext): Router {
+  const router = Router();
+
+  router.get('/compare', validate({ query: compareQuerySchema }), async (req, res) => {
+    const { body, etag } = await compareBody(req.valid.query as z.infer<typeof compareQuerySchema>);
+    // Express would hash the body again for its ETag; this one was made once, with the body.
+    res.set('ETag', etag);
+    if (req.fresh) {
+      res.status(304).end();
+      return;
+    }
+    res.type('application/json').send(body);
+  });
+
+  router.get('/compare/export', validate({ query: compareExportQuerySchema }), async (req, res) => {
+    const { format, ...filters } = req.valid.query as z.infer<typeof compareExportQuerySchema>;
+    const file = await compareExport(filters, format, ctx.baseUrl);
+    res
+      .set('Content-Type', file.contentType)
+      .set('Content-Disposition', `attachment; filename="${file.filename}"`)
+      .set('Cache-Control', 'no-store')
+      .send(file.body);
+  });
+
+  router.get('/compare/cell', validate({ query: compareCellQuerySchema }), async (req, res) => {
+    res.json(await compareCell(req.valid.query as z.infer<typeof compareCellQuerySchema>, actorOf(req)));
+  });
+
+  router.get('/compare/paired', validate({ query: comparePairedQuerySchema }), async (req, res) => {
+    res.json(await comparePaired(req.valid.query as z.infer<typeof comparePairedQuerySchema>));
+  });
+
+  router.get('/compare/points', validate({ query: comparePointsQuerySchema }), async (req, res) => {
+    res.json(await comparePoints(req.valid.query as z.infer<typeof comparePointsQuerySchema>));
+  });
+
+  return router;
+}

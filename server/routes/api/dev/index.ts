@@ -1,0 +1,17 @@
+import { Router } from 'express';
+import { can } from '@shared/permissions';
+import type { AppContext } from '../../../context';
+import { actorOf, requireUser } from '../../../middleware/auth';
+import { forbidden, notFound } from '../../../errors';
+import type { MailCatcher } from '../../../mail/mail-catcher';
+
+/** Development aids (never in production): the local mail catcher's messages, for admins. */
+export function devRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
+  const router = Router();
+  router.get('/dev/mail', requireUser, (req, res) => {
+    if (ctx.env.isProduction || !mailCatcher) throw notFound('The mail catcher');
+    if (!can(actorOf(req), 'read:dev-mail')) throw forbidden('The mail catcher is for admins.');
+    res.set('Cache-Control', 'no-store').json(mailCatcher.messages());
+  });
+  return router;
+}

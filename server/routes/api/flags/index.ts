@@ -1,0 +1,35 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { can } from '@shared/permissions';
+import { flagInputSchema, flagResolutionSchema, type FlagInput, type FlagResolutionInput } from '@shared/schemas/publishing';
+import type { AppContext } from '../../../context';
+import { actorOf, requireUser } from '../../../middleware/auth';
+import { validate } from '../../../middleware/validate';
+import { forbidden } from '../../../errors';
+import { flagItem, resolveFlag } from '../../../commands/flag-item';
+import { openFlags } from '../../../queries/review-desk';
+import { presentFlag } from '../../../presenters/publishing';
+
+const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
+
+/** Flags: any member flags an approved result or a page; moderators list and close them. */
+export function flagsRouter(ctx: AppContext): Router {
+  const router = Router();
+
+  router.post('/flags', requireUser, validate({ body: flagInputSchema }), async (req, res) => {
+    const flag = await flagItem(ctx, actorOf(req)!, req.valid.body as FlagInput);
+    res.status(201).json(presentFlag(flag, null));
+  });
+
+  router.get('/flags', requireUser, async (req, res) => {
+    if (!can(actorOf(req), 'resolve:flag')) throw forbidden('Flags are read by moderators.');
+    res.json({ items: await openFlags() });
+  });
+
+  router.post('/flags/:id/resolve', requireUser, validate({ params: idParams, body: flagResolutionSchema }), async (req, res) => {
+    const { id } = req.valid.params as z.infer<typeof idParams>;
+    res.json(presentFlag(await resolveFlag(ctx, actorOf(req)!, id, req.valid.body as FlagResolutionInput), null));
+  });
+
+  return router;
+}

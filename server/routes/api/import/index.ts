@@ -1,0 +1,49 @@
+import { Router } from 'express';
+import type { z } from 'zod';
+import { can } from '@shared/permissions';
+import { toCsv } from '@shared/csv';
+import { importLimits, importQuerySchema } from '@shared/schemas/import';
+import type { AppContext } from '../../../context';
+import { actorOf, requireUser } from '../../../middleware/auth';
+import { validate } from '../../../middleware/validate';
+import { forbidden } from '../../../errors';
+import { receiveFile } from '../../../storage/upload';
+import { checkImport, ImportRefused, importResults, templateRows } from '../../../commands/import-results';
+
+/** Bulk import of results from CSV (publishers): the template, the dry run, the import. */
+export function importRouter(ctx: AppContext): Router {
+  const router = Router();
+
+  router.get('/import/template.csv', (_req, res) => {
+    res.type('text/csv; charset=utf-8').attachment('edgeledger-import-template.csv').send(toCsv(templateRows()));
+  });
+
+  router.post(
+    '/import/results',
+    requireUser,
+    validate({ query: importQuerySchema }),
+    (req, _res, next) => {
+      // Refuse before reading the upload.
+      if (!can(actorOf(req), 'import:results')) throw forbidden('Bulk import is for publishers; apply to become one from your page.');
+      next();
+    },
+    receiveFile({ field: 'file', maxBytes: importLimits.fileBytesMax, fields: 2, fieldBytes: 200, what: 'CSV file' }),
+    async (req, res) => {
+      const { dryRun } = req.valid.query as z.infer<typeof importQuerySchema>;
+      const file = req.file!.buffer;
+      if (dryRun) {
+        res.json((await checkImport(file)).report);
+        return;
+      }
+      try {
+        res.status(201).json(await importResults(ctx, actorOf(req)!, file));
+      } catch (err) {
+        // A refused import answers with the same report as the dry run.
+        if (!(err instanceof ImportRefused)) throw err;
+        res.status(400).json({ error: err.message, ...err.report });
+      }
+    },
+  );
+
+  return router;
+}

@@ -1,0 +1,68 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { resultInputSchema, type ResultInput } from '@shared/schemas/result';
+import { FOLLOWABLE_PAGES, followInputSchema, notificationSettingsSchema, unsubscribeSchema } from '@shared/schemas/publishing';
+import { slugSchema } from '@shared/schemas/result';
+import { EMAIL_TOPICS } from '@shared/schemas/publishing';
+import type { AppContext } from '../../../context';
+import { actorOf, requireUser } from '../../../middleware/auth';
+import { validate } from '../../../middleware/validate';
+import { badRequest } from '../../../errors';
+import type { User } from '../../../models';
+import { ownPage, resultsForExport } from '../../../queries/profiles';
+import { findDuplicates } from '../../../queries/duplicates';
+import { followPage, unfollowPage } from '../../../commands/follow-page';
+import { updateNotificationSettings } from '../../../commands/update-notification-settings';
+import { verifyUnsubscribe } from '../../../mail/unsubscribe';
+import { resultsCsv } from '../../../presenters/result-csv';
+
+const followParams = z.object({ pageType: z.enum(FOLLOWABLE_PAGES), slug: slugSchema }).strict();
+
+/** The member's own page and settings: drafts and decisions, follows, e-mail, export, duplicate check, unsubscribe. */
+export function meRouter(ctx: AppContext): Router {
+  const router = Router();
+
+  router.get('/me', requireUser, async (req, res) => {
+    res.set('Cache-Control', 'no-store').json(await ownPage(req.user as User));
+  });
+
+  router.get('/me/results.csv', requireUser, async (req, res) => {
+    const user = req.user as User;
+    res.set('Cache-Control', 'no-store').type('text/csv; charset=utf-8').attachment(`edgeledger-${user.handle}-all-results.csv`).send(resultsCsv(await resultsForExport(user.id, true)));
+  });
+
+  router.put('/me/notifications', requireUser, validate({ body: notificationSettingsSchema }), async (req, res) => {
+    const s = await updateNotificationSettings(ctx, actorOf(req)!.id, req.valid.body as z.infer<typeof notificationSettingsSchema>);
+    res.json({ review: s.review, application: s.application, digest: s.digest });
+  });
+
+  router.post('/me/follows', requireUser, validate({ body: followInputSchema }), async (req, res) => {
+    const { pageType, slug } = req.valid.body as z.infer<typeof followInputSchema>;
+    await followPage(ctx, actorOf(req)!, pageType, slug);
+    res.status(201).json({ pageType, slug, following: true });
+  });
+
+  router.delete('/me/follows/:pageType/:slug', requireUser, validate({ params: followParams }), async (req, res) => {
+    const { pageType, slug } = req.valid.params as z.infer<typeof followParams>;
+    await unfollowPage(ctx, actorOf(req)!, pageType, slug);
+    res.status(204).end();
+  });
+
+  router.post('/me/duplicate-check', requireUser, validate({ body: resultInputSchema }), async (req, res) => {
+    res.json({ duplicates: await findDuplicates(actorOf(req)!.id, req.valid.body as ResultInput) });
+  });
+
+  // No sign-in: the signed link from an e-mail is the proof. Accepts the parameters in the query
+  // (one-click List-Unsubscribe, RFC 8058) or in a JSON body (the unsubscribe page).
+  router.post('/me/unsubscribe', async (req, res) => {
+    const raw = Object.keys(req.query).length ? req.query : (req.body ?? {});
+    const parsed = unsubscribeSchema.safeParse(raw);
+    if (!parsed.success) throw badRequest('This unsubscribe link is incomplete.', parsed.error.issues.map((i) => ({ path: i.path.join('.') || 'link', message: i.message })));
+    const { user, topic, sig } = parsed.data;
+    if (!verifyUnsubscribe(ctx.env, user, topic, sig)) throw badRequest('This unsubscribe link is not valid; use the link from the message itself, or change your e-mail settings on your page.', [{ path: 'sig', message: 'does not match' }]);
+    await updateNotificationSettings(ctx, user, { [topic]: false });
+    res.json({ topic, topicLabel: EMAIL_TOPICS[topic], unsubscribed: true });
+  });
+
+  return router;
+}

@@ -1,0 +1,79 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { can } from '@shared/permissions';
+import { photoFieldsSchema, photoLimits } from '@shared/schemas/publishing';
+import type { AppContext } from '../../../context';
+import { actorOf, requireUser } from '../../../middleware/auth';
+import { validate } from '../../../middleware/validate';
+import { forbidden, notFound } from '../../../errors';
+import { Photo, Result } from '../../../models';
+import { receiveFile } from '../../../storage/upload';
+import { removePhoto, uploadPhoto } from '../../../commands/upload-photo';
+import { presentPhoto } from '../../../presenters/publishing';
+
+const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
+
+/** Photos of results: upload (the author), list, the image and its thumbnail, removal. */
+export function photosRouter(ctx: AppContext): Router {
+  const router = Router();
+
+  router.post(
+    '/results/:id/photos',
+    requireUser,
+    validate({ params: idParams }),
+    async (req, _res, next) => {
+      // Refuse before reading the upload: only the author sends a file.
+      const { id } = req.valid.params as z.infer<typeof idParams>;
+      const result = await Result.findByPk(id, { attributes: ['id', 'authorId', 'status'] });
+      const actor = actorOf(req);
+      if (!result || !can(actor, 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Result');
+      if (!can(actor, 'upload:photo', { authorId: result.authorId, status: result.status })) {
+        throw forbidden(result.authorId === actor?.id ? `Photos cannot be added to a result that is ${result.status}.` : 'Only the result’s author adds photos.');
+      }
+      next();
+    },
+    receiveFile({ field: 'photo', maxBytes: photoLimits.fileBytesMax, fields: 2, fieldBytes: 1000, what: 'photo' }),
+    validate({ body: photoFieldsSchema }),
+    async (req, res) => {
+      const { id } = req.valid.params as z.infer<typeof idParams>;
+      const { alt } = req.valid.body as z.infer<typeof photoFieldsSchema>;
+      const photo = await uploadPhoto(ctx, actorOf(req)!, id, req.file!.buffer, alt);
+      res.status(201).json(presentPhoto(photo));
+    },
+  );
+
+  router.get('/results/:id/photos', validate({ params: idParams }), async (req, res) => {
+    const { id } = req.valid.params as z.infer<typeof idParams>;
+    const result = await Result.findByPk(id, { attributes: ['id', 'authorId', 'status'] });
+    if (!result || !can(actorOf(req), 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Result');
+    const photos = await Photo.findAll({ where: { resultId: id, removedAt: null }, order: [['id', 'ASC']] });
+    res.json({ items: photos.map(presentPhoto), max: photoLimits.perResult, canAdd: can(actorOf(req), 'upload:photo', { authorId: result.authorId, status: result.status }) });
+  });
+
+  for (const variant of ['image', 'thumb'] as const) {
+    router.get(variant === 'image' ? '/photos/:id' : '/photos/:id/thumb', validate({ params: idParams }), async (req, res) => {
+      const { id } = req.valid.params as z.infer<typeof idParams>;
+      const photo = await Photo.findByPk(id, { include: [{ model: Result, as: 'result', attributes: ['id', 'authorId', 'status'] }] });
+      const result = photo?.result;
+      if (!photo || photo.removedAt || !result || !can(actorOf(req), 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Photo');
+      const object = await ctx.storage.get(variant === 'image' ? photo.objectKey : photo.thumbKey);
+      if (!object) throw notFound('Photo');
+      res.set({
+        'Content-Type': 'image/jpeg',
+        'Content-Disposition': `inline; filename="edgeledger-photo-${photo.id}${variant === 'thumb' ? '-thumb' : ''}.jpg"`,
+        // Published photos may be cached; others are private to their author and moderators.
+        'Cache-Control': result.status === 'approved' ? 'public, max-age=86400' : 'private, no-store',
+        ...(object.contentLength ? { 'Content-Length': String(object.contentLength) } : {}),
+      });
+      object.body.pipe(res);
+    });
+  }
+
+  router.delete('/photos/:id', requireUser, validate({ params: idParams }), async (req, res) => {
+    const { id } = req.valid.params as z.infer<typeof idParams>;
+    await removePhoto(ctx, actorOf(req)!, id);
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,47 @@
+import { Router, type Request } from 'express';
+import { z } from 'zod';
+import { can } from '@shared/permissions';
+import { tokenCreateSchema } from '@shared/schemas/publishing';
+import type { AppContext } from '../../../context';
+import { actorOf, requireUser } from '../../../middleware/auth';
+import { validate } from '../../../middleware/validate';
+import { forbidden } from '../../../errors';
+import { ApiToken } from '../../../models';
+import { createToken } from '../../../commands/create-token';
+import { revokeToken } from '../../../commands/revoke-token';
+import { presentToken } from '../../../presenters/publishing';
+
+const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
+
+/** Token management needs the signed-in session: a leaked token must not mint or hide others. */
+function requireSessionPublisher(req: Request) {
+  if (!can(actorOf(req), 'manage:tokens')) throw forbidden('API tokens are for publishers.');
+  if (req.authenticatedBy === 'token') throw forbidden('Manage API tokens from your signed-in session, not with a token.');
+}
+
+/** A publisher's API tokens: list, create (the token is shown once), revoke. */
+export function tokensRouter(ctx: AppContext): Router {
+  const router = Router();
+
+  router.get('/tokens', requireUser, async (req, res) => {
+    requireSessionPublisher(req);
+    const tokens = await ApiToken.findAll({ where: { userId: actorOf(req)!.id }, order: [['createdAt', 'DESC']] });
+    res.set('Cache-Control', 'no-store').json({ items: tokens.map(presentToken) });
+  });
+
+  router.post('/tokens', requireUser, validate({ body: tokenCreateSchema }), async (req, res) => {
+    requireSessionPublisher(req);
+    const { name } = req.valid.body as z.infer<typeof tokenCreateSchema>;
+    const { record, token } = await createToken(ctx, actorOf(req)!, name);
+    res.status(201).set('Cache-Control', 'no-store').json({ ...presentToken(record), token });
+  });
+
+  router.delete('/tokens/:id', requireUser, validate({ params: idParams }), async (req, res) => {
+    requireSessionPublisher(req);
+    const { id } = req.valid.params as z.infer<typeof idParams>;
+    await revokeToken(ctx, actorOf(req)!, id);
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,116 @@
+import { useId, useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { formatDateTime } from '@/lib/format';
+import { SignInRequired } from '@/lib/authorization';
+import { useCan } from '@/lib/auth';
+import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { Field, Input } from '@/components/ui/field';
+import { PageTitle } from '@/components/ui/page-title';
+import { Empty, ErrorState, Loading } from '@/components/ui/states';
+import { useAudit } from '../api/get-audit';
+
+function AuditTable() {
+  const [params, setParams] = useSearchParams();
+  const actorId = useId();
+  const actionId = useId();
+  const [actor, setActor] = useState(params.get('actor') ?? '');
+  const [action, setAction] = useState(params.get('action') ?? '');
+  const page = Math.max(1, Number(params.get('page')) || 1);
+  const filters = { actor: params.get('actor') ?? undefined, action: params.get('action') ?? undefined, page };
+  const audit = useAudit(filters);
+  const go = (next: Record<string, string>) => {
+    const p = new URLSearchParams(params);
+    for (const [k, v] of Object.entries(next)) v ? p.set(k, v) : p.delete(k);
+    setParams(p, { replace: true });
+  };
+  return (
+    <div className="flex flex-col gap-4">
+      <form
+        aria-label="Filter the audit log"
+        className="flex flex-wrap items-end gap-3"
+        onSubmit={(e) => {
+          e.preventDefault();
+          go({ actor: actor.trim(), action: action.trim(), page: '' });
+        }}
+      >
+        <Field id={actorId} label="Who (handle)">
+          <Input id={actorId} value={actor} onChange={(e) => setActor(e.target.value)} placeholder="anyone" />
+        </Field>
+        <Field id={actionId} label="Action starts with">
+          <Input id={actionId} value={action} onChange={(e) => setAction(e.target.value)} placeholder="e.g. result." />
+        </Field>
+        <Button type="submit" variant="secondary">
+          Filter
+        </Button>
+      </form>
+      {audit.isPending ? (
+        <Loading label="Loading the audit log…" />
+      ) : audit.isError ? (
+        <ErrorState error={audit.error} onRetry={() => audit.refetch()} />
+      ) : audit.data.items.length === 0 ? (
+        <Empty title="No entries">{filters.actor || filters.action ? 'Nothing matches these filters.' : 'No moderator or admin has acted yet.'}</Empty>
+      ) : (
+        <>
+          <div className="overflow-x-auto rounded-md border border-rule bg-panel">
+            <table className="w-full border-collapse text-sm">
+              <caption className="px-3 py-2 text-left text-muted">
+                Every moderator and admin action, newest first; refused attempts included. {audit.data.total} entries.
+              </caption>
+              <thead>
+                <tr className="border-b border-rule text-left">
+                  {['When', 'Who', 'What', 'On', 'Outcome', 'Why'].map((h) => (
+                    <th key={h} scope="col" className="px-3 py-1.5">
+                      {h}
+                    </th>
+                  ))}
+                </tr>
+              </thead>
+              <tbody>
+                {audit.data.items.map((e) => (
+                  <tr key={e.id} className="border-b border-rule/60 align-top last:border-0">
+                    <td className="whitespace-nowrap px-3 py-1.5">{formatDateTime(e.at)}</td>
+                    <td className="px-3 py-1.5">@{e.actor?.handle}</td>
+                    <td className="px-3 py-1.5 font-mono">{e.action}</td>
+                    <td className="px-3 py-1.5">
+                      {e.subjectType}
+                      {e.subjectId ? ` #${e.subjectId}` : ''}
+                    </td>
+                    <td className="px-3 py-1.5">{e.outcome === 'done' ? <Badge tone="accent">Done</Badge> : <Badge tone="caution">Refused</Badge>}</td>
+                    <td className="px-3 py-1.5">
+                      {e.reason}
+                      {typeof e.details?.refusal === 'string' ? <span className="block text-muted">Refused: {e.details.refusal}</span> : null}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <div className="flex gap-2">
+            <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => go({ page: String(page - 1) })}>
+              Newer
+            </Button>
+            <Button variant="secondary" size="sm" disabled={page * audit.data.pageSize >= audit.data.total} onClick={() => go({ page: String(page + 1) })}>
+              Older
+            </Button>
+          </div>
+        </>
+      )}
+    </div>
+  );
+}
+
+/** The audit log (moderators): read-only, who did what, when and why. */
+export default function AuditLogPage() {
+  const mayRead = useCan('read:audit');
+  return (
+    <div className="flex flex-col gap-6">
+      <PageTitle title="Audit log" lead="Every decision and change made by moderators and admins, with the reason given. Nobody can edit or remove an entry.">
+        Audit log
+      </PageTitle>
+      <SignInRequired what="read the audit log" action="read:audit">
+        {mayRead ? <AuditTable /> : null}
+      </SignInRequired>
+    </div>
+  );
+}

@@ -1,0 +1,80 @@
+import { useId, useState } from 'react';
+import { formatDate } from '@/lib/format';
+import { Button } from '@/components/ui/button';
+import { controlA11y, Field, Input } from '@/components/ui/field';
+import { describeError } from '@/components/ui/states';
+import { Badge } from '@/components/ui/badge';
+import type { ApiTokenInfo } from '../types';
+import { tokenCreateSchema, useCreateToken, useRevokeToken } from '../api/tokens';
+
+/** A publisher's API tokens: create one (shown once, to copy), see when each was last used, revoke. */
+export function TokensPanel({ tokens }: { tokens: ApiTokenInfo[] }) {
+  const nameId = useId();
+  const [name, setName] = useState('');
+  const [nameError, setNameError] = useState<string | undefined>();
+  const create = useCreateToken();
+  const revoke = useRevokeToken();
+  const fresh = create.data;
+
+  return (
+    <section aria-labelledby="tokens" className="flex flex-col gap-3">
+      <h2 id="tokens" className="text-xl font-semibold">
+        API tokens
+      </h2>
+      <p className="text-muted">
+        A token lets a script use the API as you: send it as <code>Authorization: Bearer &lt;token&gt;</code>. Keep it secret; revoke it when a machine is lost.
+      </p>
+      <form
+        aria-label="Create a token"
+        className="flex flex-wrap items-end gap-2"
+        onSubmit={(e) => {
+          e.preventDefault();
+          const parsed = tokenCreateSchema.safeParse({ name });
+          if (!parsed.success) return setNameError(parsed.error.issues[0]?.message);
+          setNameError(undefined);
+          create.mutate(parsed.data.name, { onSuccess: () => setName('') });
+        }}
+      >
+        <Field id={nameId} label="Token name" error={nameError} className="min-w-64 flex-1">
+          <Input {...controlA11y(nameId, { error: nameError })} value={name} maxLength={60} onChange={(e) => setName(e.target.value)} placeholder="e.g. lab laptop" />
+        </Field>
+        <Button type="submit" busy={create.isPending}>
+          Create token
+        </Button>
+      </form>
+      {create.isError ? (
+        <p role="alert" className="text-danger">
+          {describeError(create.error)}
+        </p>
+      ) : null}
+      {fresh ? (
+        <div role="status" className="rounded-md border border-caution/40 bg-caution-soft px-4 py-3">
+          <p className="font-semibold">Your new token “{fresh.name}”: copy it now, it is shown only once.</p>
+          <p className="mt-1 break-all font-mono" aria-label="New token">
+            {fresh.token}
+          </p>
+        </div>
+      ) : null}
+      {tokens.length ? (
+        <ul className="divide-y divide-rule rounded-md border border-rule bg-panel">
+          {tokens.map((t) => (
+            <li key={t.id} className="flex flex-wrap items-center justify-between gap-2 px-4 py-2">
+              <span>
+                <span className="font-semibold">{t.name}</span> <span className="font-mono text-sm text-muted">{t.prefix}…</span>{' '}
+                <span className="text-sm text-muted">
+                  made {formatDate(t.createdAt)}, {t.lastUsedAt ? `last used ${formatDate(t.lastUsedAt)}` : 'never used'}
+                </span>{' '}
+                {t.active ? null : <Badge>Revoked {formatDate(t.revokedAt)}</Badge>}
+              </span>
+              {t.active ? (
+                <Button variant="danger" size="sm" onClick={() => revoke.mutate(t.id)} disabled={revoke.isPending} aria-label={`Revoke token ${t.name}`}>
+                  Revoke
+                </Button>
+              ) : null}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+    </section>
+  );
+}
