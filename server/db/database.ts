@@ -10,6 +10,7 @@ import * as m0002 from './migrations/0002-reference-wiki';
 import * as m0003 from './migrations/0003-comparison-bands';
 import * as m0005 from './migrations/0005-publishing';
 import * as m0006 from './migrations/0006-wheel-log';
+import * as m0007 from './migrations/0007-result-page-indexes';
 
 /** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
 const migrations = [
@@ -18,6 +19,7 @@ const migrations = [
   { name: '0003-comparison-bands', module: m0003 },
   { name: '0005-publishing', module: m0005 },
   { name: '0006-wheel-log', module: m0006 },
+  { name: '0007-result-page-indexes', module: m0007 },
 ];
 
 export interface DatabaseOptions {

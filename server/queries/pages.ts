@@ -166,7 +166,9 @@ export async function resultSummary(type: 'steel' | 'abrasive', pageId: number):
   const groups = new Map<string, number[]>();
   for (const r of rows) {
     const key = type === 'steel' ? r.material : String(r.steelId);
-    groups.set(key, [...(groups.get(key) ?? []), r.sharpnessMedianG]);
+    let values = groups.get(key);
+    if (!values) groups.set(key, (values = []));
+    values.push(r.sharpnessMedianG);
   }
   const steelNames = new Map<string, { slug: string; name: string }>();
   if (type === 'abrasive' && groups.size) {

@@ -42,12 +42,34 @@ function linkTransform(options: RenderOptions): sanitizeHtml.Transformer {
   };
 }
 
+const CACHE_SIZE = 1000;
+const generated = new Map<string, string>();
+
+/**
+ * TipTap's server renderer builds a DOM (happy-dom) for every call, a few milliseconds even for
+ * one line; page bodies are read far more often than edited, so its output is kept per
+ * document in a small least-recently-used map. The output depends on the document alone.
+ */
+function cachedGenerateHTML(doc: RichTextNode): string {
+  const key = JSON.stringify(doc);
+  const hit = generated.get(key);
+  if (hit !== undefined) {
+    generated.delete(key);
+    generated.set(key, hit);
+    return hit;
+  }
+  const html = generateHTML(doc as Parameters<typeof generateHTML>[0], richTextExtensions);
+  generated.set(key, html);
+  if (generated.size > CACHE_SIZE) generated.delete(generated.keys().next().value!);
+  return html;
+}
+
 /**
  * Renders a validated TipTap document to HTML with the shared extensions, then sanitises the
  * result again with the same allow-list, so a gap in either layer is closed by the other.
  */
 export function renderRichText(doc: RichTextNode | null | undefined, options: RenderOptions = {}): string {
   if (!doc) return '';
-  const html = generateHTML(doc as Parameters<typeof generateHTML>[0], richTextExtensions);
+  const html = cachedGenerateHTML(doc);
   return sanitizeHtml(html, { ...sanitizeOptions, transformTags: { a: linkTransform(options) } });
 }
