@@ -45,10 +45,16 @@ delay.enable();
 
 process.on('message', async (msg: { type: string }) => {
   if (msg.type === 'stats') {
+    const before = process.memoryUsage();
+    // With --expose-gc: what stays alive once the garbage is collected (RSS seldom shrinks much).
+    (globalThis as { gc?: () => void }).gc?.();
+    const after = process.memoryUsage();
     process.send!({
       type: 'stats',
-      rssMb: process.memoryUsage().rss / 2 ** 20,
-      heapMb: process.memoryUsage().heapUsed / 2 ** 20,
+      rssMb: before.rss / 2 ** 20,
+      heapMb: before.heapUsed / 2 ** 20,
+      rssAfterGcMb: after.rss / 2 ** 20,
+      heapAfterGcMb: after.heapUsed / 2 ** 20,
       loopMaxMs: delay.max / 1e6,
       loopP99Ms: delay.percentile(99) / 1e6,
     });

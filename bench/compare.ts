@@ -232,7 +232,7 @@ interface Ready {
 
 function startServer(dataDir: string): Promise<{ child: ChildProcess; ready: Ready; ask: <T>(type: string) => Promise<T> }> {
   const child = fork(path.resolve('bench/compare-server.ts'), [], {
-    execArgv: ['--import', 'tsx'],
+    execArgv: ['--import', 'tsx', '--expose-gc'],
     env: {
       ...process.env,
       BENCH_DATA_DIR: dataDir,
@@ -393,6 +393,9 @@ async function searchPhase() {
 
 async function comparePhase() {
   const { ready, ask } = await startServer(dirB);
+  const atBoot = await ask<{ rssMb: number; rssAfterGcMb: number; heapAfterGcMb: number }>('stats');
+  figures.rssAtBootAfterGcMb = Math.round(atBoot.rssAfterGcMb);
+  figures.heapAtBootAfterGcMb = Math.round(atBoot.heapAfterGcMb);
   figures.compareBootMs = Math.round(ready.bootMs);
   figures.fullIndexReadyMs = Math.round(ready.indexMs);
   figures.fullSearchDocuments = ready.searchDocuments;
@@ -426,7 +429,10 @@ async function comparePhase() {
   figures.compareFilteredReqPerSec = loadedFiltered.reqPerSec;
   const hello = await load(`${ready.helloUrl}/hello`);
   figures.helloReqPerSec = hello.reqPerSec;
-  say(`10 connections, 5 s each: compare ${loaded.reqPerSec} req/s (p99 ${loaded.p99} ms), filtered compare ${loadedFiltered.reqPerSec} req/s, Express hello-world ${hello.reqPerSec} req/s`);
+  // The app's own middleware (session, passport, helmet, limits, CSRF) around a trivial handler.
+  const health = await load(`${ready.url}/api/health`);
+  figures.healthReqPerSec = health.reqPerSec;
+  say(`10 connections, 5 s each: compare ${loaded.reqPerSec} req/s (p99 ${loaded.p99} ms), filtered compare ${loadedFiltered.reqPerSec} req/s, Express hello-world ${hello.reqPerSec} req/s, the app's /api/health ${health.reqPerSec} req/s`);
 
   // Approval to visible: a moderator approves a pending result; time until the table shows it.
   const v2Pending = await (async () => {
@@ -473,11 +479,13 @@ async function comparePhase() {
   figures.approvalPostMs = ms(percentile(posts, 0.5));
   say(`approval to visible in the comparison (HTTP approve + read, ${visible.length} approvals): p50 ${figures.approvalVisibleMs} ms, max ${figures.approvalVisibleMaxMs} ms (the approving POST alone p50 ${figures.approvalPostMs} ms); in the cell's search hit p50 ${figures.approvalSearchVisibleMs} ms`);
 
-  const stats = await ask<{ rssMb: number; heapMb: number; loopMaxMs: number; loopP99Ms: number }>('stats');
+  const stats = await ask<{ rssMb: number; heapMb: number; rssAfterGcMb: number; heapAfterGcMb: number; loopMaxMs: number; loopP99Ms: number }>('stats');
   figures.rssMb = Math.round(stats.rssMb);
   figures.heapMb = Math.round(stats.heapMb);
+  figures.rssAfterGcMb = Math.round(stats.rssAfterGcMb);
+  figures.heapAfterGcMb = Math.round(stats.heapAfterGcMb);
   figures.loopMaxMs = ms(stats.loopMaxMs);
-  say(`server RSS ${figures.rssMb} MB (heap ${figures.heapMb} MB) with ${figures.approvedResults} results and ${ready.searchDocuments} search documents; event loop max delay over the comparison runs ${figures.loopMaxMs} ms; index ready at boot ${figures.fullIndexReadyMs} ms`);
+  say(`server RSS ${figures.rssMb} MB (heap ${figures.heapMb} MB; after a full GC RSS ${figures.rssAfterGcMb} MB, heap ${figures.heapAfterGcMb} MB) with ${figures.approvedResults} results and ${ready.searchDocuments} search documents; event loop max delay over the comparison runs ${figures.loopMaxMs} ms; index ready at boot ${figures.fullIndexReadyMs} ms`);
   await ask('stop');
 }
 

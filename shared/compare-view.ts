@@ -39,8 +39,12 @@ export function bandInfo(phi: number, step: 1 | 0.5): BandInfo {
 
 /** A band's edges written for people: "7.81–15.6 µm" (three significant figures, whole µm from 100 µm). */
 export function formatBand(band: { loUm: number; hiUm: number }): string {
-  const f = (um: number) => (um >= 100 ? String(Math.round(um)) : String(Number(um.toPrecision(3))));
-  return `${f(band.loUm)}–${f(band.hiUm)} µm`;
+  return `${formatEdgeUm(band.loUm)}–${formatEdgeUm(band.hiUm)} µm`;
+}
+
+/** A band edge in µm without the unit: three significant figures, whole µm from 100 µm. */
+export function formatEdgeUm(um: number): string {
+  return um >= 100 ? String(Math.round(um)) : String(Number(um.toPrecision(3)));
 }
 
 /** A cell's name in URLs: steel:material:phi (see cellRefSchema). */

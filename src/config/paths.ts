@@ -15,10 +15,13 @@ function withQuery(base: string, params: Record<string, string | number | undefi
 /** Filters of the comparison page, as they appear in its URL. */
 export interface CompareFilters {
   method?: string;
+  /** One slug, or several joined by commas. */
   steel?: string;
   material?: string;
   hrcMin?: string;
   hrcMax?: string;
+  /** The rest of the comparison's URL (shared/schemas/compare.ts names them all). */
+  [key: string]: string | undefined;
 }
 
 /** Filters of the results list, as they appear in its URL. */

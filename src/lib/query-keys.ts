@@ -27,6 +27,9 @@ export const queryKeys = {
   compare: {
     all: ['compare'] as const,
     table: (filters: CompareFilters) => ['compare', filters] as const,
+    cell: (params: CompareFilters) => ['compare', 'cell', params] as const,
+    paired: (params: CompareFilters) => ['compare', 'paired', params] as const,
+    points: (params: CompareFilters) => ['compare', 'points', params] as const,
   },
   search: {
     all: ['search'] as const,

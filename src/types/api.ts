@@ -104,7 +104,7 @@ export interface CompareRow {
   retentionCuts: { median: number } | null;
 }
 
-export type SearchHitType = 'steel' | 'abrasive' | 'method' | 'result';
+export type SearchHitType = 'steel' | 'abrasive' | 'method' | 'result' | 'cell';
 
 export interface SearchHit {
   type: SearchHitType;
@@ -113,6 +113,8 @@ export interface SearchHit {
   title: string;
   snippet: string;
   score: number;
+  /** For a comparison cell: its method, its name (steel:material:phi) and its figures (g). */
+  cell?: { method: string; ref: string; n: number; testers: number; medianG: number; q1G: number; q3G: number };
 }
 
 export interface SearchResponse {

@@ -1,23 +1,39 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { CompareRow } from '@shared/compare-view';
 import { apiGet } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import type { CompareFilters } from '@/config/paths';
-import type { CompareRow } from '@/types/api';
 
-/** GET /api/compare: published results grouped by method × steel × abrasive material × grit band. */
-export function getCompare(filters: CompareFilters, signal?: AbortSignal): Promise<{ rows: CompareRow[] }> {
-  return apiGet<{ rows: CompareRow[] }>('/api/compare', { ...filters }, signal);
+/** The answer of GET /api/compare (server/queries/compare.ts). */
+export interface CompareResponse {
+  method: { slug: string; name: string; version: number; replaces: string | null; replacedBy: string | null };
+  step: 1 | 0.5;
+  source: 'cells' | 'results';
+  liveFilters: string[];
+  sort: string | null;
+  total: number;
+  totalResults: number;
+  methodResults: number;
+  shrinkage: { pseudoResults: number; overallMedianG: number | null };
+  page: number;
+  pageSize: number;
+  rows: CompareRow[];
+}
+
+/** GET /api/compare: one page of cells (method × steel × abrasive material × grit band). */
+export function getCompare(params: CompareFilters, signal?: AbortSignal): Promise<CompareResponse> {
+  return apiGet<CompareResponse>('/api/compare', { ...params }, signal);
 }
 
 /** Query options for the comparison; the old table stays while a changed filter loads. */
-export const compareQueryOptions = (filters: CompareFilters) =>
+export const compareQueryOptions = (params: CompareFilters) =>
   queryOptions({
-    queryKey: queryKeys.compare.table(filters),
-    queryFn: ({ signal }) => getCompare(filters, signal),
+    queryKey: queryKeys.compare.table(params),
+    queryFn: ({ signal }) => getCompare(params, signal),
     placeholderData: keepPreviousData,
   });
 
-/** The comparison table, as a query. */
-export function useCompare(filters: CompareFilters) {
-  return useQuery(compareQueryOptions(filters));
+/** The comparison, as a query. */
+export function useCompare(params: CompareFilters) {
+  return useQuery(compareQueryOptions(params));
 }

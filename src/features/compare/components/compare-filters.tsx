@@ -1,105 +1,226 @@
-import { useId } from 'react';
-import { useSearchParams } from 'react-router-dom';
-import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
+import { useId, useState, type ReactNode } from 'react';
+import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '@shared/vocabulary';
+import { toHrc, HARDNESS_SCALES, type HardnessScale } from '@shared/hardness';
+import { bandInfo, formatEdgeUm } from '@shared/compare-view';
 import { Field, Input, Select } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
-import type { CompareFilters as Filters } from '@/config/paths';
-
-export const COMPARE_FILTER_KEYS = ['method', 'steel', 'material', 'hrcMin', 'hrcMax'] as const;
-
-/** The comparison's filters as they stand in the URL (so a filtered table can be linked to). */
-export function useCompareFilters(): [Filters, (next: Filters) => void] {
-  const [params, setParams] = useSearchParams();
-  const filters: Filters = {};
-  for (const key of COMPARE_FILTER_KEYS) {
-    const v = params.get(key);
-    if (v) filters[key] = v;
-  }
-  const update = (next: Filters) => {
-    const out = new URLSearchParams();
-    for (const key of COMPARE_FILTER_KEYS) if (next[key]) out.set(key, next[key]!);
-    setParams(out, { replace: true });
-  };
-  return [filters, update];
-}
+import { FILTER_KEYS, listOf, useCompareUrl, type FilterKey } from '../hooks/use-compare-url';
 
 export interface CompareFiltersProps {
-  methods: { slug: string; name: string }[];
-  steels: { slug: string; name: string }[];
+  methods: { slug: string; name: string; version: number | string }[];
+  steels: { slug: string; name: string; category: string }[];
 }
 
-/** Form controls bound to the URL's search parameters; the table follows as they change. */
-export function CompareFilters({ methods, steels }: CompareFiltersProps) {
-  const [filters, setFilters] = useCompareFilters();
-  const id = useId();
-  const set = (key: keyof Filters, value: string) => setFilters({ ...filters, [key]: value });
-  const any = COMPARE_FILTER_KEYS.some((k) => filters[k]);
+/** Band edges offered for the particle-size range: powers of two in µm, as the bands use. */
+const EDGES_UM = Array.from({ length: 14 }, (_, i) => bandInfo(i - 2, 1).hiUm).reverse(); // 0.24 µm … 4 mm
 
+/** A set of checkboxes that writes a comma list to one URL key. */
+function CheckList({ legend, name, options, value, onChange, columns = 2 }: { legend: string; name: string; options: [string, string][]; value: string[]; onChange: (next: string[]) => void; columns?: number }) {
+  const chosen = new Set(value);
   return (
-    <form
-      aria-label="Filter the comparison"
-      onSubmit={(e) => e.preventDefault()}
-      className="grid grid-cols-2 gap-4 rounded-md border border-rule bg-panel p-4 lg:grid-cols-[repeat(3,minmax(0,1fr))_8rem_8rem_auto]"
-    >
-      <Field className="col-span-2 lg:col-span-1" id={`${id}-method`} label="Method">
-        <Select id={`${id}-method`} value={filters.method ?? ''} onChange={(e) => set('method', e.target.value)}>
-          <option value="">All methods</option>
-          {methods.map((m) => (
-            <option key={m.slug} value={m.slug}>
-              {m.name}
-            </option>
-          ))}
-        </Select>
-      </Field>
-      <Field className="col-span-2 lg:col-span-1" id={`${id}-steel`} label="Steel">
-        <Select id={`${id}-steel`} value={filters.steel ?? ''} onChange={(e) => set('steel', e.target.value)}>
-          <option value="">All steels</option>
-          {steels.map((s) => (
-            <option key={s.slug} value={s.slug}>
-              {s.name}
-            </option>
-          ))}
-        </Select>
-      </Field>
-      <Field className="col-span-2 lg:col-span-1" id={`${id}-material`} label="Abrasive material">
-        <Select id={`${id}-material`} value={filters.material ?? ''} onChange={(e) => set('material', e.target.value)}>
-          <option value="">All materials</option>
-          {Object.entries(ABRASIVE_MATERIALS).map(([value, text]) => (
-            <option key={value} value={value}>
-              {text}
-            </option>
-          ))}
-        </Select>
-      </Field>
-      <Field id={`${id}-hrc-min`} label="HRC from">
-        <Input
-          id={`${id}-hrc-min`}
-          type="number"
-          inputMode="decimal"
-          min={0}
-          max={100}
-          step="any"
-          value={filters.hrcMin ?? ''}
-          onChange={(e) => set('hrcMin', e.target.value)}
-        />
-      </Field>
-      <Field id={`${id}-hrc-max`} label="HRC to">
-        <Input
-          id={`${id}-hrc-max`}
-          type="number"
-          inputMode="decimal"
-          min={0}
-          max={100}
-          step="any"
-          value={filters.hrcMax ?? ''}
-          onChange={(e) => set('hrcMax', e.target.value)}
-        />
-      </Field>
-      <div className="col-span-2 flex items-end lg:col-span-1">
-        <Button variant="quiet" onClick={() => setFilters({})} disabled={!any}>
-          Clear filters
-        </Button>
+    <fieldset className="min-w-0">
+      <legend className="font-medium">
+        {legend}
+        {value.length ? <span className="ml-2 text-sm font-normal text-muted">({value.length} chosen)</span> : <span className="ml-2 text-sm font-normal text-muted">(all)</span>}
+      </legend>
+      <div className={`mt-1 grid max-h-44 gap-x-4 gap-y-1 overflow-y-auto rounded-md border border-rule bg-panel p-2 text-sm ${columns === 1 ? '' : 'sm:grid-cols-2'}`}>
+        {options.map(([v, label]) => (
+          <label key={v} className="flex items-center gap-2">
+            <input
+              type="checkbox"
+              name={name}
+              value={v}
+              checked={chosen.has(v)}
+              onChange={(e) => onChange(e.target.checked ? [...value, v] : value.filter((x) => x !== v))}
+            />
+            <span>{label}</span>
+          </label>
+        ))}
       </div>
+    </fieldset>
+  );
+}
+
+/** A native multiple-choice list bound to one URL key as a comma list; nothing chosen means all. */
+function MultiSelect({ id, label, options, value, onChange }: { id: string; label: string; options: [string, string][]; value: string[]; onChange: (next: string[]) => void }) {
+  return (
+    <Field id={id} label={label} aside={value.length ? `${value.length} chosen` : 'all'} hint="Ctrl-click (⌘ on a Mac) to choose several; none chosen means all.">
+      <Select id={id} multiple size={Math.min(6, options.length)} value={value} onChange={(e) => onChange([...e.target.selectedOptions].map((o) => o.value))} className="pr-3">
+        {options.map(([v, text]) => (
+          <option key={v} value={v}>
+            {text}
+          </option>
+        ))}
+      </Select>
+      {value.length ? (
+        <button type="button" className="self-start text-sm text-accent-strong underline" onClick={() => onChange([])}>
+          Clear {label.toLowerCase()}
+        </button>
+      ) : null}
+    </Field>
+  );
+}
+
+function Group({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <div className="flex flex-col gap-3">
+      <h2 className="text-sm font-semibold uppercase tracking-wide text-muted">{title}</h2>
+      {children}
+    </div>
+  );
+}
+
+/**
+ * The comparison's filters, each bound to the URL: method version, steels, steel category,
+ * abrasive material, bond, grit band range and width, hardness (HRC; other scales converted),
+ * angle per side, publishers only, and the posting dates.
+ */
+export function CompareFilters({ methods, steels }: CompareFiltersProps) {
+  const { filters, update } = useCompareUrl();
+  const id = useId();
+  const set = (key: FilterKey, value: string | undefined) => update({ [key]: value });
+  const any = FILTER_KEYS.some((k) => filters[k]);
+  const [scale, setScale] = useState<HardnessScale>('HRC');
+  const [hardness, setHardness] = useState<{ min: string; max: string }>({ min: '', max: '' });
+  const [hardnessError, setHardnessError] = useState<string | undefined>();
+
+  // Hardness typed in another scale is converted to HRC (ASTM E140, shared/hardness.ts).
+  const applyHardness = (which: 'min' | 'max', text: string) => {
+    setHardness((h) => ({ ...h, [which]: text }));
+    const key = which === 'min' ? 'hrcMin' : 'hrcMax';
+    if (scale === 'HRC' || text === '') {
+      setHardnessError(undefined);
+      set(key, text || undefined);
+      return;
+    }
+    try {
+      const hrc = toHrc(Number(text), scale);
+      setHardnessError(undefined);
+      set(key, String(Math.round(hrc * 10) / 10));
+    } catch (err) {
+      setHardnessError(err instanceof Error ? err.message : 'not a hardness this table converts');
+    }
+  };
+
+  const byCategory = [...steels].sort((a, b) => a.name.localeCompare(b.name));
+  return (
+    <form aria-label="Filter the comparison" onSubmit={(e) => e.preventDefault()} className="grid gap-6 rounded-md border border-rule bg-panel p-4 lg:grid-cols-3">
+      <Group title="What was measured">
+        <Field id={`${id}-method`} label="Method version" hint="Results are compared only within one version of a method.">
+          <Select id={`${id}-method`} value={filters.method ?? ''} onChange={(e) => set('method', e.target.value || undefined)}>
+            <option value="">The one with the most results</option>
+            {methods.map((m) => (
+              <option key={m.slug} value={m.slug}>
+                {m.name}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <MultiSelect id={`${id}-steel`} label="Steel" options={byCategory.map((s) => [s.slug, s.name])} value={listOf(filters.steel)} onChange={(v) => set('steel', v.join(',') || undefined)} />
+        <MultiSelect id={`${id}-category`} label="Category" options={Object.entries(STEEL_CATEGORIES)} value={listOf(filters.category)} onChange={(v) => set('category', v.join(',') || undefined)} />
+      </Group>
+
+      <Group title="Abrasive">
+        <MultiSelect id={`${id}-material`} label="Abrasive material" options={Object.entries(ABRASIVE_MATERIALS)} value={listOf(filters.material)} onChange={(v) => set('material', v.join(',') || undefined)} />
+        <CheckList legend="Bond" name="bond" options={Object.entries(BONDS)} value={listOf(filters.bond)} onChange={(v) => set('bond', v.join(',') || undefined)} />
+        <div className="grid grid-cols-2 gap-3">
+          <Field id={`${id}-um-min`} label="Particles from">
+            <Select id={`${id}-um-min`} value={filters.umMin ?? ''} onChange={(e) => set('umMin', e.target.value || undefined)}>
+              <option value="">any size</option>
+              {EDGES_UM.map((um) => (
+                <option key={um} value={String(um)}>
+                  {formatEdgeUm(um)} µm
+                </option>
+              ))}
+            </Select>
+          </Field>
+          <Field id={`${id}-um-max`} label="to">
+            <Select id={`${id}-um-max`} value={filters.umMax ?? ''} onChange={(e) => set('umMax', e.target.value || undefined)}>
+              <option value="">any size</option>
+              {EDGES_UM.map((um) => (
+                <option key={um} value={String(um)}>
+                  {formatEdgeUm(um)} µm
+                </option>
+              ))}
+            </Select>
+          </Field>
+        </div>
+        <Field id={`${id}-step`} label="Grit band width" hint="φ = −log2(d / 1 mm): a whole band doubles the particle size; a half band is √2 wide.">
+          <Select id={`${id}-step`} value={filters.step ?? '1'} onChange={(e) => set('step', e.target.value === '1' ? undefined : e.target.value)}>
+            <option value="1">Whole φ (e.g. 7.81–15.6 µm)</option>
+            <option value="0.5">Half φ (e.g. 11–15.6 µm)</option>
+          </Select>
+        </Field>
+      </Group>
+
+      <Group title="The edges">
+        <div className="grid grid-cols-3 gap-3">
+          <Field id={`${id}-scale`} label="Scale">
+            <Select id={`${id}-scale`} value={scale} onChange={(e) => setScale(e.target.value as HardnessScale)}>
+              {HARDNESS_SCALES.map((s) => (
+                <option key={s}>{s}</option>
+              ))}
+            </Select>
+          </Field>
+          <Field id={`${id}-hrc-min`} label="Hardness from" error={hardnessError}>
+            <Input
+              id={`${id}-hrc-min`}
+              type="number"
+              inputMode="decimal"
+              step="any"
+              value={scale === 'HRC' ? (filters.hrcMin ?? '') : hardness.min}
+              onChange={(e) => applyHardness('min', e.target.value)}
+            />
+          </Field>
+          <Field id={`${id}-hrc-max`} label="to">
+            <Input
+              id={`${id}-hrc-max`}
+              type="number"
+              inputMode="decimal"
+              step="any"
+              value={scale === 'HRC' ? (filters.hrcMax ?? '') : hardness.max}
+              onChange={(e) => applyHardness('max', e.target.value)}
+            />
+          </Field>
+        </div>
+        {scale !== 'HRC' && (filters.hrcMin || filters.hrcMax) ? (
+          <p className="text-sm text-muted">
+            Filtering on {filters.hrcMin ?? 'any'}–{filters.hrcMax ?? 'any'} HRC (converted per ASTM E140).
+          </p>
+        ) : null}
+        <div className="grid grid-cols-2 gap-3">
+          <Field id={`${id}-angle-min`} label="Angle per side from (°)">
+            <Input id={`${id}-angle-min`} type="number" inputMode="decimal" step="any" min={0} max={90} value={filters.angleMin ?? ''} onChange={(e) => set('angleMin', e.target.value || undefined)} />
+          </Field>
+          <Field id={`${id}-angle-max`} label="to (°)">
+            <Input id={`${id}-angle-max`} type="number" inputMode="decimal" step="any" min={0} max={90} value={filters.angleMax ?? ''} onChange={(e) => set('angleMax', e.target.value || undefined)} />
+          </Field>
+        </div>
+        <div className="grid grid-cols-2 gap-3">
+          <Field id={`${id}-from`} label="Posted from">
+            <Input id={`${id}-from`} type="date" value={filters.postedFrom ?? ''} onChange={(e) => set('postedFrom', e.target.value || undefined)} />
+          </Field>
+          <Field id={`${id}-to`} label="to">
+            <Input id={`${id}-to`} type="date" value={filters.postedTo ?? ''} onChange={(e) => set('postedTo', e.target.value || undefined)} />
+          </Field>
+        </div>
+        <label className="flex items-center gap-2">
+          <input type="checkbox" checked={filters.publisher === '1'} onChange={(e) => set('publisher', e.target.checked ? '1' : undefined)} />
+          <span>Only results from verified publishers</span>
+        </label>
+        <div>
+          <Button
+            variant="quiet"
+            disabled={!any}
+            onClick={() => {
+              setHardness({ min: '', max: '' });
+              update(Object.fromEntries(FILTER_KEYS.map((k) => [k, undefined])));
+            }}
+          >
+            Clear every filter
+          </Button>
+        </div>
+      </Group>
     </form>
   );
 }

@@ -9,6 +9,7 @@ export const HIT_GROUPS: { type: SearchHitType; heading: string }[] = [
   { type: 'abrasive', heading: 'Abrasives' },
   { type: 'method', heading: 'Methods' },
   { type: 'result', heading: 'Results' },
+  { type: 'cell', heading: 'Comparison cells' },
 ];
 
 /** Where a hit leads: its reference page, or the result itself. */
@@ -22,6 +23,9 @@ export function hitHref(hit: SearchHit): string | null {
       return hit.slug ? paths.method.getHref(hit.slug) : null;
     case 'result':
       return hit.id !== undefined ? paths.result.getHref(hit.id) : null;
+    case 'cell':
+      // The comparison on that steel and material, with the cell's results open.
+      return hit.cell ? paths.compare.getHref({ method: hit.cell.method, steel: hit.cell.ref.split(':')[0], material: hit.cell.ref.split(':')[1], cell: hit.cell.ref }) : null;
   }
 }
 
@@ -42,7 +46,7 @@ export function SearchHits({ hits, query, facets }: { hits: SearchHit[]; query: 
               {group.map((hit) => {
                 const href = hitHref(hit);
                 return (
-                  <li key={`${hit.type}-${hit.slug ?? hit.id}`} className="px-4 py-3">
+                  <li key={`${hit.type}-${hit.cell?.method ?? ''}-${hit.slug ?? hit.id}`} className="px-4 py-3">
                     {href ? (
                       <Link to={href} className="font-semibold">
                         <Highlight text={hit.title} query={query} />
