@@ -6,95 +6,23 @@
  * headless Debian Chromium; elements are found by role and label. It builds nothing: `dist/`
  * must exist (`npx vite build`).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
-import os from 'node:os';
-import path from 'node:path';
 import Papa from 'papaparse';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startE2eApp, type E2eApp } from '../setup/e2e-app';
 
-const CHROMIUM = '/usr/bin/chromium';
-// Without the background-networking flags Chromium keeps dialling out on a closed network.
-const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
-
-/** A free loopback port in [from, to] (this suite's range), found by trying to listen. */
-async function portIn(from: number, to: number): Promise<number> {
-  for (let port = from; port <= to; port += 1) {
-    const free = await new Promise<boolean>((resolve) => {
-      const srv = net.createServer();
-      srv.once('error', () => resolve(false));
-      srv.listen(port, '127.0.0.1', () => srv.close(() => resolve(true)));
-    });
-    if (free) return port;
-  }
-  throw new Error(`no free port in ${from}–${to}`);
-}
-
-let server: ChildProcess | undefined;
-let serverOutput = '';
-let dataDir = '';
-let profileDir = '';
+let app: E2eApp;
 let base = '';
-let context: BrowserContext;
 let page: Page;
 
 beforeAll(async () => {
-  if (!fs.existsSync(path.resolve('dist/index.html'))) throw new Error('dist/index.html is missing: build the client first (npx vite build); this test builds nothing');
   // This suite's ports: 3580–3599.
-  const port = await portIn(3580, 3599);
-  const oauthPort = await portIn(port + 1, 3599);
-  const smtpPort = await portIn(oauthPort + 1, 3599);
-  const s3Port = await portIn(smtpPort + 1, 3599);
-  dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-e2e-compare-'));
-  base = `http://127.0.0.1:${port}`;
-  server = spawn('npx', ['tsx', 'server/index.ts'], {
-    cwd: process.cwd(),
-    env: { ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'info', PORT: String(port), OAUTH_PORT: String(oauthPort), SMTP_PORT: String(smtpPort), S3_PORT: String(s3Port), DATA_DIR: dataDir },
-    detached: true,
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`the server did not get ready in 60 s:\n${serverOutput}`)), 60_000);
-    server!.stdout!.on('data', (chunk: Buffer) => {
-      serverOutput += chunk.toString();
-      if (serverOutput.includes('Edgeledger ready at')) {
-        clearTimeout(timer);
-        resolve();
-      }
-    });
-    server!.stderr!.on('data', (chunk: Buffer) => (serverOutput += chunk.toString()));
-    server!.once('exit', (code) => {
-      clearTimeout(timer);
-      reject(new Error(`the server exited (${code}) before it was ready:\n${serverOutput}`));
-    });
-  });
-  profileDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-e2e-chromium-'));
-  context = await chromium.launchPersistentContext(profileDir, { executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 1400, height: 1000 }, acceptDownloads: true });
-  page = context.pages()[0] ?? (await context.newPage());
-  page.setDefaultTimeout(20_000);
+  app = await startE2eApp('compare', [3580, 3599], { width: 1400, height: 1000 });
+  ({ base, page } = app);
 }, 90_000);
 
-afterAll(async () => {
-  await context?.close().catch(() => undefined);
-  if (server?.pid && server.exitCode === null) {
-    const exited = new Promise((resolve) => server!.once('exit', resolve));
-    try {
-      process.kill(-server.pid, 'SIGTERM');
-    } catch {
-      // already gone
-    }
-    if ((await Promise.race([exited, new Promise((r) => setTimeout(r, 10_000, 'timeout'))])) === 'timeout') {
-      try {
-        process.kill(-server.pid, 'SIGKILL');
-      } catch {
-        // already gone
-      }
-    }
-  }
-  for (const dir of [profileDir, dataDir]) if (dir) fs.rmSync(dir, { recursive: true, force: true });
-}, 30_000);
+afterAll(() => app?.stop(), 30_000);
 
 const table = () => page.getByRole('region', { name: 'Comparison table' });
 
@@ -132,9 +60,12 @@ describe('the comparison in a browser', () => {
     // the table follows: only the chosen steels, medians descending, the live-path notice shown
     await expect.poll(async () => (await rowsText()).every((t) => /AISI D2|AISI 52100|AISI O1/.test(t))).toBe(true);
     await page.getByText(/hardness filter needs each result/).waitFor();
-    const medians = await table().locator('tbody tr').evaluateAll((rows) => rows.map((r) => Number((r.children[6] as HTMLElement).innerText.replace(/[^\d.]/g, ''))));
-    expect(medians.length).toBeGreaterThan(1);
-    for (let i = 1; i < medians.length; i++) expect(medians[i]).toBeLessThanOrEqual(medians[i - 1]);
+    // The sorted rows arrive with the refetch after the URL changes: poll rather than read once.
+    const medians = () => table().locator('tbody tr').evaluateAll((rows) => rows.map((r) => Number((r.children[6] as HTMLElement).innerText.replace(/[^\d.]/g, ''))));
+    await expect.poll(async () => {
+      const m = await medians();
+      return m.length > 1 && m.every((v, i) => i === 0 || v <= m[i - 1]);
+    }).toBe(true);
     before = await rowsText();
   }, 60_000);
 

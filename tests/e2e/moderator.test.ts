@@ -5,38 +5,13 @@
  * the real server over a fresh data folder, in headless Debian Chromium; elements are found by
  * role and label. It builds nothing: `dist/` must exist.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import fs from 'node:fs';
-import net from 'node:net';
-import os from 'node:os';
-import path from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startE2eApp, type E2eApp } from '../setup/e2e-app';
 import { IMPORT_COLUMNS, toCsv } from '../../shared/csv';
 
-const CHROMIUM = '/usr/bin/chromium';
-// Without the background-networking flags Chromium keeps dialling out on a closed network.
-const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
-
-/** A free loopback port in [from, to] (this suite's range), found by trying to listen. */
-async function portIn(from: number, to: number): Promise<number> {
-  for (let port = from; port <= to; port += 1) {
-    const free = await new Promise<boolean>((resolve) => {
-      const srv = net.createServer();
-      srv.once('error', () => resolve(false));
-      srv.listen(port, '127.0.0.1', () => srv.close(() => resolve(true)));
-    });
-    if (free) return port;
-  }
-  throw new Error(`no free port in ${from}–${to}`);
-}
-
-let server: ChildProcess | undefined;
-let serverOutput = '';
-let dataDir = '';
-let profileDir = '';
+let app: E2eApp;
 let base = '';
-let context: BrowserContext | undefined;
 let page: Page;
 
 async function api<T>(pathname: string, init?: RequestInit): Promise<{ status: number; body: T }> {
@@ -46,60 +21,12 @@ async function api<T>(pathname: string, init?: RequestInit): Promise<{ status: n
 }
 
 beforeAll(async () => {
-  if (!fs.existsSync(path.resolve('dist/index.html'))) throw new Error('dist/index.html is missing: build the client first (npx vite build); this test builds nothing');
-  // This suite's ports: 3660–3679 (the publisher's suite uses 3640–3659).
-  const port = await portIn(3660, 3679);
-  const oauthPort = await portIn(port + 1, 3679);
-  const smtpPort = await portIn(oauthPort + 1, 3679);
-  const s3Port = await portIn(smtpPort + 1, 3679);
-  dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-e2e-moderator-'));
-  base = `http://127.0.0.1:${port}`;
-  server = spawn('npx', ['tsx', 'server/index.ts'], {
-    cwd: process.cwd(),
-    env: { ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'info', PORT: String(port), OAUTH_PORT: String(oauthPort), SMTP_PORT: String(smtpPort), S3_PORT: String(s3Port), DATA_DIR: dataDir },
-    detached: true,
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`the server did not get ready in 60 s:\n${serverOutput}`)), 60_000);
-    server!.stdout!.on('data', (chunk: Buffer) => {
-      serverOutput += chunk.toString();
-      if (serverOutput.includes('Edgeledger ready at')) {
-        clearTimeout(timer);
-        resolve();
-      }
-    });
-    server!.stderr!.on('data', (chunk: Buffer) => (serverOutput += chunk.toString()));
-    server!.once('exit', (code) => {
-      clearTimeout(timer);
-      reject(new Error(`the server exited (${code}) before it was ready:\n${serverOutput}`));
-    });
-  });
-  profileDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-e2e-chromium-'));
-  context = await chromium.launchPersistentContext(profileDir, { executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 1280, height: 900 }, acceptDownloads: true });
-  page = context.pages()[0] ?? (await context.newPage());
-  page.setDefaultTimeout(20_000);
+  // This suite's ports: 3660–3679.
+  app = await startE2eApp('moderator', [3660, 3679]);
+  ({ base, page } = app);
 }, 90_000);
 
-afterAll(async () => {
-  await context?.close().catch(() => undefined);
-  if (server?.pid && server.exitCode === null) {
-    const exited = new Promise((resolve) => server!.once('exit', resolve));
-    try {
-      process.kill(-server.pid, 'SIGTERM');
-    } catch {
-      // already gone
-    }
-    if ((await Promise.race([exited, new Promise((r) => setTimeout(r, 10_000, 'timeout'))])) === 'timeout') {
-      try {
-        process.kill(-server.pid, 'SIGKILL');
-      } catch {
-        // already gone
-      }
-    }
-  }
-  for (const dir of [profileDir, dataDir]) if (dir) fs.rmSync(dir, { recursive: true, force: true });
-}, 30_000);
+afterAll(() => app?.stop(), 30_000);
 
 interface Account {
   handle: string;
