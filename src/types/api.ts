@@ -90,20 +90,6 @@ export interface Page<T> {
   total: number;
 }
 
-export interface CompareRow {
-  method: string;
-  methodName: string;
-  steel: string;
-  steelName: string;
-  material: string;
-  materialLabel: string;
-  gritBand: GritBand;
-  n: number;
-  testers: number;
-  sharpnessG: { median: number; q1: number; q3: number; mean: number; sd: number | null; ci95: [number, number] | null };
-  retentionCuts: { median: number } | null;
-}
-
 export type SearchHitType = 'steel' | 'abrasive' | 'method' | 'result' | 'cell';
 
 export interface SearchHit {
