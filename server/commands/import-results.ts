@@ -6,7 +6,6 @@ import { importLimits, type ImportError, type ImportPreviewRow, type ImportRepor
 import { ComputationError } from '@shared/computation-error';
 import { deriveResult } from '@shared/derive-result';
 import type { GritStandard } from '@shared/grit';
-import type { RichTextNode } from '@shared/rich-text';
 import type { AppContext } from '../context';
 import { badRequest, forbidden, HttpError } from '../errors';
 import { Abrasive, ImportBatch, ImportBatchResult, Method, Result, ResultEvent, Steel } from '../models';
@@ -45,34 +44,6 @@ function delimiterOf(text: string): string {
   const header = text.slice(0, Math.max(0, text.search(/\r?\n/)) || text.length);
   const counts = [',', ';', '\t'].map((d) => ({ d, n: header.split(d).length - 1 }));
   return counts.sort((a, b) => b.n - a.n)[0].n > 0 ? counts[0].d : ',';
-}
-
-const escapeText = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
-
-/**
- * The HTML of notes made of plain paragraphs (what an import cell becomes), identical to what
- * the rich-text renderer gives for them (checked in tests/api/import.test.ts) but without its
- * cost: the TipTap renderer takes about 5 ms a document, over 50 s for a 10 000-row file.
- * Null for any other document, which then goes through the renderer.
- */
-export function plainNotesHtml(doc: RichTextNode | undefined): string | null {
-  if (!doc) return '';
-  if (doc.type !== 'doc') return null;
-  const parts: string[] = [];
-  for (const p of doc.content ?? []) {
-    const text = p.content?.length === 1 ? p.content[0] : undefined;
-    if (p.type !== 'paragraph' || !text || text.type !== 'text' || text.marks?.length || typeof text.text !== 'string') return null;
-    parts.push(`<p>${escapeText(text.text)}</p>`);
-  }
-  return parts.join('');
-}
-
-/** A result's stored row, with plain notes rendered cheaply (see plainNotesHtml). */
-function importRow(authorId: number, status: 'pending' | 'approved', input: ResultInput, refs: ResultReferences) {
-  const html = plainNotesHtml(input.notes);
-  if (html === null) return resultRow(authorId, status, input, refs);
-  const { notes: _notes, ...withoutNotes } = input;
-  return { ...resultRow(authorId, status, withoutNotes, refs), input, notesHtml: html };
 }
 
 /** One valid row, ready to store. */
@@ -201,7 +172,7 @@ export async function importResults(ctx: AppContext, actor: Actor, bytes: Buffer
   if (report.errors.length || !valid.length) throw new ImportRefused(report);
   const status = report.publishesAtOnce ? 'approved' : 'pending';
   const now = new Date();
-  const rows = valid.map((v) => ({ ...importRow(actor.id, status, v.input, v.refs), approvedAt: status === 'approved' ? now : null }));
+  const rows = valid.map((v) => ({ ...resultRow(actor.id, status, v.input, v.refs), approvedAt: status === 'approved' ? now : null }));
 
   const { importId, ids } = await ctx.db.write(async (transaction) => {
     const batch = await ImportBatch.create({ publisherId: actor.id, rows: rows.length, status }, { transaction });

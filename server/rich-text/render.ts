@@ -70,6 +70,31 @@ function cachedGenerateHTML(doc: RichTextNode): string {
  */
 export function renderRichText(doc: RichTextNode | null | undefined, options: RenderOptions = {}): string {
   if (!doc) return '';
+  return plainParagraphsHtml(doc) ?? renderWithTipTap(doc, options);
+}
+
+const escapeText = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+
+/**
+ * The HTML of a document made only of unmarked paragraphs (what an imported notes cell or a
+ * plain note becomes), identical to TipTap's output for it (checked by a property test) but
+ * without building a DOM: TipTap takes about 5 ms a document, over 50 s for a 10 000-row import.
+ * Null for any other document. The output is escaped text in <p> elements only, so it needs no
+ * second sanitising pass.
+ */
+export function plainParagraphsHtml(doc: RichTextNode): string | null {
+  if (doc.type !== 'doc') return null;
+  const parts: string[] = [];
+  for (const p of doc.content ?? []) {
+    const text = p.content?.length === 1 ? p.content[0] : undefined;
+    if (p.type !== 'paragraph' || !text || text.type !== 'text' || text.marks?.length || typeof text.text !== 'string') return null;
+    parts.push(`<p>${escapeText(text.text)}</p>`);
+  }
+  return parts.join('');
+}
+
+/** The general path: TipTap's renderer with the shared extensions, then sanitize-html. */
+export function renderWithTipTap(doc: RichTextNode, options: RenderOptions = {}): string {
   const html = cachedGenerateHTML(doc);
   return sanitizeHtml(html, { ...sanitizeOptions, transformTags: { a: linkTransform(options) } });
 }

@@ -5,8 +5,7 @@ import { demoHandle, signIn, startTestServer } from '../setup/test-server';
 import { ImportBatch, Result, ResultEvent } from '../../server/models';
 import fc from 'fast-check';
 import { IMPORT_COLUMNS, mapHeader, neutraliseFormula, plainToRichText, rowToResultInput, toCsv } from '../../shared/csv';
-import { plainNotesHtml } from '../../server/commands/import-results';
-import { renderRichText } from '../../server/rich-text/render';
+import { plainParagraphsHtml, renderWithTipTap } from '../../server/rich-text/render';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let publisher: Awaited<ReturnType<typeof signIn>>;
@@ -67,7 +66,7 @@ describe('notes of imported rows', () => {
     fc.assert(
       fc.property(fc.string({ unit: 'grapheme', maxLength: 80 }), fc.string({ maxLength: 20 }), (a, b) => {
         const doc = plainToRichText(`${a}\n\n${b}<&>"'`);
-        expect(plainNotesHtml(doc)).toBe(renderRichText(doc));
+        expect(plainParagraphsHtml(doc)).toBe(renderWithTipTap(doc));
       }),
       { numRuns: 150 },
     );
