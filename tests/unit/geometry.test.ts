@@ -2,16 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { ComputationError } from '@shared/computation-error';
 import { angleFromSetup, gapForAngle, projectionForAngle, wearDrift, type WheelSetup } from '@shared/geometry';
-
-function computationError(fn: () => unknown): ComputationError {
-  try {
-    fn();
-  } catch (err) {
-    expect(err).toBeInstanceOf(ComputationError);
-    return err as ComputationError;
-  }
-  throw new Error('expected a ComputationError, none was thrown');
-}
+import { computationError } from '../setup/computation-error';
 
 /** A setup from the model's quantities: wheel radius R, bar-axis distance d, projection L, bar diameter. */
 function setupFrom(R: number, d: number, L: number, bar = 12): WheelSetup {

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { ComputationError } from '@shared/computation-error';
 import {
   GRIT_STANDARDS,
   GRIT_STANDARD_LABELS,
@@ -16,17 +15,7 @@ import {
   superabrasiveRanges,
   type GritStandard,
 } from '@shared/grit';
-
-/** Run `fn` and return the ComputationError it throws (fails the test if it throws nothing else). */
-function computationError(fn: () => unknown): ComputationError {
-  try {
-    fn();
-  } catch (err) {
-    expect(err).toBeInstanceOf(ComputationError);
-    return err as ComputationError;
-  }
-  throw new Error('expected a ComputationError, none was thrown');
-}
+import { computationError } from '../setup/computation-error';
 
 describe('FEPA F microgrits: ds50 by sedimentation', () => {
   // FEPA 42-2:2006 / ISO 8486-2:2007, ds50 in µm (from memory)

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { ComputationError } from '@shared/computation-error';
 import {
   BRINELL_NORMAL_MAX_HBW,
   HARDNESS_SCALES,
@@ -11,16 +10,7 @@ import {
   toHrc,
   type HardnessScale,
 } from '@shared/hardness';
-
-function computationError(fn: () => unknown): ComputationError {
-  try {
-    fn();
-  } catch (err) {
-    expect(err).toBeInstanceOf(ComputationError);
-    return err as ComputationError;
-  }
-  throw new Error('expected a ComputationError, none was thrown');
-}
+import { computationError } from '../setup/computation-error';
 
 // ASTM E140 Table 1, non-austenitic steels: HRC, HV, HBW (null: no value), HRA.
 // Rows seen in a retrieved copy (R), cited as E140-05 and E140-12b; HRC 62 HV is 745 in some

@@ -1,17 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { ComputationError } from '@shared/computation-error';
 import { ICP_CYCLES, ICP_MIN_MM, MAX_CYCLES, TCC_CYCLES, TCC_MIN_MM, cardCutRetention } from '@shared/retention';
-
-function computationError(fn: () => unknown): ComputationError {
-  try {
-    fn();
-  } catch (err) {
-    expect(err).toBeInstanceOf(ComputationError);
-    return err as ComputationError;
-  }
-  throw new Error('expected a ComputationError, none was thrown');
-}
+import { computationError } from '../setup/computation-error';
 
 describe('ISO 8442-5:2004 card-cutting test', () => {
   it('counts ICP over the first 3 cycles and TCC over 60 (R), with minimums 50 mm and 150 mm (from memory)', () => {

@@ -1,18 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import * as ss from 'simple-statistics';
-import { ComputationError } from '@shared/computation-error';
 import { mean, meanCi95, median, quantile, sampleSd, studentTCdf, studentTQuantile, summarize } from '@shared/stats';
-
-function computationError(fn: () => unknown): ComputationError {
-  try {
-    fn();
-  } catch (err) {
-    expect(err).toBeInstanceOf(ComputationError);
-    return err as ComputationError;
-  }
-  throw new Error('expected a ComputationError, none was thrown');
-}
+import { computationError } from '../setup/computation-error';
 
 function relativeError(actual: number, expected: number): number {
   return Math.abs(actual - expected) / Math.abs(expected);
