@@ -1,5 +1,5 @@
 import { PageTitle } from '@/components/ui/page-title';
-import { Empty, ErrorState, Loading } from '@/components/ui/states';
+import { ListStates } from '@/components/ui/states';
 import { useAbrasives } from '@/features/abrasives/api/get-abrasives';
 import { AbrasivesTable } from '@/features/abrasives/components/abrasives-table';
 
@@ -11,15 +11,9 @@ export default function AbrasivesRoute() {
       <PageTitle title="Abrasives" lead="Generic abrasive types: material, bond, form, grit, size, and whether they wear.">
         Abrasives
       </PageTitle>
-      {list.isPending ? (
-        <Loading />
-      ) : list.isError ? (
-        <ErrorState error={list.error} onRetry={() => list.refetch()} />
-      ) : list.data.items.length === 0 ? (
-        <Empty title="No abrasive pages yet" />
-      ) : (
-        <AbrasivesTable abrasives={list.data.items} />
-      )}
+      <ListStates query={list} emptyTitle="No abrasive pages yet">
+        {(items) => <AbrasivesTable abrasives={items} />}
+      </ListStates>
     </div>
   );
 }

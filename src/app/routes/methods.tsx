@@ -1,5 +1,5 @@
 import { PageTitle } from '@/components/ui/page-title';
-import { Empty, ErrorState, Loading } from '@/components/ui/states';
+import { ListStates } from '@/components/ui/states';
 import { useMethods } from '@/features/methods/api/get-methods';
 import { MethodsTable } from '@/features/methods/components/methods-table';
 
@@ -11,15 +11,9 @@ export default function MethodsRoute() {
       <PageTitle title="Methods" lead="Written test protocols. Every result names the method, and version, it was measured with.">
         Methods
       </PageTitle>
-      {list.isPending ? (
-        <Loading />
-      ) : list.isError ? (
-        <ErrorState error={list.error} onRetry={() => list.refetch()} />
-      ) : list.data.items.length === 0 ? (
-        <Empty title="No methods written yet" />
-      ) : (
-        <MethodsTable methods={list.data.items} />
-      )}
+      <ListStates query={list} emptyTitle="No methods written yet">
+        {(items) => <MethodsTable methods={items} />}
+      </ListStates>
     </div>
   );
 }

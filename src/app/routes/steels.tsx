@@ -1,5 +1,5 @@
 import { PageTitle } from '@/components/ui/page-title';
-import { Empty, ErrorState, Loading } from '@/components/ui/states';
+import { ListStates } from '@/components/ui/states';
 import { useSteels } from '@/features/steels/api/get-steels';
 import { SteelsTable } from '@/features/steels/components/steels-table';
 
@@ -11,15 +11,9 @@ export default function SteelsRoute() {
       <PageTitle title="Steels" lead="Standard steel grades with their designations in each standard, composition and typical hardness.">
         Steels
       </PageTitle>
-      {list.isPending ? (
-        <Loading />
-      ) : list.isError ? (
-        <ErrorState error={list.error} onRetry={() => list.refetch()} />
-      ) : list.data.items.length === 0 ? (
-        <Empty title="No steel pages yet" />
-      ) : (
-        <SteelsTable steels={list.data.items} />
-      )}
+      <ListStates query={list} emptyTitle="No steel pages yet">
+        {(items) => <SteelsTable steels={items} />}
+      </ListStates>
     </div>
   );
 }

@@ -49,3 +49,20 @@ export function ErrorState({ error, onRetry, title = 'This could not be loaded' 
     </div>
   );
 }
+
+/** The query fields ListStates reads: TanStack Query's result for a list endpoint. */
+interface ListQuery<T> {
+  isPending: boolean;
+  isError: boolean;
+  error: unknown;
+  data: { items: T[] } | undefined;
+  refetch: () => unknown;
+}
+
+/** A list's loading, error and empty states, or its items through `children` once there are some. */
+export function ListStates<T>({ query, emptyTitle, children }: { query: ListQuery<T>; emptyTitle: string; children: (items: T[]) => ReactNode }) {
+  if (query.isPending) return <Loading />;
+  if (query.isError || !query.data) return <ErrorState error={query.error} onRetry={() => query.refetch()} />;
+  if (query.data.items.length === 0) return <Empty title={emptyTitle} />;
+  return <>{children(query.data.items)}</>;
+}

@@ -70,7 +70,7 @@ export function ResultsTable({ results, label, caption, showStatus, hideAuthor }
               id: 'reviewNote',
               header: 'Reviewer’s note',
               enableSorting: false,
-              cell: (info) => <span className="block max-w-xs text-sm">{info.getValue() || '—'}</span>,
+              cell: (info) => <span className="block min-w-64 max-w-xs text-sm">{info.getValue() || "—"}</span>,
             }),
           ]
         : []),
