@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { matchedSpans, SearchIndex, transpositions, type SearchDoc } from '../../server/search/search-index';
+import { matchedSpans, SearchIndex, tokenizeQuery, transpositions, type SearchDoc } from '../../server/search/search-index';
 
 const docs: SearchDoc[] = [
   { key: 'steel:aisi-52100', type: 'steel', slug: 'aisi-52100', title: 'AISI 52100', names: 'AISI 52100 SAE 52100 EN 100Cr6 WNr 1.3505 JIS SUJ2', body: 'A bearing steel, very clean for rolling contact.', group: 'low-alloy' },
@@ -77,5 +77,67 @@ describe('matchedSpans', () => {
     expect(matchedSpans('WNr 1.2379 and EN X153CrMoV12', ['12379'])).toEqual([[4, 10]]);
     expect(matchedSpans('WNr 1.2379', ['1.2379'])).toEqual([[4, 10]]);
     expect(matchedSpans('Steel, steels.', ['steel'])).toEqual([[0, 5]]);
+  });
+});
+
+describe('results and the pages they refer to', () => {
+  const d2 = { key: 'steel:1', words: 'AISI D2 D2 1.2379 SKD11' };
+  const cbn = { key: 'abrasive:7:B126', words: 'CBN wheel B126 cubic boron nitride cbn B126 126 µm' };
+  const diamond = { key: 'abrasive:8:D46', words: 'Diamond plate D46 diamond D46 46 µm' };
+  const result = (id: number, owners: { key: string; words: string }[], notes = ''): SearchDoc => ({ key: `result:${id}`, type: 'result', id, title: `Result ${id}`, names: '', body: notes, owners });
+  const withResults = async () => {
+    const s = new SearchIndex();
+    await s.rebuild([...docs, result(1, [d2, cbn], 'Burr came off cleanly'), result(2, [d2, diamond]), result(3, [d2, cbn])]);
+    return s;
+  };
+
+  it('matches a result through its owners, every term through one of them or its own words', async () => {
+    const s = await withResults();
+    expect(s.search('d2 cbn', 'result').hits.map((h) => h.id).sort()).toEqual([1, 3]);
+    expect(s.search('skd11 diamond', 'result').hits.map((h) => h.id)).toEqual([2]);
+    expect(s.search('cbn burr', 'result').hits.map((h) => h.id)).toEqual([1]);
+    expect(s.search('diamond burr', 'result').hits).toEqual([]);
+    // The result's own title is not indexed: its words are its owners'.
+    expect(s.search('result').facets.result).toBe(0);
+  });
+
+  it('counts every matching result in the facet and shows at most the limit', async () => {
+    const s = await withResults();
+    const r = s.search('d2', 'result', 2);
+    expect(r.facets.result).toBe(3);
+    expect(r.hits).toHaveLength(2);
+  });
+
+  it('ranks a result that matches in its own words above one that matches only through an owner', async () => {
+    const s = new SearchIndex();
+    await s.rebuild([result(1, [d2]), result(2, [d2], 'Tested on D2 at two angles')]);
+    expect(s.search('d2', 'result').hits.map((h) => h.id)).toEqual([2, 1]);
+  });
+
+  it('follows a renamed owner, a moved result and a removed one at once', async () => {
+    const s = await withResults();
+    s.upsert(result(3, [{ ...d2, words: 'AISI D2 renamed wobbleword' }, cbn]));
+    expect(s.search('wobbleword', 'result').facets.result).toBe(3);
+    s.upsert(result(2, [d2, cbn]));
+    expect(s.search('diamond', 'result').facets.result).toBe(0);
+    expect(s.search('cbn', 'result').facets.result).toBe(3);
+    s.remove('result:1');
+    expect(s.search('cbn', 'result').hits.map((h) => h.id).sort()).toEqual([2, 3]);
+    expect(s.size).toBe(docs.length + 2);
+  });
+
+  it('highlights the owner words that matched in the result title', async () => {
+    const s = new SearchIndex();
+    await s.rebuild([{ ...result(1, [d2, cbn]), title: 'AISI D2 at 61 HRC on CBN wheel B126' }]);
+    const [hit] = s.search('d2 cbn').hits;
+    expect(hit.titleHighlights.map(([a, b]) => hit.title.slice(a, b))).toEqual(['D2', 'CBN']);
+  });
+});
+
+describe('tokenizeQuery', () => {
+  it('drops words too common to search by, unless nothing else is left', () => {
+    expect(tokenizeQuery('diamond 15 µm at 60 HRC')).toEqual(['diamond', '15', '60']);
+    expect(tokenizeQuery('the')).toEqual(['the']);
+    expect(tokenizeQuery('1.2379, X153CrMoV12')).toEqual(['1.2379', 'x153crmov12']);
   });
 });
