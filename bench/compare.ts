@@ -362,12 +362,14 @@ async function searchPhase() {
   await ask('reset-loop');
   const times: number[] = [];
   const hitsOf: Record<string, number> = {};
+  const slowest: Record<string, number> = {};
   for (let round = 0; round < 5; round++) {
     for (const q of SEARCH_QUERIES) {
       const s = performance.now();
       const res = await fetch(`${ready.url}/api/search?q=${encodeURIComponent(q)}`);
       const body = (await res.json()) as { facets: Record<string, number> };
       times.push(performance.now() - s);
+      slowest[q] = Math.max(slowest[q] ?? 0, performance.now() - s);
       if (!res.ok) throw new Error(`search ${q}: ${res.status}`);
       hitsOf[q] = Object.values(body.facets).reduce((a, b) => a + b, 0);
     }
@@ -382,7 +384,8 @@ async function searchPhase() {
   say(
     `search at ${ready.searchDocuments} documents (HTTP, ${times.length} requests): p50 ${figures.searchP50Ms} ms, p95 ${figures.searchP95Ms} ms, max ${figures.searchMaxMs} ms; ` +
       `event loop max delay ${figures.searchLoopMaxMs} ms; index ready ${figures.indexReadyMs} ms (boot ${figures.searchBootMs} ms); ` +
-      `FTS5 same docs and queries p50 ${figures.ftsP50Ms} ms, p95 ${figures.ftsP95Ms} ms; most hits: "${heaviest[0]}" ${heaviest[1]}`,
+      `FTS5 same docs and queries p50 ${figures.ftsP50Ms} ms, p95 ${figures.ftsP95Ms} ms; most hits: "${heaviest[0]}" ${heaviest[1]}; slowest: ` +
+      Object.entries(slowest).sort((x, y) => y[1] - x[1]).slice(0, 4).map(([q, t]) => `"${q}" ${ms(t)} ms`).join(', '),
   );
   await ask('stop');
 }

@@ -19,7 +19,8 @@ async function docsOf(cells: CellRecord[]): Promise<SearchDoc[]> {
     if (!method) continue;
     if (!overall.has(c.methodId)) overall.set(c.methodId, (await methodCells(c.methodId, 1)).overallMedianG);
     const row = presentCell({ method, look }, c, overall.get(c.methodId) ?? null);
-    docs.push(cellDoc(row, look.steels.get(c.steelId)?.designations ?? []));
+    const steel = look.steels.get(c.steelId);
+    if (steel) docs.push(cellDoc(row, steel, method));
   }
   return docs;
 }

@@ -4,6 +4,7 @@ import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '@shared/vocabulary'
 import { Abrasive, Method, Result, Steel, User } from '../models';
 import type { SearchDoc } from './search-index';
 import { allCellDocs } from '../aggregates/cell-search';
+import { abrasiveOwner, memberOwner, methodOwner, steelOwner, type SearchOwner } from './owners';
 
 const label = (table: Record<string, string>, key: string) => table[key] ?? key;
 
@@ -45,15 +46,17 @@ export function methodDoc(method: Method, aliases: string[] = []): SearchDoc {
   };
 }
 
+/** What of a result its search document shows. */
+type ResultFacts = Pick<Result, 'id' | 'hrc' | 'perSideDeg' | 'sharpnessMedianG'> & { input: { notes?: RichTextNode }; steel?: { name: string }; abrasive?: { name: string } };
+
 /**
  * An approved result as a search document (needs steel, abrasive, author and method loaded). Its
  * own words are its notes; its steel, abrasive at its grit, method and author lend it
  * theirs (see SearchIndex), so a query on a grade or a material matches the result too.
  */
-export function resultDoc(result: Result): SearchDoc {
+export function resultDoc(result: ResultFacts, owners: SearchOwner[] = resultOwners(result as Result)): SearchDoc {
   const steel = result.steel!;
   const abrasive = result.abrasive!;
-  const method = result.sharpnessMethod;
   return {
     key: `result:${result.id}`,
     type: 'result',
@@ -61,16 +64,19 @@ export function resultDoc(result: Result): SearchDoc {
     title: `${steel.name} at ${Math.round(result.hrc * 10) / 10} HRC on ${abrasive.name}, ${Math.round(result.perSideDeg * 10) / 10}° per side: ${Math.round(result.sharpnessMedianG)} g median`,
     names: '',
     body: richTextToPlain(result.input.notes),
-    owners: [
-      { key: `steel:${result.steelId}`, words: [steel.name, ...steel.designations.map((d) => d.code)].join(' ') },
-      {
-        key: `abrasive:${result.abrasiveId}:${result.gritGrade}`,
-        words: [abrasive.name, label(ABRASIVE_MATERIALS, result.material), result.material, result.gritGrade, `${Math.round(result.gritUm * 10) / 10} µm`].join(' '),
-      },
-      ...(method ? [{ key: `method:${result.sharpnessMethodId}`, words: method.name }] : []),
-      ...(result.author ? [{ key: `member:${result.authorId}`, words: result.author.handle }] : []),
-    ],
+    owners,
   };
+}
+
+/** The owners a result takes its words from (needs steel, abrasive, author and method loaded). */
+function resultOwners(result: Result): SearchOwner[] {
+  const method = result.sharpnessMethod;
+  return [
+    steelOwner(result.steel!),
+    abrasiveOwner(result.abrasive!, result),
+    ...(method ? [methodOwner(method)] : []),
+    ...(result.author ? [memberOwner(result.author)] : []),
+  ];
 }
 
 /** The includes a result needs to become a search document or to be presented. */
@@ -135,13 +141,14 @@ export async function pageSearchDoc(type: 'steel' | 'abrasive' | 'method', id: n
 export async function resultDocsOfPage(type: 'steel' | 'abrasive' | 'method', id: number): Promise<SearchDoc[]> {
   const where = type === 'steel' ? { steelId: id } : type === 'abrasive' ? { abrasiveId: id } : { [Op.or]: [{ sharpnessMethodId: id }, { retentionMethodId: id }] };
   const rows = await Result.findAll({ where: { ...where, status: 'approved' }, include: resultIncludes, order: [['id', 'ASC']] });
-  return rows.map(resultDoc);
+  return rows.map((r) => resultDoc(r));
 }
 
 /**
  * Every approved result's document, read in pages of 5000 by id (keyset, so each page costs the
  * same) with only the columns a document needs (of the submission, only its notes), the pages it
- * names looked up from maps. Reading them through the model with full includes carried each
+ * names looked up from maps. NOT INDEXED keeps SQLite on the primary key: through the status
+ * index, every page re-read and re-sorted all the approved rows after it (1 s of 2 at 50 000). Reading them through the model with full includes carried each
  * page's rich-text body into every row (measured at 100 000 results: 276 s that way, against a
  * few seconds).
  */
@@ -149,28 +156,41 @@ async function* approvedResultDocs(): AsyncGenerator<SearchDoc> {
   const [steels, abrasives, methods, users] = await Promise.all([
     Steel.findAll({ attributes: ['id', 'name', 'designations'] }),
     Abrasive.findAll({ attributes: ['id', 'name'] }),
-    Method.findAll({ attributes: ['id', 'name'] }),
+    Method.findAll({ attributes: ['id', 'name', 'version'] }),
     User.findAll({ attributes: ['id', 'handle'] }),
   ]);
-  const byId = <T extends { id: number }>(list: T[]) => new Map(list.map((x) => [x.id, x]));
-  const steel = byId(steels);
-  const abrasive = byId(abrasives);
-  const method = byId(methods);
-  const user = byId(users);
+  // Plain copies of the pages, and each owner built once: a getter or a join per row adds up.
+  const steel = new Map(steels.map((s) => [s.id, { id: s.id, name: s.name, designations: s.designations }]));
+  const abrasive = new Map(abrasives.map((a) => [a.id, { id: a.id, name: a.name }]));
+  const method = new Map(methods.map((m) => [m.id, { id: m.id, name: m.name, version: m.version }]));
+  const user = new Map(users.map((u) => [u.id, { id: u.id, handle: u.handle }]));
+  const owners = new Map<string, SearchOwner>();
+  const once = (key: string, build: () => SearchOwner) => owners.get(key) ?? owners.set(key, build()).get(key)!;
   const batch = 5000;
   type Row = Pick<Result, 'id' | 'steelId' | 'abrasiveId' | 'authorId' | 'sharpnessMethodId' | 'material' | 'hrc' | 'perSideDeg' | 'gritGrade' | 'gritUm' | 'sharpnessMedianG'> & { notes: string | null };
-  for (let after = 0; ; ) {
-    const rows = await Result.sequelize!.query<Row>(
+  const page = (after: number) =>
+    Result.sequelize!.query<Row>(
       `SELECT id, steelId, abrasiveId, authorId, sharpnessMethodId, material, hrc, perSideDeg, gritGrade, gritUm, sharpnessMedianG, json_extract(input, '$.notes') AS notes
-       FROM results WHERE status = 'approved' AND id > :after ORDER BY id LIMIT ${batch}`,
+       FROM results NOT INDEXED WHERE status = 'approved' AND id > :after ORDER BY id LIMIT ${batch}`,
       { type: QueryTypes.SELECT, replacements: { after } },
     );
+  for (let next: Promise<Row[]> | null = page(0); next; ) {
+    const rows: Row[] = await next;
+    // SQLite reads the next page on its own thread while this one becomes documents.
+    next = rows.length === batch ? page(rows[rows.length - 1].id) : null;
     for (const r of rows) {
-      // resultDoc reads only these fields; a plain object stands in for the model instance.
-      const input = { notes: r.notes ? (JSON.parse(r.notes) as RichTextNode) : undefined };
-      yield resultDoc({ ...r, input, steel: steel.get(r.steelId), abrasive: abrasive.get(r.abrasiveId), author: user.get(r.authorId), sharpnessMethod: method.get(r.sharpnessMethodId) } as unknown as Result);
+      const s = steel.get(r.steelId)!;
+      const a = abrasive.get(r.abrasiveId)!;
+      const m = method.get(r.sharpnessMethodId);
+      const u = user.get(r.authorId);
+      const resultOwners = [
+        once(`s${r.steelId}`, () => steelOwner(s)),
+        once(`a${r.abrasiveId}:${r.gritGrade}`, () => abrasiveOwner(a, r)),
+        ...(m ? [once(`m${m.id}`, () => methodOwner(m))] : []),
+        ...(u ? [once(`u${u.id}`, () => memberOwner(u))] : []),
+      ];
+      const notes = r.notes ? (JSON.parse(r.notes) as RichTextNode) : undefined;
+      yield resultDoc({ id: r.id, hrc: r.hrc, perSideDeg: r.perSideDeg, sharpnessMedianG: r.sharpnessMedianG, input: { notes }, steel: s, abrasive: a }, resultOwners);
     }
-    if (rows.length < batch) break;
-    after = rows[rows.length - 1].id;
   }
 }

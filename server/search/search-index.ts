@@ -16,9 +16,12 @@ export interface SearchDoc {
   group?: string;
   /** For a comparison cell: where it is and its figures, shown in the hit. */
   cell?: CellFacts;
+  /** Shown as the hit's snippet in place of a piece of the body; not indexed. */
+  summary?: string;
   /**
-   * For a result: what it refers to (steel, abrasive at its grit, method, member), each with the
-   * words it lends. Such a document's title is shown but not indexed: its words are its owners'.
+   * For a result or a cell: the pages and member it refers to (steel, abrasive at its grit,
+   * method, member; see server/search/owners.ts), each with the words it lends. Such a
+   * document's title is shown but not indexed: its words are its owners' and its own names and body.
    */
   owners?: { key: string; words: string }[];
 }
@@ -89,28 +92,34 @@ export function tokenizeQuery(text: string): string[] {
 }
 
 /** What the index keeps of a document to show it as a hit (the indexed text lives in MiniSearch). */
-type ShownDoc = Pick<SearchDoc, 'type' | 'id' | 'slug' | 'title' | 'body' | 'names' | 'group' | 'cell'>;
+type ShownDoc = Pick<SearchDoc, 'type' | 'id' | 'slug' | 'title' | 'body' | 'names' | 'summary' | 'group' | 'cell'>;
 
 const BOOST = { title: 3, names: 3, body: 1 };
-/** A result matched through the page or member it refers to ranks below that page's own hit. */
+/** A document matched through a page or member it refers to ranks below that page's own hit. */
 const OWNER_WEIGHT = 0.5;
+/** Owners one document can have (a result: steel, abrasive at its grit, method, member). */
+const OWNERS_PER_DOC = 4;
+
+type Counts = { facets: Record<SearchDocType, number>; groups: Partial<Record<SearchDocType, Record<string, number>>> };
+type Ranked = { key: string; score: number; terms: string[] };
 
 /**
  * The one in-memory search index over steels, abrasives, methods, comparison cells and approved
- * results, in two MiniSearch indexes:
- * - `index` holds every document's own words. A result's own words are few (its notes), so that
- *   no word is shared by thousands of results.
- * - `owners` holds, once each, the words that results take from what they refer to: the steel
- *   (name, designations), the abrasive at its grit (name, material, grit), the method and the
- *   member. A result matches a query term through its own words or through one of its owners;
- *   `members` maps each owner to its results.
- * MiniSearch spends a few microseconds on every document a term matches; this keeps a common
- * word ("cbn", a steel's grade, a method's name) from costing one step per result.
- * Prefix matching only on the last term and fuzzy matching only on terms of 5 or more
- * characters keep the number of candidate terms, and so the time per query, small.
+ * results, in three MiniSearch indexes:
+ * - `pages` holds the reference pages, a hundred or so, whole.
+ * - `own` holds the own words of the documents that refer to pages (results: their notes; cells:
+ *   their material and grit band), which are few, so that no word is shared by thousands of them.
+ * - `owners` holds, once each, the words such documents take from what they refer to: the steel
+ *   (name, designations), the abrasive at its grit, the method, the member.
+ * A result or cell matches a query term through its own words or through one of its owners. The
+ * owners' numbers sit in typed arrays (`OwnerTable`), so a common word ("cbn", a steel's grade, a
+ * method's name) costs a few array reads per document, where MiniSearch would spend a few
+ * microseconds on each. Prefix matching only on the last term and fuzzy matching only on terms
+ * of 5 or more characters keep the number of candidate terms, and so the time per query, small.
  */
 export class SearchIndex {
-  private index = SearchIndex.create();
+  private pages = SearchIndex.create();
+  private own = SearchIndex.create();
   private owners = SearchIndex.createOwners();
   private table = new OwnerTable();
   private readonly docs = new Map<string, ShownDoc>();
@@ -119,9 +128,8 @@ export class SearchIndex {
     return new MiniSearch<SearchDoc>({
       idField: 'key',
       fields: ['title', 'names', 'body'],
-      storeFields: ['type'],
       tokenize,
-      // A result's title is made of its owners' names, which are indexed once, in `owners`.
+      // The title of a document with owners is made of its owners' names, indexed in `owners`.
       extractField: (doc, field) => (field === 'title' && doc.owners ? '' : (doc as unknown as Record<string, string>)[field]),
       searchOptions: { tokenize: tokenizeQuery },
     });
@@ -137,33 +145,56 @@ export class SearchIndex {
 
   /** Replaces the whole index with `docs`. */
   async rebuild(docs: AsyncIterable<SearchDoc> | Iterable<SearchDoc>): Promise<void> {
-    const own: SearchDoc[] = [];
+    const pageDocs: SearchDoc[] = [];
+    const ownDocs: SearchDoc[] = [];
     const shown = new Map<string, ShownDoc>();
     const table = new OwnerTable();
     for await (const d of docs) {
       shown.set(d.key, shownOf(d));
-      if (d.owners) table.add(d.key, d.owners);
-      // A result without notes has no words of its own to index.
-      if (!d.owners || d.body || d.names) own.push(d);
+      if (!d.owners) pageDocs.push(d);
+      else {
+        table.add(d);
+        // A result without notes has no words of its own to index.
+        if (d.body || d.names) ownDocs.push(d);
+      }
     }
-    const index = SearchIndex.create();
-    await index.addAllAsync(own, { chunkSize: 500 });
+    const pages = SearchIndex.create();
+    await pages.addAllAsync(pageDocs, { chunkSize: 500 });
+    const own = SearchIndex.create();
+    await own.addAllAsync(ownDocs, { chunkSize: 500 });
     const owners = SearchIndex.createOwners();
     owners.addAll(table.ownerKeys.map((key, n) => ({ key, words: table.words[n] })));
-    this.index = index;
-    this.owners = owners;
-    this.table = table;
+    [this.pages, this.own, this.owners, this.table] = [pages, own, owners, table];
     this.docs.clear();
     for (const [k, v] of shown) this.docs.set(k, v);
+    this.warmUp();
+  }
+
+  /**
+   * A few searches over the index's own commonest words, one of each kind (one word, several,
+   * a typo, a number as a prefix), so that the first people to search after a start do not wait
+   * while the JavaScript engine compiles the search code.
+   */
+  private warmUp(): void {
+    const biggest = [...this.table.members.keys()].sort((a, b) => this.table.members[b].size - this.table.members[a].size).slice(0, 3);
+    for (const n of biggest) {
+      const words = tokenizeQuery(this.table.words[n]).slice(0, 3);
+      const long = words.find((w) => w.length >= 5);
+      const queries = [words[0], words.join(' '), ...(long ? [`${long.slice(0, -2)}${long.at(-1)}${long.at(-2)}`] : []), `${words[0]} 1`];
+      for (const q of queries) if (q) this.search(q);
+    }
   }
 
   /** Adds or replaces one document. */
   upsert(doc: SearchDoc): void {
     this.remove(doc.key);
-    if (!doc.owners || doc.body || doc.names) this.index.add(doc);
     this.docs.set(doc.key, shownOf(doc));
-    if (!doc.owners) return;
-    for (const o of this.table.add(doc.key, doc.owners)) {
+    if (!doc.owners) {
+      this.pages.add(doc);
+      return;
+    }
+    if (doc.body || doc.names) this.own.add(doc);
+    for (const o of this.table.add(doc)) {
       // An owner seen for the first time, or one whose words changed (a page renamed).
       if (this.owners.has(o.key)) this.owners.discard(o.key);
       this.owners.add(o);
@@ -173,55 +204,46 @@ export class SearchIndex {
   /** Removes one document if present. */
   remove(key: string): void {
     if (!this.docs.has(key)) return;
-    if (this.index.has(key)) this.index.discard(key);
+    for (const index of [this.pages, this.own]) if (index.has(key)) index.discard(key);
     this.docs.delete(key);
     this.table.remove(key);
   }
 
   /** Hits for `query`, best first, and the number of hits of each type before the type filter. */
-  search(query: string, type?: SearchDocType, limit = 30): { hits: SearchHit[]; facets: Record<SearchDocType, number>; groups: Partial<Record<SearchDocType, Record<string, number>>> } {
+  search(query: string, type?: SearchDocType, limit = 30): { hits: SearchHit[] } & Counts {
     const terms = tokenizeQuery(query);
+    const counts: Counts = { facets: { steel: 0, abrasive: 0, method: 0, result: 0, cell: 0 }, groups: {} };
+    if (!terms.length) return { hits: [], ...counts };
     const queries = terms.map((t, i) => termQuery(t, i === terms.length - 1));
-    // Pages and cells: every term among their own words.
-    const pages: SearchResult[] = terms.length
-      ? this.index.search({ combineWith: 'AND', queries }, { boost: BOOST, filter: (r) => r.type !== 'result' })
-      : [];
-    const results = terms.length ? this.searchResults(queries, type === 'result' || !type ? limit : 0) : { count: 0, top: [] };
-    const facets: Record<SearchDocType, number> = { steel: 0, abrasive: 0, method: 0, result: results.count, cell: 0 };
-    for (const r of pages) facets[r.type as SearchDocType] += 1;
-    // Sub-facets (category of steels, material of abrasives) over every hit of the type.
-    const groups: Partial<Record<SearchDocType, Record<string, number>>> = {};
-    for (const r of pages) {
-      const group = this.docs.get(r.id as string)?.group;
-      if (!group) continue;
-      const counts = (groups[r.type as SearchDocType] ??= {});
-      counts[group] = (counts[group] ?? 0) + 1;
-    }
-    const ranked = [...pages.filter((r) => !type || r.type === type).slice(0, limit).map((r) => ({ key: r.id as string, score: r.score, terms: r.terms })), ...results.top]
+    const pages = this.pages.search({ combineWith: 'AND', queries }, { boost: BOOST });
+    for (const r of pages) countHit(counts, this.docs.get(r.id as string)!);
+    const owned = this.searchOwned(queries, type, limit, counts);
+    const ranked = [...pages.filter((r) => !type || this.docs.get(r.id as string)!.type === type).slice(0, limit).map((r) => ({ key: r.id as string, score: r.score, terms: r.terms })), ...owned]
       .sort((a, b) => b.score - a.score)
       .slice(0, limit);
     const hits = ranked.map((r) => {
       const doc = this.docs.get(r.key)!;
-      const piece = snippet(doc, r.terms);
+      const piece = doc.summary !== undefined ? { text: doc.summary, highlights: matchedSpans(doc.summary, r.terms) } : snippet(doc, r.terms);
       return {
         type: doc.type, id: doc.id, slug: doc.slug, title: doc.title,
         snippet: piece.text, highlights: piece.highlights, titleHighlights: matchedSpans(doc.title, r.terms), ...(doc.group ? { group: doc.group } : {}),
         score: Math.round(r.score * 100) / 100, ...(doc.cell ? { cell: doc.cell } : {}) };
     });
-    return { hits, facets, groups };
+    return { hits, ...counts };
   }
 
   /**
-   * Results that match every query term through their own words or an owner's: how many, and the
-   * best `limit` of them. The term that matches fewest results picks the candidates; each
-   * candidate is then scored on every term from its owners' numbers, so a common term costs a few
-   * array reads per candidate, not one MiniSearch step per result.
+   * Results and cells that match every query term through their own words or an owner's, counted
+   * into `counts`; returns the best `limit` of them (of `type`, if given). The term that reaches
+   * fewest documents picks the candidates; each candidate is then scored on every term from its
+   * owners' numbers, in plain loops over typed arrays, so a common term costs a few array reads
+   * per candidate.
    */
-  private searchResults(queries: Query[], limit: number): { count: number; top: { key: string; score: number; terms: string[] }[] } {
+  private searchOwned(queries: Query[], type: SearchDocType | undefined, limit: number, counts: Counts): Ranked[] {
     const table = this.table;
     const perTerm = queries.map((q) => {
       const own = new Map<number, SearchResult>();
-      for (const r of this.index.search(q, { boost: BOOST, filter: (x) => x.type === 'result' })) own.set(table.slotOf(r.id as string)!, r);
+      for (const r of this.own.search(q, { boost: BOOST })) own.set(table.slotOf(r.id as string)!, r);
       const owners = new Map<number, SearchResult>();
       const ownerScore = new Float64Array(table.ownerKeys.length);
       let size = own.size;
@@ -232,74 +254,104 @@ export class SearchIndex {
         ownerScore[n] = r.score * OWNER_WEIGHT;
         size += table.members[n].size;
       }
-      return { own, owners, ownerScore, size };
+      // The own-word scores by slot, for the loop below (0: no match).
+      const ownScore = new Map<number, number>([...own].map(([slot, r]) => [slot, r.score]));
+      return { own, owners, ownerScore, ownScore, size };
     });
     type Term = (typeof perTerm)[number];
     const driver = perTerm.reduce((a, b) => (b.size < a.size ? b : a), perTerm[0]);
-    if (!driver || driver.size === 0) return { count: 0, top: [] };
+    if (driver.size === 0) return [];
+    const candidates = table.candidates(driver.own.keys(), [...driver.owners.keys()]);
     const owned = table.owned;
-    /** How well the result in `slot` matches term `t`: its own words, or its best owner; 0 for not at all. */
-    const termScore = (t: Term, slot: number): number => {
-      let best = t.own.size ? (t.own.get(slot)?.score ?? 0) : 0;
-      if (t.owners.size) {
-        for (let j = slot * OWNERS_PER_RESULT, end = j + OWNERS_PER_RESULT; j < end; j++) {
-          const o = owned[j];
-          if (o >= 0 && t.ownerScore[o] > best) best = t.ownerScore[o];
-        }
-      }
-      return best;
-    };
-    let count = 0;
+    const typeOf = table.typeCode;
+    const groupOf = table.groupCode;
+    const wanted = type ? TYPE_CODES.indexOf(type) : -1;
+    const typeCounts = new Int32Array(TYPE_CODES.length);
+    const groupCounts = new Int32Array(table.groupNames.length);
     const top: { slot: number; score: number }[] = [];
-    // A result reached from two sources of the driving term is counted once.
-    const seen = driver.own.size + driver.owners.size > 1 ? new Set<number>() : null;
-    const consider = (slot: number) => {
-      if (seen) {
-        if (seen.has(slot)) return;
-        seen.add(slot);
-      }
+    let floor = -Infinity;
+    for (let c = 0; c < candidates.length; c++) {
+      const slot = candidates[c];
+      const base = slot * OWNERS_PER_DOC;
       let score = 0;
+      let matched = true;
       for (const t of perTerm) {
-        const s = termScore(t, slot);
-        if (s === 0) return;
-        score += s;
+        let best = t.ownScore.size ? (t.ownScore.get(slot) ?? 0) : 0;
+        const os = t.ownerScore;
+        for (let j = base; j < base + OWNERS_PER_DOC; j++) {
+          const o = owned[j];
+          if (o >= 0 && os[o] > best) best = os[o];
+        }
+        if (best === 0) {
+          matched = false;
+          break;
+        }
+        score += best;
       }
-      count += 1;
-      // Keep the best `limit`, best first.
-      if (limit === 0 || (top.length === limit && score <= top[limit - 1].score)) return;
+      if (!matched) continue;
+      typeCounts[typeOf[slot]] += 1;
+      if (groupOf[slot] >= 0) groupCounts[groupOf[slot]] += 1;
+      // Keep the best `limit` of the type asked for, best first.
+      if (score <= floor || (wanted >= 0 && typeOf[slot] !== wanted)) continue;
       const at = top.findIndex((x) => score > x.score);
       top.splice(at === -1 ? top.length : at, 0, { slot, score });
       if (top.length > limit) top.pop();
-    };
-    for (const slot of driver.own.keys()) consider(slot);
-    for (const n of driver.owners.keys()) for (const slot of table.members[n]) consider(slot);
-    // The matched words, for the highlights, only for the results shown.
+      if (top.length === limit) floor = top[limit - 1].score;
+    }
+    TYPE_CODES.forEach((t, i) => (counts.facets[t] += typeCounts[i]));
+    groupCounts.forEach((n, g) => {
+      if (!n) return;
+      const [t, name] = table.groupNames[g];
+      const groups = (counts.groups[t] ??= {});
+      groups[name] = (groups[name] ?? 0) + n;
+    });
+    // The matched words, for the highlights, only for the documents shown.
     const termsOf = (t: Term, slot: number): string[] => {
-      const s = termScore(t, slot);
-      if (t.own.get(slot)?.score === s) return t.own.get(slot)!.terms;
-      for (let j = slot * OWNERS_PER_RESULT; j < (slot + 1) * OWNERS_PER_RESULT; j++) if (owned[j] >= 0 && t.ownerScore[owned[j]] === s) return t.owners.get(owned[j])!.terms;
-      return [];
+      const own = t.own.get(slot);
+      let best = own ? { score: own.score, terms: own.terms } : { score: 0, terms: [] as string[] };
+      for (let j = slot * OWNERS_PER_DOC; j < (slot + 1) * OWNERS_PER_DOC; j++) {
+        const o = owned[j];
+        if (o >= 0 && t.ownerScore[o] > best.score) best = { score: t.ownerScore[o], terms: t.owners.get(o)!.terms };
+      }
+      return best.terms;
     };
-    return { count, top: top.map(({ slot, score }) => ({ key: table.keyOf(slot), score, terms: perTerm.flatMap((t) => termsOf(t, slot)) })) };
+    return top.map(({ slot, score }) => ({ key: table.keyOf(slot), score, terms: perTerm.flatMap((t) => termsOf(t, slot)) }));
   }
 }
 
-const OWNERS_PER_RESULT = 4;
+const TYPE_CODES: SearchDocType[] = ['steel', 'abrasive', 'method', 'result', 'cell'];
+
+/** Counts a hit into the type facets and its type's groups. */
+function countHit(counts: Counts, doc: Pick<ShownDoc, 'type' | 'group'>): void {
+  counts.facets[doc.type] += 1;
+  if (!doc.group) return;
+  const groups = (counts.groups[doc.type] ??= {});
+  groups[doc.group] = (groups[doc.group] ?? 0) + 1;
+}
 
 /**
- * The results in the index and the owners they take words from, numbered densely so that the
- * search can score a candidate with array reads: `owned` holds each result slot's owner numbers
- * (OWNERS_PER_RESULT per slot, -1 for none), `members` each owner's result slots.
+ * The documents with owners and the owners they take words from, numbered densely so that the
+ * search can score a candidate with array reads: `owned` holds each slot's owner numbers
+ * (OWNERS_PER_DOC per slot, -1 for none), `members` each owner's slots.
  */
 class OwnerTable {
   private readonly slots = new Map<string, number>();
   private readonly keys: string[] = [];
   private readonly free: number[] = [];
-  owned = new Int32Array(1024 * OWNERS_PER_RESULT).fill(-1);
+  owned = new Int32Array(1024 * OWNERS_PER_DOC).fill(-1);
+  /** Each slot's type (index in TYPE_CODES) and group (index in groupNames, -1 for none), for the facets. */
+  typeCode = new Uint8Array(1024);
+  groupCode = new Int32Array(1024).fill(-1);
+  readonly groupNames: [SearchDocType, string][] = [];
+  private readonly groupNumber = new Map<string, number>();
   readonly ownerNumber = new Map<string, number>();
   readonly ownerKeys: string[] = [];
   readonly words: string[] = [];
   readonly members: Set<number>[] = [];
+  /** Per slot, the number of the last search that listed it as a candidate. */
+  private marks = new Uint32Array(1024);
+  private marking = 0;
+  private buffer = new Int32Array(1024);
 
   slotOf(key: string): number | undefined {
     return this.slots.get(key);
@@ -309,18 +361,33 @@ class OwnerTable {
     return this.keys[slot];
   }
 
-  /** Records result `key` and its owners; returns the owners that are new or whose words changed. */
-  add(key: string, owners: { key: string; words: string }[]): { key: string; words: string }[] {
-    if (owners.length > OWNERS_PER_RESULT) throw new Error(`a result has at most ${OWNERS_PER_RESULT} owners`);
-    this.remove(key);
+  /** The slots in `slots` and in the members of `owners`, each once. */
+  candidates(slots: Iterable<number>, owners: number[]): Int32Array {
+    this.marking = (this.marking + 1) >>> 0 || 1;
+    if (this.marking === 1) this.marks.fill(0);
+    const seen = this.marking;
+    let count = 0;
+    const take = (slot: number) => {
+      if (this.marks[slot] === seen) return;
+      this.marks[slot] = seen;
+      this.buffer[count++] = slot;
+    };
+    for (const slot of slots) take(slot);
+    for (const n of owners) for (const slot of this.members[n]) take(slot);
+    return this.buffer.subarray(0, count);
+  }
+
+  /** Records `doc` and its owners; returns the owners that are new or whose words changed. */
+  add(doc: SearchDoc): { key: string; words: string }[] {
+    const owners = doc.owners ?? [];
+    if (owners.length > OWNERS_PER_DOC) throw new Error(`a search document has at most ${OWNERS_PER_DOC} owners`);
+    this.remove(doc.key);
     const slot = this.free.pop() ?? this.keys.length;
-    if ((slot + 1) * OWNERS_PER_RESULT > this.owned.length) {
-      const grown = new Int32Array(this.owned.length * 2).fill(-1);
-      grown.set(this.owned);
-      this.owned = grown;
-    }
-    this.slots.set(key, slot);
-    this.keys[slot] = key;
+    if (slot >= this.typeCode.length) this.grow();
+    this.slots.set(doc.key, slot);
+    this.keys[slot] = doc.key;
+    this.typeCode[slot] = TYPE_CODES.indexOf(doc.type);
+    this.groupCode[slot] = doc.group ? this.groupOf(doc.type, doc.group) : -1;
     const changed: { key: string; words: string }[] = [];
     owners.forEach((o, j) => {
       let n = this.ownerNumber.get(o.key);
@@ -336,7 +403,7 @@ class OwnerTable {
         changed.push(o);
       }
       this.members[n].add(slot);
-      this.owned[slot * OWNERS_PER_RESULT + j] = n;
+      this.owned[slot * OWNERS_PER_DOC + j] = n;
     });
     return changed;
   }
@@ -344,17 +411,42 @@ class OwnerTable {
   remove(key: string): void {
     const slot = this.slots.get(key);
     if (slot === undefined) return;
-    for (let j = slot * OWNERS_PER_RESULT; j < (slot + 1) * OWNERS_PER_RESULT; j++) {
+    for (let j = slot * OWNERS_PER_DOC; j < (slot + 1) * OWNERS_PER_DOC; j++) {
       if (this.owned[j] >= 0) this.members[this.owned[j]].delete(slot);
       this.owned[j] = -1;
     }
     this.slots.delete(key);
     this.free.push(slot);
   }
+
+  private groupOf(type: SearchDocType, group: string): number {
+    const key = `${type}:${group}`;
+    let g = this.groupNumber.get(key);
+    if (g === undefined) {
+      g = this.groupNames.push([type, group]) - 1;
+      this.groupNumber.set(key, g);
+    }
+    return g;
+  }
+
+  /** Doubles every per-slot array. */
+  private grow(): void {
+    const size = this.typeCode.length * 2;
+    const owned = new Int32Array(size * OWNERS_PER_DOC).fill(-1);
+    owned.set(this.owned);
+    const typeCode = new Uint8Array(size);
+    typeCode.set(this.typeCode);
+    const groupCode = new Int32Array(size).fill(-1);
+    groupCode.set(this.groupCode);
+    const marks = new Uint32Array(size);
+    marks.set(this.marks);
+    [this.owned, this.typeCode, this.groupCode, this.marks, this.buffer] = [owned, typeCode, groupCode, marks, new Int32Array(size)];
+  }
 }
 
 function shownOf(d: SearchDoc): ShownDoc {
   const shown: ShownDoc = { type: d.type, title: d.title, body: d.body, names: d.owners ? '' : d.names };
+  if (d.summary !== undefined) shown.summary = d.summary;
   if (d.id !== undefined) shown.id = d.id;
   if (d.slug !== undefined) shown.slug = d.slug;
   if (d.group !== undefined) shown.group = d.group;
