@@ -26,6 +26,7 @@ import { allSearchDocs } from '../server/search/documents';
 import { compareQuerySchema } from '../shared/schemas/compare';
 import type { ResultInput } from '../shared/schemas/result';
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '../shared/vocabulary';
+import { buildServer } from '../scripts/build-server';
 
 const TOTAL_APPROVED = Number(process.env.BENCH_RESULTS ?? 100_000);
 const SEARCH_DOCS = Number(process.env.BENCH_SEARCH_DOCS ?? 50_000);
@@ -230,9 +231,10 @@ interface Ready {
   searchDocuments: number;
 }
 
-function startServer(dataDir: string): Promise<{ child: ChildProcess; ready: Ready; ask: <T>(type: string) => Promise<T> }> {
-  const child = fork(path.resolve('bench/compare-server.ts'), [], {
-    execArgv: ['--import', 'tsx', '--expose-gc'],
+async function startServer(dataDir: string): Promise<{ child: ChildProcess; ready: Ready; ask: <T>(type: string) => Promise<T> }> {
+  // Bundled and run in plain Node, as `npm start` runs the server.
+  const child = fork(await buildServer('bench/compare-server.ts', 'dist-server/bench-server.mjs'), [], {
+    execArgv: ['--expose-gc'],
     env: {
       ...process.env,
       BENCH_DATA_DIR: dataDir,

@@ -5,7 +5,7 @@
  * 1. Builds a temporary database: the demo data's pages and members, then 100 000 approved
  *    results (copies of the demo's invented results, spread over its members and dates),
  *    inserted in bulk through Sequelize in a few transactions, and the comparison cells.
- * 2. Starts the server in production mode on loopback (`node --import tsx server/index.ts`),
+ * 2. Starts the server in production mode on loopback, bundled as `npm start` runs it,
  *    and, separately, a bare Express app answering "hello".
  * 3. With autocannon at 10 connections: hello-world for 10 s; the mix for 30 s (70 % reads
  *    of pages and comparisons, 20 % search, 10 % result submissions by signed-in members);
@@ -28,6 +28,7 @@ import { Database } from '../server/db/database';
 import { loadDemoData } from '../seed/load';
 import { Result, ResultEvent, User } from '../server/models';
 import { rebuildAllCells } from '../server/aggregates/comparison-cells';
+import { buildServer } from '../scripts/build-server';
 
 const TOTAL = Number(process.env.BENCH_RESULTS ?? 100_000);
 const MIX_SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
@@ -121,9 +122,9 @@ async function waitFor(url: string, timeoutMs: number) {
   }
 }
 
-function startServer(): ChildProcess {
+function startServer(bundle: string): ChildProcess {
   const log = fs.openSync(path.join(root, 'server.log'), 'w');
-  const proc = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  const proc = spawn(process.execPath, [bundle], {
     env: {
       ...process.env,
       NODE_ENV: 'production',
@@ -264,7 +265,7 @@ say(`Database ready: ${resultsBefore} results, ${built.cells} comparison cells.`
 
 const hello = startHello();
 await waitFor(`http://${HOST}:${PORTS.hello}/`, 10_000);
-const server = startServer();
+const server = startServer(await buildServer());
 const bootStart = performance.now();
 await Promise.race([
   waitFor(`${base}/api/health`, 420_000),

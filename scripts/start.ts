@@ -1,10 +1,12 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { execFileSync } from 'node:child_process';
+import { execFileSync, spawn } from 'node:child_process';
+import { buildServer } from './build-server';
 
 /**
- * `npm start`: builds the client when dist/ is missing or older than the sources, then starts
- * the server with its local stand-ins.
+ * `npm start`: builds the client when dist/ is missing or older than the sources, bundles the
+ * server (about a second), then runs the bundle in plain Node with its local stand-ins, passing
+ * on SIGTERM and SIGINT (the server finishes the requests under way, then closes the database).
  */
 function newestMtime(dir: string): number {
   let newest = 0;
@@ -21,4 +23,6 @@ if (!fs.existsSync(built) || fs.statSync(built).mtimeMs < sources) {
   console.log('Building the client (vite build) …');
   execFileSync(process.execPath, [path.resolve('node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
 }
-await import('../server/index');
+const server = spawn(process.execPath, [await buildServer()], { stdio: 'inherit' });
+for (const signal of ['SIGTERM', 'SIGINT'] as const) process.on(signal, () => server.kill(signal));
+server.on('exit', (code, signal) => process.exit(code ?? (signal ? 1 : 0)));

@@ -3,8 +3,10 @@ import { boot } from './boot';
 
 /** Entry point: start everything, and shut down gracefully on SIGTERM or SIGINT. */
 const running = await boot(loadEnv());
+// `on`, not `once`: a second signal (Ctrl-C reaches both `npm start` and the server, which passes
+// it on) must not kill the process while it finishes; `stop` runs once however often it is called.
 for (const signal of ['SIGTERM', 'SIGINT'] as const) {
-  process.once(signal, () => {
+  process.on(signal, () => {
     console.log(`${signal}: finishing requests under way, then closing the database.`);
     running.stop().then(
       () => process.exit(0),

@@ -1,0 +1,17 @@
+import { Database } from '../server/db/database';
+import { allSearchDocs } from '../server/search/documents';
+import { SearchIndex, type SearchDoc } from '../server/search/search-index';
+const db = new Database({ storage: '/tmp/bk/full/edgeledger.sqlite' });
+await db.migrate();
+const gc = (globalThis as any).gc;
+const docs: SearchDoc[] = [];
+for await (const d of allSearchDocs()) docs.push(d);
+gc(); const h0 = process.memoryUsage().heapUsed;
+const idx = new SearchIndex(); await idx.rebuild(docs);
+gc(); const h1 = process.memoryUsage().heapUsed;
+const a: any = idx;
+const docsMap = a.docs; a.docs = new Map();
+gc(); const h2 = process.memoryUsage().heapUsed;
+a.docs = docsMap;
+console.log('docs', docs.length, 'index total MB', ((h1 - h0) / 2 ** 20).toFixed(1), 'of which shown docs map', ((h1 - h2) / 2 ** 20).toFixed(1));
+await db.close();
