@@ -56,6 +56,7 @@ export class Database {
           logging: options.logging ? console.log : false,
           pool: { max: 1, idle: 60_000 },
         });
+    if (this.isSqlite) keepOneWriterConnection(this.sequelize);
     initModels(this.sequelize);
   }
 
@@ -87,4 +88,31 @@ export class Database {
     await this.queue.drain();
     await this.sequelize.close();
   }
+}
+
+/**
+ * Sequelize's SQLite dialect opens a new connection for every transaction and closes it at the
+ * end: a file open, the PRAGMAs and a fresh parse of the schema, several milliseconds per write.
+ * Writes here run one at a time (`Database.write`'s queue, the only place that opens a
+ * transaction), so every transaction can use one connection kept open for the process's life.
+ * Reads outside transactions keep Sequelize's default connection.
+ */
+function keepOneWriterConnection(sequelize: Sequelize): void {
+  type Connection = { filename?: string };
+  const manager = sequelize.connectionManager as unknown as {
+    getConnection(options?: { uuid?: string }): Promise<Connection>;
+    releaseConnection(connection: Connection, force?: boolean): void;
+  };
+  const get = manager.getConnection.bind(manager);
+  const release = manager.releaseConnection.bind(manager);
+  let writer: Connection | undefined;
+  manager.getConnection = async (options = {}) => {
+    if (!options.uuid || options.uuid === 'default') return get(options);
+    writer = await get({ ...options, uuid: 'writer' });
+    return writer;
+  };
+  manager.releaseConnection = (connection, force) => {
+    if (connection === writer && !force) return;
+    release(connection, force);
+  };
 }

@@ -102,6 +102,8 @@ const OWNERS_PER_DOC = 4;
 
 type Counts = { facets: Record<SearchDocType, number>; groups: Partial<Record<SearchDocType, Record<string, number>>> };
 type Ranked = { key: string; score: number; terms: string[] };
+type SearchAnswer = { hits: SearchHit[] } & Counts;
+const ANSWERS_KEPT = 500;
 
 /**
  * The one in-memory search index over steels, abrasives, methods, comparison cells and approved
@@ -123,6 +125,12 @@ export class SearchIndex {
   private owners = SearchIndex.createOwners();
   private table = new OwnerTable();
   private readonly docs = new Map<string, ShownDoc>();
+  /**
+   * Answers given since the index last changed, by query: the same words are asked again and
+   * again (the words typed so far, a popular grade), and the index changes only on an approval
+   * or an edit. Cleared by every change; at most ANSWERS_KEPT.
+   */
+  private readonly answers = new Map<string, SearchAnswer>();
 
   private static create() {
     return new MiniSearch<SearchDoc>({
@@ -167,6 +175,7 @@ export class SearchIndex {
     [this.pages, this.own, this.owners, this.table] = [pages, own, owners, table];
     this.docs.clear();
     for (const [k, v] of shown) this.docs.set(k, v);
+    this.answers.clear();
     this.warmUp();
   }
 
@@ -181,13 +190,14 @@ export class SearchIndex {
       const words = tokenizeQuery(this.table.words[n]).slice(0, 3);
       const long = words.find((w) => w.length >= 5);
       const queries = [words[0], words.join(' '), ...(long ? [`${long.slice(0, -2)}${long.at(-1)}${long.at(-2)}`] : []), `${words[0]} 1`];
-      for (const q of queries) if (q) this.search(q);
+      for (const q of queries) if (q) this.answer(q, undefined, 30);
     }
   }
 
   /** Adds or replaces one document. */
   upsert(doc: SearchDoc): void {
     this.remove(doc.key);
+    this.answers.clear();
     this.docs.set(doc.key, shownOf(doc));
     if (!doc.owners) {
       this.pages.add(doc);
@@ -204,13 +214,28 @@ export class SearchIndex {
   /** Removes one document if present. */
   remove(key: string): void {
     if (!this.docs.has(key)) return;
+    this.answers.clear();
     for (const index of [this.pages, this.own]) if (index.has(key)) index.discard(key);
     this.docs.delete(key);
     this.table.remove(key);
   }
 
-  /** Hits for `query`, best first, and the number of hits of each type before the type filter. */
-  search(query: string, type?: SearchDocType, limit = 30): { hits: SearchHit[] } & Counts {
+  /**
+   * Hits for `query`, best first, and the number of hits of each type before the type filter.
+   * The answer may be shared with other callers: read it, do not change it.
+   */
+  search(query: string, type?: SearchDocType, limit = 30): SearchAnswer {
+    const id = `${type ?? ''}|${limit}|${tokenizeQuery(query).join(' ')}`;
+    let answer = this.answers.get(id);
+    if (!answer) {
+      answer = this.answer(query, type, limit);
+      if (this.answers.size >= ANSWERS_KEPT) this.answers.delete(this.answers.keys().next().value!);
+      this.answers.set(id, answer);
+    }
+    return answer;
+  }
+
+  private answer(query: string, type: SearchDocType | undefined, limit: number): SearchAnswer {
     const terms = tokenizeQuery(query);
     const counts: Counts = { facets: { steel: 0, abrasive: 0, method: 0, result: 0, cell: 0 }, groups: {} };
     if (!terms.length) return { hits: [], ...counts };

@@ -61,8 +61,10 @@ describe('SearchIndex', () => {
     expect(titled.titleHighlights.map(([a, b]) => titled.title.slice(a, b))).toEqual(['D2']);
   });
 
-  it('follows upserts and removals at once', async () => {
+  it('follows upserts and removals at once, answers given before included', async () => {
     const s = await index();
+    expect(s.search('coarse').hits.map((h) => h.slug)).toEqual(['aisi-d2']);
+    expect(s.search('wobbleword').hits).toEqual([]);
     s.upsert({ ...docs[1], body: 'Now with a wobbleword.' });
     expect(s.search('wobbleword').hits.map((h) => h.slug)).toEqual(['aisi-d2']);
     expect(s.search('coarse').hits).toEqual([]);
