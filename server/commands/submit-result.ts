@@ -7,15 +7,16 @@ import type { AppContext } from '../context';
 import { badRequest, forbidden, type FieldIssue } from '../errors';
 import { Abrasive, Method, Result, ResultEvent, Steel } from '../models';
 import { renderRichText } from '../rich-text/render';
-import { resultIncludes } from '../search/documents';
+import { PAGE_TEXT_COLUMNS, resultIncludes } from '../search/documents';
 
 /** Looks up the pages a result refers to by slug; every unknown slug is a field issue. */
 async function resolveReferences(input: ResultInput): Promise<ResultReferences> {
+  const attributes = { exclude: PAGE_TEXT_COLUMNS };
   const [steel, abrasive, sharpnessMethod, retentionMethod] = await Promise.all([
-    Steel.findOne({ where: { slug: input.steel } }),
-    Abrasive.findOne({ where: { slug: input.abrasive } }),
-    Method.findOne({ where: { slug: input.sharpness.method } }),
-    input.retention ? Method.findOne({ where: { slug: input.retention.method } }) : Promise.resolve(null),
+    Steel.findOne({ where: { slug: input.steel }, attributes }),
+    Abrasive.findOne({ where: { slug: input.abrasive }, attributes }),
+    Method.findOne({ where: { slug: input.sharpness.method }, attributes }),
+    input.retention ? Method.findOne({ where: { slug: input.retention.method }, attributes }) : Promise.resolve(null),
   ]);
   const issues: FieldIssue[] = [];
   if (!steel) issues.push({ path: 'steel', message: `no steel page "${input.steel}"` });
@@ -62,9 +63,9 @@ export function resultRow(authorId: number, status: ResultStatus, input: ResultI
 
 /**
  * Stores a member's result as `pending`, with its derived values and rendered notes, and
- * records the first step of its trail. Resolves after the commit.
+ * records the first step of its trail. Resolves with its id after the commit.
  */
-export async function submitResult(ctx: AppContext, actor: Actor, input: ResultInput): Promise<Result> {
+export async function submitResult(ctx: AppContext, actor: Actor, input: ResultInput): Promise<number> {
   if (!can(actor, 'create:result')) throw forbidden();
   const row = resultRow(actor.id, 'pending', input, await resolveReferences(input));
   const id = await ctx.db.write(async (transaction) => {
@@ -72,7 +73,7 @@ export async function submitResult(ctx: AppContext, actor: Actor, input: ResultI
     await ResultEvent.create({ resultId: result.id, actorId: actor.id, fromStatus: null, toStatus: 'pending', note: null }, { transaction });
     return result.id;
   });
-  return loadResult(id);
+  return id;
 }
 
 /** A result with everything its presenter needs. */

@@ -81,13 +81,19 @@ function resultOwners(result: Result): SearchOwner[] {
   ];
 }
 
+/**
+ * The page columns a result never shows: a page's rich-text body and its references. Reading
+ * them into every result (and parsing their JSON) was most of a submission's time.
+ */
+export const PAGE_TEXT_COLUMNS = ['body', 'citations', 'sources'];
+
 /** The includes a result needs to become a search document or to be presented. */
 export const resultIncludes = [
-  { model: Steel, as: 'steel' },
-  { model: Abrasive, as: 'abrasive' },
+  { model: Steel, as: 'steel', attributes: { exclude: PAGE_TEXT_COLUMNS } },
+  { model: Abrasive, as: 'abrasive', attributes: { exclude: PAGE_TEXT_COLUMNS } },
   { model: User, as: 'author' },
-  { model: Method, as: 'sharpnessMethod' },
-  { model: Method, as: 'retentionMethod' },
+  { model: Method, as: 'sharpnessMethod', attributes: { exclude: PAGE_TEXT_COLUMNS } },
+  { model: Method, as: 'retentionMethod', attributes: { exclude: PAGE_TEXT_COLUMNS } },
 ];
 
 /** Every document the index holds, read from the database. */

@@ -24,8 +24,8 @@ export function resultsRouter(ctx: AppContext): Router {
 
   router.post('/results', requireUser, validate({ body: resultInputSchema }), async (req, res) => {
     const actor = actorOf(req)!;
-    const result = await submitResult(ctx, actor, req.valid.body as ResultInput);
-    res.status(201).json(presentResult(await findResult(result.id, actor), actor));
+    const id = await submitResult(ctx, actor, req.valid.body as ResultInput);
+    res.status(201).json(presentResult(await findResult(id, actor), actor));
   });
 
   router.get('/results', validate({ query: resultListQuerySchema }), async (req, res) => {
