@@ -5,9 +5,9 @@ import type { ResultInput, ResultStatus } from '@shared/schemas/result';
 import type { GritStandard } from '@shared/grit';
 import type { AppContext } from '../context';
 import { badRequest, forbidden, type FieldIssue } from '../errors';
-import { Abrasive, Method, Result, ResultEvent, Steel } from '../models';
+import { Abrasive, Method, PAGE_TEXT_COLUMNS, Result, ResultEvent, Steel } from '../models';
 import { renderRichText } from '../rich-text/render';
-import { PAGE_TEXT_COLUMNS, resultIncludes } from '../search/documents';
+import { resultIncludes } from '../search/documents';
 
 /** Looks up the pages a result refers to by slug; every unknown slug is a field issue. */
 async function resolveReferences(input: ResultInput): Promise<ResultReferences> {

@@ -27,3 +27,10 @@ export function initModels(sequelize: Sequelize) {
 export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement };
 export { PublisherApplication, ApiToken, ImportBatch, ImportBatchResult, Photo, Flag, AuditEntry, Follow, NotificationSetting, SiteSetting };
 export { PageEvent };
+
+/**
+ * A reference page's long columns: its rich-text body and its references. Whatever lists pages
+ * or names them beside a result leaves them out; reading and parsing their JSON was most of the
+ * time of a submission and of a list.
+ */
+export const PAGE_TEXT_COLUMNS = ['body', 'citations', 'sources'];

@@ -5,7 +5,7 @@ import { median } from '@shared/stats';
 import { changedFields } from '@shared/page-diff';
 import type { Actor } from '@shared/permissions';
 import { presentDeskRevision } from '../presenters/pages';
-import { Abrasive, Method, PageEvent, PageRevision, Result, Steel, User } from '../models';
+import { Abrasive, Method, PAGE_TEXT_COLUMNS, PageEvent, PageRevision, Result, Steel, User } from '../models';
 import { notFound } from '../errors';
 import { onCellsChanged } from '../aggregates/comparison-cells';
 
@@ -57,9 +57,11 @@ export function approvedCounts(by: 'steelId' | 'abrasiveId'): Promise<Map<number
 
 // Lists leave out pages merged into another: their slugs only redirect.
 const notMerged = { mergedIntoId: null };
-export const listSteels = () => Steel.findAll({ where: notMerged, order: [['name', 'ASC']] });
-export const listAbrasives = () => Abrasive.findAll({ where: notMerged, order: [['material', 'ASC'], ['gritUm', 'DESC']] });
-export const listMethods = () => Method.findAll({ where: notMerged, order: [['name', 'ASC'], ['version', 'ASC']] });
+// Lists show summaries: no bodies or references.
+const summary = { exclude: PAGE_TEXT_COLUMNS };
+export const listSteels = () => Steel.findAll({ where: notMerged, attributes: summary, order: [['name', 'ASC']] });
+export const listAbrasives = () => Abrasive.findAll({ where: notMerged, attributes: summary, order: [['material', 'ASC'], ['gritUm', 'DESC']] });
+export const listMethods = () => Method.findAll({ where: notMerged, attributes: summary, order: [['name', 'ASC'], ['version', 'ASC']] });
 
 /** One page by slug, or 404. Finds merged pages too (callers decide whether to redirect). */
 export async function findPage<T extends typeof Steel | typeof Abrasive | typeof Method>(model: T, slug: string, what: string, transaction?: Transaction): Promise<InstanceType<T>> {

@@ -1,7 +1,7 @@
 import { Op, QueryTypes } from 'sequelize';
 import { richTextToPlain, type RichTextNode } from '@shared/rich-text';
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '@shared/vocabulary';
-import { Abrasive, Method, Result, Steel, User } from '../models';
+import { Abrasive, Method, PAGE_TEXT_COLUMNS, Result, Steel, User } from '../models';
 import type { SearchDoc } from './search-index';
 import { allCellDocs } from '../aggregates/cell-search';
 import { abrasiveOwner, memberOwner, methodOwner, steelOwner, type SearchOwner } from './owners';
@@ -80,12 +80,6 @@ function resultOwners(result: Result): SearchOwner[] {
     ...(result.author ? [memberOwner(result.author)] : []),
   ];
 }
-
-/**
- * The page columns a result never shows: a page's rich-text body and its references. Reading
- * them into every result (and parsing their JSON) was most of a submission's time.
- */
-export const PAGE_TEXT_COLUMNS = ['body', 'citations', 'sources'];
 
 /** The includes a result needs to become a search document or to be presented. */
 export const resultIncludes = [

@@ -1,0 +1,38 @@
+import { loadEnv } from '../server/config/env';
+import { boot } from '../server/boot';
+const env = loadEnv({ NODE_ENV: 'development', LOG_LEVEL: 'error', HOST: '127.0.0.1', PORT: '3590', OAUTH_PORT: '3591', SMTP_PORT: '3592', S3_PORT: '3593', DATA_DIR: process.env.DIR!, SEED_DEMO: 'never', RATE_LIMIT_SEARCH_PER_MIN: '100000000', RATE_LIMIT_POSTS_PER_MIN: '100000000', RATE_LIMIT_SIGNIN_PER_MIN: '100000' });
+const running = await boot(env, () => {});
+const base = running.url;
+const start = await fetch(`${base}/auth/signin`, { redirect: 'manual' });
+const first = start.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+const authorize = await fetch(start.headers.get('location')!, { redirect: 'manual' });
+const callback = new URL(authorize.headers.get('location')!);
+const done = await fetch(`${base}${callback.pathname}${callback.search}`, { redirect: 'manual', headers: { Cookie: first } });
+const cookie = done.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ') || first;
+const s = (await (await fetch(`${base}/api/session`, { headers: { Cookie: cookie } })).json()) as { user: unknown; csrfToken: string };
+const body = JSON.stringify({ steel: 'aisi-d2', hardness: { value: 61, scale: 'HRC' }, abrasive: 'cbn-electroplated-wheel-250-b126', edgeAngle: { perSideDeg: 15 }, sharpness: { method: 'push-cut-test-v2', readingsG: [180, 175, 190, 170, 185] }, retention: { method: 'card-cut-retention-v1', cuts: 240 }, notes: { type: 'doc', content: [{ type: 'paragraph', content: [{ type: 'text', text: 'Load-bench submission: ' }, { type: 'text', text: 'invented', marks: [{ type: 'bold' }] }] }] } });
+const post = () => fetch(`${base}/api/results`, { method: 'POST', headers: { 'content-type': 'application/json', cookie, 'x-csrf-token': s.csrfToken }, body }).then(async (r) => { if (r.status !== 201) throw new Error(`${r.status} ${await r.text()}`); });
+for (let i = 0; i < 30; i++) await post();
+{
+  const { Sequelize } = await import('sequelize');
+  const orig = Sequelize.prototype.query;
+  const seen: string[] = [];
+  Sequelize.prototype.query = function (this: any, sql: any, opts: any) { const t0 = performance.now(); const r = orig.call(this, sql, opts); (r as Promise<unknown>).finally(() => seen.push(`${(performance.now() - t0).toFixed(2)} ${String(typeof sql === 'string' ? sql : sql.query).slice(0, 110)}`)); return r; } as any;
+  const t1 = performance.now(); await post(); console.log('one post', (performance.now() - t1).toFixed(2), 'ms,', seen.length, 'queries\n  ' + seen.join('\n  '));
+  Sequelize.prototype.query = orig;
+}
+const { Session } = await import('node:inspector/promises');
+const session = new Session(); session.connect();
+await session.post('Profiler.enable'); await session.post('Profiler.start');
+let t = performance.now();
+for (let i = 0; i < 200; i++) await post();
+console.log('sequential per submission ms', ((performance.now() - t) / 200).toFixed(2));
+t = performance.now();
+await Promise.all(Array.from({ length: 16 }, async () => { for (let i = 0; i < 20; i++) await post(); }));
+console.log('16 concurrent: per submission ms', ((performance.now() - t) / 320).toFixed(2));
+const { profile } = await session.post('Profiler.stop');
+const self = new Map<string, number>();
+const dt = profile.timeDeltas!; const byId = new Map(profile.nodes.map((n) => [n.id, n]));
+profile.samples!.forEach((id, i) => { const n = byId.get(id)!; const k = `${n.callFrame.functionName || '(anon)'} ${n.callFrame.url.split('/').slice(-3).join('/')}:${n.callFrame.lineNumber}`; self.set(k, (self.get(k) ?? 0) + dt[i]); });
+console.log([...self].sort((a, b) => b[1] - a[1]).slice(0, 22).map(([k, v]) => `${(v / 1000).toFixed(0).padStart(6)} ms ${k}`).join('\n'));
+await running.stop(); process.exit(0);
