@@ -9,9 +9,16 @@ declare module 'express-serve-static-core' {
   }
 }
 
-/** Turns zod issues into dotted field paths with messages. */
-export function fieldIssues(error: z.ZodError): FieldIssue[] {
-  return error.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: i.message }));
+/**
+ * Turns zod issues into dotted field paths with messages; an unknown field is named by its own
+ * path ("status", "notes.colour"), one issue each. `part` names an issue about the whole input.
+ */
+export function fieldIssues(error: z.ZodError, part: 'body' | 'query' | 'params' = 'body'): FieldIssue[] {
+  return error.issues.flatMap((i) =>
+    i.code === 'unrecognized_keys'
+      ? i.keys.map((key) => ({ path: [...i.path, key].join('.'), message: 'unknown field: not accepted here' }))
+      : [{ path: i.path.join('.') || `(${part})`, message: i.message }],
+  );
 }
 
 /**
@@ -26,7 +33,7 @@ export function validate(schemas: { body?: z.ZodType; query?: z.ZodType; params?
       if (!schema) continue;
       const parsed = schema.safeParse(req[part] ?? (part === 'body' ? undefined : {}));
       if (!parsed.success) {
-        throw badRequest(`Invalid ${part === 'body' ? 'input' : part}.`, fieldIssues(parsed.error));
+        throw badRequest(`Invalid ${part === 'body' ? 'input' : part}.`, fieldIssues(parsed.error, part));
       }
       req.valid[part] = parsed.data;
     }

@@ -237,7 +237,7 @@ describe('the comparison table', () => {
       ['material=unobtainium', 'material.0'],
       ['postedFrom=yesterday', 'postedFrom'],
       ['publisher=maybe', 'publisher'],
-      ['colour=red', '(body)'],
+      ['colour=red', 'colour'],
     ];
     for (const [qs, path] of cases) {
       const res = await api(`/api/compare?${qs}`).expect(400);

@@ -360,6 +360,14 @@ describe('one server', () => {
       expect(JSON.stringify(badEscape.body)).not.toMatch(/URIError|at /);
     });
 
+    it('refuses a query parameter a route does not take, naming it', async () => {
+      for (const path of ['/api/health', '/api/session', '/api/methods', '/api/publishers', '/api/import/template.csv', '/auth/demo-accounts']) {
+        const res = await request(server.url).get(`${path}?colour=red`).expect(400);
+        expect(res.body.issues, path).toEqual([{ path: 'colour', message: 'unknown field: not accepted here' }]);
+      }
+      await request(server.url).get('/api/health').expect(200);
+    });
+
     it('answers multer’s limits with 413 and logs upload_validation', async () => {
       const app = express();
       app.post('/upload', multer({ limits: { fileSize: 10, files: 1, fields: 5, parts: 6, fieldSize: 100 } }).single('photo'), (_req, res) => {

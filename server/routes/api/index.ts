@@ -22,17 +22,18 @@ import { profilesRouter } from './profiles';
 import { meRouter } from './me';
 import { devRouter } from './dev';
 import type { MailCatcher } from '../../mail/mail-catcher';
+import { emptyQuerySchema } from '@shared/schemas/common';
 
 /** The JSON API under /api. Every state-changing request passes the CSRF check first. */
 export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
   const router = Router();
   router.use(csrfProtection);
 
-  router.get('/health', (_req, res) => {
+  router.get('/health', validate({ query: emptyQuerySchema }), (_req, res) => {
     res.json({ ok: true, searchDocuments: ctx.search.size, pendingWrites: ctx.db.queue.size });
   });
 
-  router.get('/session', (req, res) => {
+  router.get('/session', validate({ query: emptyQuerySchema }), (req, res) => {
     const user = req.user as User | undefined;
     res.set('Cache-Control', 'no-store').json({ user: user ? presentAccount(user) : null, csrfToken: csrfTokenOf(req) });
   });

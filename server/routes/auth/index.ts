@@ -7,6 +7,7 @@ import { csrfProtection } from '../../middleware/auth';
 import { notFound } from '../../errors';
 import { User } from '../../models';
 import { presentAccount } from '../../presenters/user';
+import { emptyQuerySchema } from '@shared/schemas/common';
 
 /** A path inside this site, never another host ("//x" or "/\x" would leave it). */
 const localPath = z
@@ -46,7 +47,7 @@ export function authRouter(ctx: AppContext, auth: passport.PassportStatic): Rout
     });
   });
 
-  router.get('/demo-accounts', async (_req, res) => {
+  router.get('/demo-accounts', validate({ query: emptyQuerySchema }), async (_req, res) => {
     if (ctx.env.isProduction) throw notFound('Demo accounts');
     const users = await User.findAll({ where: { banned: false }, order: [['role', 'ASC'], ['handle', 'ASC']] });
     res.json(users.map(presentAccount));

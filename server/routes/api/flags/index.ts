@@ -9,6 +9,7 @@ import { forbidden } from '../../../errors';
 import { flagItem, resolveFlag } from '../../../commands/flag-item';
 import { openFlags } from '../../../queries/review-desk';
 import { presentFlag } from '../../../presenters/publishing';
+import { emptyQuerySchema } from '@shared/schemas/common';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
@@ -21,7 +22,7 @@ export function flagsRouter(ctx: AppContext): Router {
     res.status(201).json(presentFlag(flag, null));
   });
 
-  router.get('/flags', requireUser, async (req, res) => {
+  router.get('/flags', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     if (!can(actorOf(req), 'resolve:flag')) throw forbidden('Flags are read by moderators.');
     res.json({ items: await openFlags() });
   });

@@ -9,12 +9,13 @@ import { validate } from '../../../middleware/validate';
 import { forbidden } from '../../../errors';
 import { receiveFile } from '../../../storage/upload';
 import { checkImport, ImportRefused, importResults, templateRows } from '../../../commands/import-results';
+import { emptyQuerySchema } from '@shared/schemas/common';
 
 /** Bulk import of results from CSV (publishers): the template, the dry run, the import. */
 export function importRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/import/template.csv', (_req, res) => {
+  router.get('/import/template.csv', validate({ query: emptyQuerySchema }), (_req, res) => {
     res.type('text/csv; charset=utf-8').attachment('edgeledger-import-template.csv').send(toCsv(templateRows()));
   });
 

@@ -15,6 +15,7 @@ import { followPage, unfollowPage } from '../../../commands/follow-page';
 import { updateNotificationSettings } from '../../../commands/update-notification-settings';
 import { verifyUnsubscribe } from '../../../mail/unsubscribe';
 import { resultsCsv } from '../../../presenters/result-csv';
+import { emptyQuerySchema } from '@shared/schemas/common';
 
 const followParams = z.object({ pageType: z.enum(FOLLOWABLE_PAGES), slug: slugSchema }).strict();
 
@@ -22,11 +23,11 @@ const followParams = z.object({ pageType: z.enum(FOLLOWABLE_PAGES), slug: slugSc
 export function meRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/me', requireUser, async (req, res) => {
+  router.get('/me', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     res.set('Cache-Control', 'no-store').json(await ownPage(req.user as User));
   });
 
-  router.get('/me/results.csv', requireUser, async (req, res) => {
+  router.get('/me/results.csv', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     const user = req.user as User;
     res.set('Cache-Control', 'no-store').type('text/csv; charset=utf-8').attachment(`edgeledger-${user.handle}-all-results.csv`).send(resultsCsv(await resultsForExport(user.id, true)));
   });

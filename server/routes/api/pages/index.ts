@@ -4,6 +4,7 @@ import { slugSchema } from '@shared/schemas/result';
 import { can, type Actor } from '@shared/permissions';
 import { gritBandPhi } from '@shared/grit';
 import { matchesComposition, parseCompositionFilter } from '@shared/composition-filter';
+import { emptyQuerySchema } from '@shared/schemas/common';
 import {
   abrasiveListQuerySchema,
   PAGE_SECTIONS,
@@ -144,7 +145,7 @@ export function pagesRouter(ctx: AppContext): Router {
     res.json({ items: items.map((a) => presentAbrasiveSummary(a, counts.get(a.id) ?? 0)) });
   });
 
-  router.get('/methods', async (_req, res) => {
+  router.get('/methods', validate({ query: emptyQuerySchema }), async (_req, res) => {
     const methods = await listMethods();
     const slugById = new Map(methods.map((m) => [m.id, m.slug]));
     res.json({ items: methods.map((m) => presentMethodSummary(m, slugById)) });

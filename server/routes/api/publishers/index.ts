@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { can } from '@shared/permissions';
+import { emptyQuerySchema } from '@shared/schemas/common';
 import {
   applicationDecisionSchema,
   applicationListQuerySchema,
@@ -28,7 +29,7 @@ const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 export function publishersRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/publishers', async (_req, res) => {
+  router.get('/publishers', validate({ query: emptyQuerySchema }), async (_req, res) => {
     const users = await User.findAll({ where: { role: 'publisher', banned: false }, order: [['handle', 'ASC']] });
     res.json({ items: await Promise.all(users.map(async (u) => ({ ...presentAccount(u), badge: await badgeOf(u) }))) });
   });
@@ -51,7 +52,7 @@ export function publishersRouter(ctx: AppContext): Router {
     res.json(presentApplication(await decidePublisherApplication(ctx, actorOf(req)!, id, req.valid.body as ApplicationDecisionInput)));
   });
 
-  router.get('/publishers/settings', requireUser, async (req, res) => {
+  router.get('/publishers/settings', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     if (!can(actorOf(req), 'manage:site-settings')) throw forbidden('Site settings are for admins.');
     res.json(await siteSettings());
   });

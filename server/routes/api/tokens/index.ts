@@ -10,6 +10,7 @@ import { ApiToken } from '../../../models';
 import { createToken } from '../../../commands/create-token';
 import { revokeToken } from '../../../commands/revoke-token';
 import { presentToken } from '../../../presenters/publishing';
+import { emptyQuerySchema } from '@shared/schemas/common';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
@@ -23,7 +24,7 @@ function requireSessionPublisher(req: Request) {
 export function tokensRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/tokens', requireUser, async (req, res) => {
+  router.get('/tokens', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     requireSessionPublisher(req);
     const tokens = await ApiToken.findAll({ where: { userId: actorOf(req)!.id }, order: [['createdAt', 'DESC']] });
     res.set('Cache-Control', 'no-store').json({ items: tokens.map(presentToken) });

@@ -8,6 +8,7 @@ import { validate } from '../../../middleware/validate';
 import { addWheel, measureWheel } from '../../../commands/log-wheel';
 import { notFound } from '../../../errors';
 import { Wheel, WheelMeasurement } from '../../../models';
+import { emptyQuerySchema } from '@shared/schemas/common';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
@@ -31,7 +32,7 @@ export function wheelsRouter(ctx: AppContext): Router {
   const own = (ownerId: number, id?: number) =>
     Wheel.findAll({ where: { ownerId, ...(id ? { id } : {}) }, include: [{ model: WheelMeasurement, as: 'measurements' }], order: [['id', 'ASC']] });
 
-  router.get('/wheels', requireUser, async (req, res) => {
+  router.get('/wheels', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     res.json({ items: (await own(actorOf(req)!.id)).map(presentWheel) });
   });
 
