@@ -93,9 +93,10 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use(auth.initialize());
   app.use(auth.session());
 
-  // API tokens authenticate before the rate limits, so a token's calls count against its account.
-  app.use('/api', bearerToken(ctx));
+  // API tokens authenticate before the other rate limits, so a token's calls count against its
+  // account; refused tokens count against the address first.
   const limits = rateLimits(ctx.env);
+  app.use('/api', limits.tokenGuesses, bearerToken(ctx));
   app.use('/auth/signin', limits.signin);
   app.use('/auth/callback', signInOutcomeLog(SIGN_IN_FAILED_PATH));
   app.use('/api/search', limits.search);

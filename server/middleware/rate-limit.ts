@@ -1,4 +1,4 @@
-import type { Request, RequestHandler } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import type { Env } from '../config/env';
 import { logEvent } from '../logging';
@@ -23,8 +23,14 @@ export function isUpload(req: Request): boolean {
   return !!req.is('multipart/form-data');
 }
 
-function limiter(name: string, perMinute: number, options: { key?: (req: Request) => string; skip?: (req: Request) => boolean }): RequestHandler {
+function limiter(
+  name: string,
+  perMinute: number,
+  options: { key?: (req: Request) => string; skip?: (req: Request) => boolean; counts?: (res: Response) => boolean },
+): RequestHandler {
   return rateLimit({
+    // `counts`: only requests whose answer it picks count (the rest are handed back).
+    ...(options.counts ? { skipSuccessfulRequests: true, requestWasSuccessful: (_req: Request, res: Response) => !options.counts!(res) } : {}),
     windowMs: MINUTE_MS,
     limit: perMinute,
     standardHeaders: 'draft-8',
@@ -42,11 +48,20 @@ function limiter(name: string, perMinute: number, options: { key?: (req: Request
   });
 }
 
-/** The rate limits: sign-in, posting (any write under /api), uploads and search, per client per minute. */
+/** The rate limits: sign-in (and guessed API tokens), posting (any write under /api), uploads and search, per client per minute. */
 export function rateLimits(env: Env) {
   return {
     /** Sign-in starts, per address (nobody is signed in yet). */
     signin: limiter('sign-in', env.RATE_LIMIT_SIGNIN_PER_MIN, { key: (req) => `ip:${ipKeyGenerator(req.ip ?? 'unknown')}` }),
+    /**
+     * Guessed API tokens: requests whose `Authorization` header is refused with 401 (an unknown,
+     * revoked or malformed token), per address, at the sign-in rate. A valid token is not counted.
+     */
+    tokenGuesses: limiter('api-token', env.RATE_LIMIT_SIGNIN_PER_MIN, {
+      key: (req) => `ip:${ipKeyGenerator(req.ip ?? 'unknown')}`,
+      skip: (req) => !req.get('authorization'),
+      counts: (res) => res.statusCode === 401,
+    }),
     /**
      * Writes under /api other than uploads. The calculators (/api/tools/*) compute and store
      * nothing, so a form that recalculates on every change is not counted as posting.

@@ -479,9 +479,17 @@ describe('rate limits (429 with Retry-After; per account, or per address for vis
     expect(over.body.error).toMatch(/uploads/);
   });
 
+  it('limits guessed API tokens per address at the sign-in rate; requests without a token are not counted', async () => {
+    for (let i = 0; i < 4; i += 1) await request(limited.url).get('/api/steels').set('Authorization', `Bearer guess-${i}`).expect(401);
+    const over = await request(limited.url).get('/api/steels').set('Authorization', 'Bearer guess-5').set('X-Forwarded-For', '203.0.113.80').expect(429);
+    expect(over.body.error).toMatch(/Too many requests \(api-token\)/);
+    expect(retryAfterOf(over)).toBeGreaterThan(0);
+    await request(limited.url).get('/api/steels').expect(200);
+  });
+
   it('logs each refusal as excess_rate_limit_exceeded with the limit’s name, and no cookie or token', () => {
     const refused = events().filter((e) => e.event === 'excess_rate_limit_exceeded');
-    expect(new Set(refused.map((e) => e.limit))).toEqual(new Set(['search', 'sign-in', 'posting', 'uploads']));
+    expect(new Set(refused.map((e) => e.limit))).toEqual(new Set(['search', 'sign-in', 'api-token', 'posting', 'uploads']));
     const all = lines.join('\n');
     for (const secret of [a.csrf, b.csrf]) expect(all).not.toContain(secret);
     expect(all).not.toMatch(/@example\.test/);
