@@ -26,7 +26,7 @@ import { allSearchDocs } from '../server/search/documents';
 import { compareQuerySchema } from '../shared/schemas/compare';
 import type { ResultInput } from '../shared/schemas/result';
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '../shared/vocabulary';
-import { buildServer } from '../scripts/build-server';
+import { buildServer, serverNodeFlags } from '../scripts/build-server';
 
 const TOTAL_APPROVED = Number(process.env.BENCH_RESULTS ?? 100_000);
 const SEARCH_DOCS = Number(process.env.BENCH_SEARCH_DOCS ?? 50_000);
@@ -234,7 +234,7 @@ interface Ready {
 async function startServer(dataDir: string): Promise<{ child: ChildProcess; ready: Ready; ask: <T>(type: string) => Promise<T> }> {
   // Bundled and run in plain Node, as `npm start` runs the server.
   const child = fork(await buildServer('bench/compare-server.ts', 'dist-server/bench-server.mjs'), [], {
-    execArgv: ['--expose-gc'],
+    execArgv: [...serverNodeFlags(), '--expose-gc'],
     env: {
       ...process.env,
       BENCH_DATA_DIR: dataDir,

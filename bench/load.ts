@@ -28,7 +28,7 @@ import { Database } from '../server/db/database';
 import { loadDemoData } from '../seed/load';
 import { Result, ResultEvent, User } from '../server/models';
 import { rebuildAllCells } from '../server/aggregates/comparison-cells';
-import { buildServer } from '../scripts/build-server';
+import { buildServer, serverNodeFlags } from '../scripts/build-server';
 
 const TOTAL = Number(process.env.BENCH_RESULTS ?? 100_000);
 const MIX_SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
@@ -124,7 +124,7 @@ async function waitFor(url: string, timeoutMs: number) {
 
 function startServer(bundle: string): ChildProcess {
   const log = fs.openSync(path.join(root, 'server.log'), 'w');
-  const proc = spawn(process.execPath, [bundle], {
+  const proc = spawn(process.execPath, [...serverNodeFlags(), bundle], {
     env: {
       ...process.env,
       NODE_ENV: 'production',

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { execFileSync, spawn } from 'node:child_process';
-import { buildServer } from './build-server';
+import { buildServer, serverNodeFlags } from './build-server';
 
 /**
  * `npm start`: builds the client when dist/ is missing or older than the sources, bundles the
@@ -23,6 +23,6 @@ if (!fs.existsSync(built) || fs.statSync(built).mtimeMs < sources) {
   console.log('Building the client (vite build) …');
   execFileSync(process.execPath, [path.resolve('node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
 }
-const server = spawn(process.execPath, [await buildServer()], { stdio: 'inherit' });
+const server = spawn(process.execPath, [...serverNodeFlags(), await buildServer()], { stdio: 'inherit' });
 for (const signal of ['SIGTERM', 'SIGINT'] as const) process.on(signal, () => server.kill(signal));
 server.on('exit', (code, signal) => process.exit(code ?? (signal ? 1 : 0)));
