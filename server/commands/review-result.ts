@@ -6,7 +6,7 @@ import { conflict, forbidden, HttpError, notFound } from '../errors';
 import { Result, ResultEvent, User } from '../models';
 import { cellKeyOf, refreshCell } from '../aggregates/comparison-cells';
 import { resultDoc } from '../search/documents';
-import { loadResult } from './submit-result';
+import { findResult } from '../queries/results';
 import { notifyReviewOutcome } from './notify-review-outcome';
 import { recordAudit, recordRefusal } from './record-audit';
 
@@ -15,7 +15,8 @@ const outcome: Record<ReviewInput['decision'], ResultStatus> = { approve: 'appro
 /**
  * A moderator's decision on a pending result. The state change, its trail entry and the
  * comparison cell it touches are written in one transaction; the search index follows at once
- * after the commit. A result already decided is refused with 409, naming its state.
+ * after the commit. A result already decided is refused with 409, naming its state. Resolves
+ * with the result as it now stands, with its trail.
  */
 export async function reviewResult(ctx: AppContext, actor: Actor, id: number, review: ReviewInput): Promise<Result> {
   const audit = { action: `result.${review.decision}`, subjectType: 'result', subjectId: id, reason: review.note ?? null };
@@ -38,7 +39,8 @@ export async function reviewResult(ctx: AppContext, actor: Actor, id: number, re
     if (err instanceof HttpError && (err.status === 409 || err.status === 403) && atLeast(actor.role, 'moderator')) await recordRefusal(ctx, actor, audit, err.message);
     throw err;
   });
-  const result = await loadResult(id);
+  // Read once, with its trail: the search document, the notice and the answer all use it.
+  const result = await findResult(id, actor);
   if (result.status === 'approved') ctx.search.upsert(resultDoc(result));
   const author = result.author as User;
   notifyReviewOutcome(ctx, author, result, review.note).catch(() => undefined);

@@ -26,7 +26,7 @@ import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { forbidden, notFound } from '../../../errors';
-import { Method, PageRevision, type Abrasive, type Steel } from '../../../models';
+import { Method, PAGE_TEXT_COLUMNS, PageRevision, type Abrasive, type Steel } from '../../../models';
 import {
   approvedCounts,
   eventsOf,
@@ -88,7 +88,8 @@ async function presentPage(type: PageType, page: PageModel, viewer: Actor | null
     const results = await resultSummary('abrasive', page.id);
     return presentAbrasive(page as Abrasive, results.count, { ...extras, results });
   }
-  const methods = await Method.findAll();
+  // Every method, for the version chain and the slugs it names: without their bodies.
+  const methods = await Method.findAll({ attributes: { exclude: PAGE_TEXT_COLUMNS } });
   return presentMethod(page as Method, new Map(methods.map((m) => [m.id, m.slug])), { ...extras, versions: versionsOf(page as Method, methods) });
 }
 
