@@ -110,10 +110,10 @@ describe('results and the pages they refer to', () => {
     expect(r.hits).toHaveLength(2);
   });
 
-  it('ranks a result that matches in its own words above one that matches only through an owner', async () => {
+  it('ranks a result on the page asked for above one that only names it in its notes, and one that does both first', async () => {
     const s = new SearchIndex();
-    await s.rebuild([result(1, [d2]), result(2, [d2], 'Tested on D2 at two angles')]);
-    expect(s.search('d2', 'result').hits.map((h) => h.id)).toEqual([2, 1]);
+    await s.rebuild([result(1, [d2, diamond], 'Finished after a CBN wheel'), result(2, [d2, cbn]), result(3, [d2, cbn], 'CBN wheel, coarse, then fine')]);
+    expect(s.search('cbn', 'result').hits.map((h) => h.id)).toEqual([3, 2, 1]);
   });
 
   it('follows a renamed owner, a moved result and a removed one at once', async () => {
