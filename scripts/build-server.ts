@@ -27,7 +27,7 @@ export async function buildServer(entry = 'server/index.ts', outfile = 'dist-ser
  * Node's flags for the server process: its heap capped at HEAP_MB (default 192). Uncapped, V8
  * let garbage from a busy minute grow the heap to 385 MB (RSS 525 MB) while the live heap after a
  * full collection was 97 MB with 100 000 results and the index; capped at 192 MB, RSS stayed at
- * 275–290 MB under the same load. Raise HEAP_MB for a much larger database.
+ * 264–290 MB under the same loads. Raise HEAP_MB for a much larger database.
  */
 export function serverNodeFlags(env: NodeJS.ProcessEnv = process.env): string[] {
   const mb = Number(env.HEAP_MB ?? 192);

@@ -149,10 +149,10 @@ export async function resultDocsOfPage(type: 'steel' | 'abrasive' | 'method', id
 /**
  * Every approved result's document, read in pages of 5000 by id (keyset, so each page costs the
  * same) with only the columns a document needs (of the submission, only its notes), the pages it
- * names looked up from maps. NOT INDEXED keeps SQLite on the primary key: through the status
- * index, every page re-read and re-sorted all the approved rows after it (1 s of 2 at 50 000). Reading them through the model with full includes carried each
+ * names looked up from maps. Reading them through the model with full includes carried each
  * page's rich-text body into every row (measured at 100 000 results: 276 s that way, against a
- * few seconds).
+ * few seconds). NOT INDEXED keeps SQLite on the primary key: through the status index, every
+ * page re-read and re-sorted all the approved rows after it (1 s of 2 at 50 000).
  */
 async function* approvedResultDocs(): AsyncGenerator<SearchDoc> {
   const [steels, abrasives, methods, users] = await Promise.all([
