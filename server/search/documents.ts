@@ -47,7 +47,12 @@ export function methodDoc(method: Method, aliases: string[] = []): SearchDoc {
 }
 
 /** What of a result its search document shows. */
-type ResultFacts = Pick<Result, 'id' | 'hrc' | 'perSideDeg' | 'sharpnessMedianG'> & { input: { notes?: RichTextNode }; steel?: { name: string }; abrasive?: { name: string } };
+type ResultFacts = Pick<Result, 'id' | 'hrc' | 'perSideDeg' | 'sharpnessMedianG'> & {
+  input: { notes?: RichTextNode };
+  steel?: { name: string };
+  abrasive?: { name: string };
+  author?: { handle: string };
+};
 
 /**
  * An approved result as a search document (needs steel, abrasive, author and method loaded). Its
@@ -63,7 +68,10 @@ export function resultDoc(result: ResultFacts, owners: SearchOwner[] = resultOwn
     id: result.id,
     // join() makes one flat string; a template literal leaves a tree of pieces, which at 100 000
     // results held some 30 MB.
-    title: [steel.name, ' at ', Math.round(result.hrc * 10) / 10, ' HRC on ', abrasive.name, ', ', Math.round(result.perSideDeg * 10) / 10, '° per side: ', Math.round(result.sharpnessMedianG), ' g median'].join(''),
+    title: [
+      steel.name, ' at ', Math.round(result.hrc * 10) / 10, ' HRC on ', abrasive.name, ', ', Math.round(result.perSideDeg * 10) / 10, '° per side: ',
+      Math.round(result.sharpnessMedianG), ' g median', result.author ? `, by ${result.author.handle}` : '',
+    ].join(''),
     names: '',
     body: richTextToPlain(result.input.notes),
     owners,
@@ -192,7 +200,7 @@ async function* approvedResultDocs(): AsyncGenerator<SearchDoc> {
         ...(u ? [once(`u${u.id}`, () => memberOwner(u))] : []),
       ];
       const notes = r.notes ? (JSON.parse(r.notes) as RichTextNode) : undefined;
-      yield resultDoc({ id: r.id, hrc: r.hrc, perSideDeg: r.perSideDeg, sharpnessMedianG: r.sharpnessMedianG, input: { notes }, steel: s, abrasive: a }, resultOwners);
+      yield resultDoc({ id: r.id, hrc: r.hrc, perSideDeg: r.perSideDeg, sharpnessMedianG: r.sharpnessMedianG, input: { notes }, steel: s, abrasive: a, author: u }, resultOwners);
     }
   }
 }
