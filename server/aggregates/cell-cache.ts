@@ -1,12 +1,13 @@
-import { QueryTypes } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import { ComparisonCell, Result } from '../models';
-import { onCellsChanged, type CellRecord } from './comparison-cells';
+import { onCellsChanged, type CellKey, type CellRecord } from './comparison-cells';
 
 /**
  * An in-process read cache of the precomputed cells, one entry per method and band step. The
  * server is the one process that writes the database (DEVELOPERS.md, decision 001) and every
- * cell refresh announces itself after its commit, so an entry is dropped exactly when its
- * method's cells change and is read again, from the table, by the next request.
+ * cell refresh announces itself after its commit, so an entry is brought up to date exactly
+ * when its method's cells change: the changed cells are read again from the table (every cell
+ * after a full rebuild).
  */
 
 /** A method's cells for one band step, with the method's totals. */
@@ -25,9 +26,44 @@ let totals: Promise<Map<number, number>> | null = null;
 
 onCellsChanged((change) => {
   totals = null;
-  if ('all' in change) entries.clear();
-  else for (const k of change.keys) for (const step of [1, 0.5]) entries.delete(`${k.methodId}|${step}`);
+  if ('all' in change) {
+    entries.clear();
+    return;
+  }
+  // A few cells changed (an approval, a retraction): re-read only those, after whatever read
+  // of the entry is under way. Re-reading a method's thousand cells took 35–60 ms here.
+  const byMethod = new Map<number, CellKey[]>();
+  for (const k of change.keys) byMethod.set(k.methodId, [...(byMethod.get(k.methodId) ?? []), k]);
+  for (const [methodId, keys] of byMethod) {
+    for (const step of [1, 0.5] as const) {
+      const id = `${methodId}|${step}`;
+      const entry = entries.get(id);
+      if (!entry) continue;
+      const patched = entry.then((e) => patch(e, keys)).catch(() => load(methodId, step));
+      entries.set(id, patched);
+      patched.catch(() => {
+        if (entries.get(id) === patched) entries.delete(id);
+      });
+    }
+  }
 });
+
+/** `entry` with the cells of `keys` (whole-φ keys: every band inside them) read again. */
+async function patch(entry: MethodCells, keys: CellKey[]): Promise<MethodCells> {
+  const whole = (steelId: number, material: string, bandStart: number) => `${steelId}|${material}|${Math.floor(bandStart / 2)}`;
+  const changed = new Set(keys.map((k) => whole(k.steelId, k.material, 2 * k.gritPhi)));
+  const fresh = (await ComparisonCell.findAll({
+    where: {
+      methodId: entry.methodId,
+      bandWidth: entry.step === 1 ? 2 : 1,
+      [Op.or]: keys.map((k) => ({ steelId: k.steelId, material: k.material, bandStart: [2 * k.gritPhi, 2 * k.gritPhi + 1] })),
+    },
+    raw: true,
+  })) as unknown as CellRecord[];
+  const cells = [...entry.cells.filter((c) => !changed.has(whole(c.steelId, c.material, c.bandStart))), ...fresh];
+  const results = cells.reduce((s, c) => s + c.n, 0);
+  return { ...entry, cells, results, overallMedianG: await overallMedian(entry.methodId, results) };
+}
 
 /**
  * The method's overall median, read from the (method, status, median) index: the middle one or

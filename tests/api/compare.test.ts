@@ -10,7 +10,7 @@ import { COMPARE_SORT_KEYS } from '../../shared/schemas/compare';
 import type { CompareRow } from '../../shared/compare-view';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
 import { Abrasive, ComparisonCell, Method, Result, Steel, User } from '../../server/models';
-import { refreshCellsOf } from '../../server/aggregates/comparison-cells';
+import { rebuildAllCells, refreshCellsOf } from '../../server/aggregates/comparison-cells';
 import { clearLookups } from '../../server/queries/compare-lookups';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
@@ -270,6 +270,34 @@ describe('the comparison table', () => {
       if (hit?.cell?.n !== before + 1) await new Promise((r) => setTimeout(r, 20));
     }
     expect(hit?.cell?.n).toBe(before + 1);
+  });
+
+  it('keeps the cached cells equal to a full re-read after approvals and a retraction', async () => {
+    const both = 'method=push-cut-test-v2&step=0.5';
+    const whole = 'method=push-cut-test-v2';
+    // Read (and so cache) both band steps first, so the writes below patch them.
+    await view(both);
+    await view(whole);
+    const member = await signIn(server.url, await demoHandle(server.url, 'member'));
+    const mod = await signIn(server.url, await demoHandle(server.url, 'moderator'));
+    const ids: number[] = [];
+    for (const [steel, um] of [['aisi-o1', 150], ['aisi-52100', 151]] as const) {
+      const input = {
+        steel, hardness: { value: 61, scale: 'HRC' }, abrasive: 'diamond-resin-wheel-250-15um', grit: { standard: 'um', grade: '15 µm' },
+        edgeAngle: { perSideDeg: 15 }, sharpness: { method: 'push-cut-test-v2', readingsG: [um, um + 5, um + 2] },
+      };
+      const posted = await member.agent.post('/api/results').set('X-CSRF-Token', member.csrf).send(input).expect(201);
+      await mod.agent.post(`/api/results/${posted.body.id}/review`).set('X-CSRF-Token', mod.csrf).send({ decision: 'approve' }).expect(200);
+      ids.push(posted.body.id);
+    }
+    await member.agent.post(`/api/results/${ids[0]}/retract`).set('X-CSRF-Token', member.csrf).send({ reason: 'checking the cache' }).expect(200);
+    const patched = [await view(both), await view(whole)];
+    // A full rebuild announces every cell as changed, which makes the cache read every cell again.
+    await rebuildAllCells(server.ctx.db);
+    const reread = [await view(both), await view(whole)];
+    expect(patched.map((v) => v.rows)).toEqual(reread.map((v) => v.rows));
+    expect(patched.map((v) => v.totalResults)).toEqual(reread.map((v) => v.totalResults));
+    expect(patched[1].shrinkage).toEqual(reread[1].shrinkage);
   });
 });
 
