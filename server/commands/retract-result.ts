@@ -3,12 +3,12 @@ import type { AppContext } from '../context';
 import { forbidden, notFound } from '../errors';
 import { Result, ResultEvent } from '../models';
 import { cellKeyOf, refreshCell } from '../aggregates/comparison-cells';
-import { loadResult } from './submit-result';
+import { findResult } from '../queries/results';
 
 /**
  * The author withdraws their approved result: it is kept (state `retracted`), leaves the
  * comparison cell in the same transaction, gets a trail entry with the reason, and leaves the
- * search index right after the commit.
+ * search index right after the commit. Resolves with the result as it now stands, with its trail.
  */
 export async function retractResult(ctx: AppContext, actor: Actor, id: number, reason: string): Promise<Result> {
   await ctx.db.write(async (transaction) => {
@@ -22,5 +22,5 @@ export async function retractResult(ctx: AppContext, actor: Actor, id: number, r
     await refreshCell(cellKeyOf(result), transaction);
   });
   ctx.search.remove(`result:${id}`);
-  return loadResult(id);
+  return findResult(id, actor);
 }

@@ -7,7 +7,7 @@ import type { AppContext } from '../context';
 import { badRequest, forbidden, type FieldIssue } from '../errors';
 import { Abrasive, Method, PAGE_TEXT_COLUMNS, Result, ResultEvent, Steel } from '../models';
 import { renderRichText } from '../rich-text/render';
-import { resultIncludes } from '../search/documents';
+import { findResult } from '../queries/results';
 
 /** Looks up the pages a result refers to by slug; every unknown slug is a field issue. */
 async function resolveReferences(input: ResultInput): Promise<ResultReferences> {
@@ -63,9 +63,9 @@ export function resultRow(authorId: number, status: ResultStatus, input: ResultI
 
 /**
  * Stores a member's result as `pending`, with its derived values and rendered notes, and
- * records the first step of its trail. Resolves with its id after the commit.
+ * records the first step of its trail. Resolves after the commit with the result, with its trail.
  */
-export async function submitResult(ctx: AppContext, actor: Actor, input: ResultInput): Promise<number> {
+export async function submitResult(ctx: AppContext, actor: Actor, input: ResultInput): Promise<Result> {
   if (!can(actor, 'create:result')) throw forbidden();
   const row = resultRow(actor.id, 'pending', input, await resolveReferences(input));
   const id = await ctx.db.write(async (transaction) => {
@@ -73,12 +73,6 @@ export async function submitResult(ctx: AppContext, actor: Actor, input: ResultI
     await ResultEvent.create({ resultId: result.id, actorId: actor.id, fromStatus: null, toStatus: 'pending', note: null }, { transaction });
     return result.id;
   });
-  return id;
+  return findResult(id, actor);
 }
 
-/** A result with everything its presenter needs. */
-export async function loadResult(id: number): Promise<Result> {
-  const result = await Result.findByPk(id, { include: resultIncludes });
-  if (!result) throw new Error(`result ${id} vanished after commit`);
-  return result;
-}

@@ -95,13 +95,6 @@ export function tokenizeQuery(text: string): string[] {
 type ShownDoc = Pick<SearchDoc, 'type' | 'id' | 'slug' | 'title' | 'body' | 'names' | 'summary' | 'group' | 'cell'>;
 
 const BOOST = { title: 3, names: 3, body: 1 };
-/**
- * A result or cell scores on a term its own words' score plus its best owner's, the owner's at
- * this weight: a result on a CBN wheel ranks above one that only names CBN in its notes, and one
- * that does both above either (measured on the demo data: owner matches 6, notes matches 3,
- * the pages themselves 10–30).
- */
-const OWNER_WEIGHT = 1;
 /** Owners one document can have (a result: steel, abrasive at its grit, method, member). */
 const OWNERS_PER_DOC = 4;
 
@@ -109,6 +102,8 @@ type Counts = { facets: Record<SearchDocType, number>; groups: Partial<Record<Se
 type Ranked = { key: string; score: number; terms: string[] };
 type SearchAnswer = { hits: SearchHit[] } & Counts;
 const ANSWERS_KEPT = 500;
+/** Hits shown for a query, unless the caller asks for another number. */
+const HITS_SHOWN = 30;
 
 /**
  * The one in-memory search index over steels, abrasives, methods, comparison cells and approved
@@ -195,7 +190,7 @@ export class SearchIndex {
       const words = tokenizeQuery(this.table.words[n]).slice(0, 3);
       const long = words.find((w) => w.length >= 5);
       const queries = [words[0], words.join(' '), ...(long ? [`${long.slice(0, -2)}${long.at(-1)}${long.at(-2)}`] : []), `${words[0]} 1`];
-      for (const q of queries) if (q) this.answer(q, undefined, 30);
+      for (const q of queries) if (q) this.answer(tokenizeQuery(q), undefined, HITS_SHOWN);
     }
   }
 
@@ -229,19 +224,19 @@ export class SearchIndex {
    * Hits for `query`, best first, and the number of hits of each type before the type filter.
    * The answer may be shared with other callers: read it, do not change it.
    */
-  search(query: string, type?: SearchDocType, limit = 30): SearchAnswer {
-    const id = `${type ?? ''}|${limit}|${tokenizeQuery(query).join(' ')}`;
+  search(query: string, type?: SearchDocType, limit = HITS_SHOWN): SearchAnswer {
+    const terms = tokenizeQuery(query);
+    const id = `${type ?? ''}|${limit}|${terms.join(' ')}`;
     let answer = this.answers.get(id);
     if (!answer) {
-      answer = this.answer(query, type, limit);
+      answer = this.answer(terms, type, limit);
       if (this.answers.size >= ANSWERS_KEPT) this.answers.delete(this.answers.keys().next().value!);
       this.answers.set(id, answer);
     }
     return answer;
   }
 
-  private answer(query: string, type: SearchDocType | undefined, limit: number): SearchAnswer {
-    const terms = tokenizeQuery(query);
+  private answer(terms: string[], type: SearchDocType | undefined, limit: number): SearchAnswer {
     const counts: Counts = { facets: { steel: 0, abrasive: 0, method: 0, result: 0, cell: 0 }, groups: {} };
     if (!terms.length) return { hits: [], ...counts };
     const queries = terms.map((t, i) => termQuery(t, i === terms.length - 1));
@@ -281,12 +276,10 @@ export class SearchIndex {
         const n = table.ownerNumber.get(r.id as string)!;
         if (!table.memberCount(n)) continue;
         owners.set(n, r);
-        ownerScore[n] = r.score * OWNER_WEIGHT;
+        ownerScore[n] = r.score;
         size += table.memberCount(n);
       }
-      // The own-word scores by slot, for the loop below (0: no match).
-      const ownScore = new Map<number, number>([...own].map(([slot, r]) => [slot, r.score]));
-      return { own, owners, ownerScore, ownScore, size };
+      return { own, owners, ownerScore, size };
     });
     type Term = (typeof perTerm)[number];
     const driver = perTerm.reduce((a, b) => (b.size < a.size ? b : a), perTerm[0]);
@@ -305,6 +298,9 @@ export class SearchIndex {
       const base = slot * OWNERS_PER_DOC;
       let score = 0;
       let matched = true;
+      // A term scores its best owner's match plus the document's own words' match: a result on a
+      // CBN wheel ranks above one that only names CBN in its notes, one that does both above
+      // either (on the demo data: owner matches about 6, notes 3, the pages themselves 10–30).
       for (const t of perTerm) {
         let owner = 0;
         const os = t.ownerScore;
@@ -312,7 +308,7 @@ export class SearchIndex {
           const o = owned[j];
           if (o >= 0 && os[o] > owner) owner = os[o];
         }
-        const both = owner + (t.ownScore.size ? (t.ownScore.get(slot) ?? 0) : 0);
+        const both = owner + (t.own.size ? (t.own.get(slot)?.score ?? 0) : 0);
         if (both === 0) {
           matched = false;
           break;

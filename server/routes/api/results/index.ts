@@ -24,8 +24,7 @@ export function resultsRouter(ctx: AppContext): Router {
 
   router.post('/results', requireUser, validate({ body: resultInputSchema }), async (req, res) => {
     const actor = actorOf(req)!;
-    const id = await submitResult(ctx, actor, req.valid.body as ResultInput);
-    res.status(201).json(presentResult(await findResult(id, actor), actor));
+    res.status(201).json(presentResult(await submitResult(ctx, actor, req.valid.body as ResultInput), actor));
   });
 
   router.get('/results', validate({ query: resultListQuerySchema }), async (req, res) => {
@@ -69,8 +68,7 @@ export function resultsRouter(ctx: AppContext): Router {
   router.post('/results/:id/retract', requireUser, validate({ params: idParams, body: retractInputSchema }), async (req, res) => {
     const actor = actorOf(req)!;
     const { id } = req.valid.params as z.infer<typeof idParams>;
-    await retractResult(ctx, actor, id, (req.valid.body as z.infer<typeof retractInputSchema>).reason);
-    res.json(presentResult(await findResult(id, actor), actor));
+    res.json(presentResult(await retractResult(ctx, actor, id, (req.valid.body as z.infer<typeof retractInputSchema>).reason), actor));
   });
 
   return router;
