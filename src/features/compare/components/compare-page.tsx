@@ -11,7 +11,7 @@ import { formatNumber } from '@/lib/format';
 import { useMethods } from '@/features/methods/api/get-methods';
 import { useSteels } from '@/features/steels/api/get-steels';
 import { useCompare } from '../api/get-compare';
-import { useCompareUrl, type CompareViewMode } from '../hooks/use-compare-url';
+import { nextSort, useCompareUrl, type CompareViewMode } from '../hooks/use-compare-url';
 import { CompareFilters } from './compare-filters';
 import { CompareTable } from './compare-table';
 import { CompareGrid } from './compare-grid';
@@ -159,7 +159,7 @@ export default function ComparePage() {
           <CompareGrid rows={data!.rows} onOpenCell={onOpenCell} openCell={params.cell} />
         ) : (
           <>
-            <CompareTable rows={data!.rows} sort={params.sort} onSort={(sort) => update({ sort })} openCell={params.cell} onOpenCell={onOpenCell} pair={{ a: params.a, b: params.b }} onPair={onPair} />
+            <CompareTable rows={data!.rows} sort={params.sort} onToggleSort={(column) => update((current) => ({ sort: nextSort(current.get('sort') ?? undefined, column) }))} openCell={params.cell} onOpenCell={onOpenCell} pair={{ a: params.a, b: params.b }} onPair={onPair} />
             {pages > 1 ? (
               <nav aria-label="Pages of the comparison" className="mt-3 flex items-center gap-3 text-sm">
                 <Button size="sm" variant="secondary" disabled={page <= 1} onClick={() => update({ page: page - 1 > 1 ? String(page - 1) : undefined })}>

@@ -28,7 +28,8 @@ export interface CompareTableProps {
   rows: CompareRow[];
   /** The URL's sort ("median", "-n", …); the server sorts every page alike. */
   sort?: string;
-  onSort: (sort: string | undefined) => void;
+  /** A press on a sortable column's header (its id, a CompareSortKey). */
+  onToggleSort: (column: CompareSortKey) => void;
   openCell?: string;
   onOpenCell: (cell: string) => void;
   pair: { a?: string; b?: string };
@@ -41,7 +42,7 @@ export interface CompareTableProps {
  * Every column sorts (on the server, so the order holds across pages); thin cells are marked
  * in words; each row opens its results and can be chosen for the paired comparison.
  */
-export function CompareTable({ rows, sort, onSort, openCell, onOpenCell, pair, onPair }: CompareTableProps) {
+export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, pair, onPair }: CompareTableProps) {
   const columns = useMemo(
     () => [
       column.accessor('methodVersion', {
@@ -176,14 +177,8 @@ export function CompareTable({ rows, sort, onSort, openCell, onOpenCell, pair, o
     data: rows,
     columns,
     state: { sorting },
+    // The server sorts; the header's press goes to the URL (onToggleSort), not to table state.
     manualSorting: true,
-    // Ascending first for every column (TanStack would start numbers descending).
-    sortDescFirst: false,
-    enableSortingRemoval: true,
-    onSortingChange: (updater) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
-      onSort(next[0] ? `${next[0].desc ? '-' : ''}${next[0].id as CompareSortKey}` : undefined);
-    },
     getCoreRowModel: getCoreRowModel(),
     getRowId: (r) => r.cell,
   });
@@ -205,7 +200,7 @@ export function CompareTable({ rows, sort, onSort, openCell, onOpenCell, pair, o
                 return (
                   <th key={header.id} scope="col" aria-sort={canSort ? (sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none') : undefined} className={`${thClass} ${meta?.numeric ? 'text-right' : ''}`}>
                     {canSort ? (
-                      <button type="button" onClick={header.column.getToggleSortingHandler()} className={`inline-flex items-center gap-1 rounded font-semibold hover:text-ink ${meta?.numeric ? 'flex-row-reverse' : ''}`}>
+                      <button type="button" onClick={() => onToggleSort(header.column.id as CompareSortKey)} className={`inline-flex items-center gap-1 rounded font-semibold hover:text-ink ${meta?.numeric ? 'flex-row-reverse' : ''}`}>
                         <span>{content}</span>
                         <span aria-hidden="true" className="w-3 text-xs">
                           {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}

@@ -53,12 +53,13 @@ export function useCompareUrl() {
   }, [params]);
 
   const update = useCallback(
-    (changes: Params, opts: { keepPage?: boolean } = {}) => {
+    (change: Params | ((current: URLSearchParams) => Params), opts: { keepPage?: boolean } = {}) => {
       setSearch(
         () => {
           // The address bar, not the last render: React Router renders a navigation as a
           // transition, so a second change right after the first would start from stale params.
           const next = new URLSearchParams(window.location.search);
+          const changes = typeof change === 'function' ? change(next) : change;
           for (const [k, v] of Object.entries(changes)) {
             if (v === undefined || v === '') next.delete(k);
             else next.set(k, v);
@@ -76,6 +77,17 @@ export function useCompareUrl() {
 
   const view: CompareViewMode = params.view === 'grid' || params.view === 'charts' ? params.view : 'table';
   return { params, filters, view, update };
+}
+
+/**
+ * The sort after a press on a column's header: ascending, then descending, then none. It
+ * takes the sort from the address bar at the press, so two quick presses never both start from
+ * the same (not yet rendered) state.
+ */
+export function nextSort(current: string | undefined, column: string): string | undefined {
+  if (current === column) return `-${column}`;
+  if (current === `-${column}`) return undefined;
+  return column;
 }
 
 /** A comma list from the URL as an array ("a,b" → ["a", "b"]). */
