@@ -6,6 +6,7 @@ import helmet from 'helmet';
 import ConnectSessionSequelize from 'connect-session-sequelize';
 import { DataTypes } from 'sequelize';
 import type { AppContext } from './context';
+import { CachedSessionStore } from './auth/cached-session-store';
 import { configurePassport } from './auth/passport';
 import { authRouter } from './routes/auth';
 import { apiRouter } from './routes/api';
@@ -73,7 +74,8 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   // disableTouch: the lifetime middleware writes the last-seen time back at most once a
   // minute, instead of the store updating the row on every request.
   const storeOptions = { db: ctx.db.sequelize, table: 'Session', checkExpirationInterval: 15 * 60 * 1000, expiration: idleMs, disableTouch: true };
-  const store = new SessionStore(storeOptions);
+  // In memory in front of the table: a signed-in request then reads no session row.
+  const store = new CachedSessionStore(new SessionStore(storeOptions) as never);
   app.use(
     session({
       name: sessionCookieName(ctx.env.isProduction),

@@ -1,7 +1,10 @@
 import passport from 'passport';
 import OAuth2Strategy, { type VerifyCallback } from 'passport-oauth2';
 import type { AppContext } from '../context';
+import type { InferAttributes } from 'sequelize';
 import { User } from '../models';
+import { onUsersChanged } from '../models/write-events';
+import { keptUntil } from '../queries/kept-until';
 import { signInFromProvider } from '../commands/sign-in-from-provider';
 import { SignInStateStore } from './sign-in-state';
 
@@ -45,6 +48,18 @@ class ProviderStrategy extends OAuth2Strategy {
   }
 }
 
+/**
+ * Accounts by id, as their fields, kept until any account is written (a ban, a role, a new
+ * member): every signed-in request reads one, and a ban still takes effect on the next request
+ * after its commit. Each request gets a User of its own, so nothing a handler does to it leaks.
+ */
+const accounts = keptUntil<number, InferAttributes<User> | null>([onUsersChanged]);
+
+async function findAccount(id: number): Promise<User | null> {
+  const fields = await accounts.read(id, async () => ((await User.findByPk(id))?.get({ plain: true }) as InferAttributes<User> | undefined) ?? null);
+  return fields ? User.build(fields, { isNewRecord: false }) : null;
+}
+
 /** Configures passport: the provider strategy and session (de)serialisation by user id. */
 export function configurePassport(ctx: AppContext): passport.PassportStatic {
   const instance = new passport.Passport() as unknown as passport.PassportStatic;
@@ -71,7 +86,7 @@ export function configurePassport(ctx: AppContext): passport.PassportStatic {
   );
   instance.serializeUser((user, done) => done(null, (user as User).id));
   instance.deserializeUser((id: number, done) => {
-    User.findByPk(id)
+    findAccount(id)
       .then((user) => done(null, user && !user.banned ? user : false))
       .catch((err) => done(err));
   });

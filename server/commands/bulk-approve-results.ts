@@ -7,6 +7,7 @@ import { AuditEntry, ImportBatch, ImportBatchResult, Result, ResultEvent, User }
 import { refreshCellsOf } from '../aggregates/comparison-cells';
 import { resultDoc, resultIncludes } from '../search/documents';
 import { notifyMember } from '../mail/notify-member';
+import { insertRows } from '../db/insert-rows';
 
 const CHUNK = 1000;
 
@@ -53,14 +54,14 @@ export async function bulkApproveResults(ctx: AppContext, actor: Actor, target: 
     const note = target.note ?? null;
     for (let i = 0; i < approved.length; i += CHUNK) {
       const slice = approved.slice(i, i + CHUNK);
-      await ResultEvent.bulkCreate(slice.map((r) => ({ resultId: r.id, actorId: actor.id, fromStatus: 'pending' as const, toStatus: 'approved' as const, note })), { transaction });
+      await insertRows(ResultEvent, slice.map((r) => ({ resultId: r.id, actorId: actor.id, fromStatus: 'pending' as const, toStatus: 'approved' as const, note })), transaction);
     }
     const details = { bulk: true, ...(target.importId ? { importId: target.importId } : {}) };
     const audits = [
       ...approved.map((r) => ({ actorId: actor.id, action: 'result.approve', outcome: 'done' as const, subjectType: 'result', subjectId: r.id, reason: note, details: { ...details, from: 'pending', to: 'approved' } })),
       ...refused.map((r) => ({ actorId: actor.id, action: 'result.approve', outcome: 'refused' as const, subjectType: 'result', subjectId: r.id, reason: note, details: { ...details, refusal: r.reason } })),
     ];
-    for (let i = 0; i < audits.length; i += CHUNK) await AuditEntry.bulkCreate(audits.slice(i, i + CHUNK), { transaction });
+    for (let i = 0; i < audits.length; i += CHUNK) await insertRows(AuditEntry, audits.slice(i, i + CHUNK), transaction);
     await refreshCellsOf(approved, transaction);
     if (target.importId) {
       // What was refused while still pending (the moderator's own) keeps the import open.

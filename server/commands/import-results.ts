@@ -14,6 +14,7 @@ import { resultDoc, resultIncludes } from '../search/documents';
 import { loadPageLookup } from '../queries/page-lookup';
 import { siteSettings } from '../queries/site-settings';
 import { resultRow, type ResultReferences } from './submit-result';
+import { insertRows } from '../db/insert-rows';
 
 const fileError = (message: string) => badRequest(message, [{ path: 'file', message }]);
 
@@ -179,14 +180,14 @@ export async function importResults(ctx: AppContext, actor: Actor, bytes: Buffer
     const ids: number[] = [];
     const stored: Result[] = [];
     for (let i = 0; i < rows.length; i += CHUNK) {
-      const inserted = await Result.bulkCreate(rows.slice(i, i + CHUNK), { transaction });
+      const inserted = await insertRows(Result, rows.slice(i, i + CHUNK), transaction);
       const events = inserted.flatMap((r) => {
         const first = { resultId: r.id, actorId: actor.id, fromStatus: null, toStatus: 'pending' as const, note: `Imported (import #${batch.id}).` };
         return status === 'approved'
           ? [first, { resultId: r.id, actorId: actor.id, fromStatus: 'pending' as const, toStatus: 'approved' as const, note: 'Published on import: the site trusts publishers’ imports.' }]
           : [first];
       });
-      await ResultEvent.bulkCreate(events, { transaction });
+      await insertRows(ResultEvent, events, transaction);
       await ImportBatchResult.bulkCreate(inserted.map((r) => ({ batchId: batch.id, resultId: r.id })), { transaction });
       for (const r of inserted) ids.push(r.id);
       if (status === 'approved') stored.push(...inserted);

@@ -9,6 +9,7 @@ import { Abrasive, Method, PageEvent, Result } from '../models';
 import { refreshCellsOf } from '../aggregates/comparison-cells';
 import { findPageOfType, PAGE_MODELS, PAGE_WHAT, RESULT_COLUMNS, survivorOf, type PageModel } from '../queries/pages';
 import { reindexPage } from './revise-page';
+import { insertRows } from '../db/insert-rows';
 
 /** What a merge did. */
 export interface MergeOutcome {
@@ -74,12 +75,13 @@ export async function mergePages(ctx: AppContext, actor: Actor, type: PageType, 
     }
     await (source as Method).update({ mergedIntoId: target.id }, { transaction });
     const movedResultIds = rows.map((r) => r.id);
-    await PageEvent.bulkCreate(
+    await insertRows(
+      PageEvent,
       [
         { pageType: type, pageId: source.id, actorId: actor.id, action: 'merged-into', note: input.note ?? null, detail: { into: target.slug, intoName: target.name, resultIds: movedResultIds } },
         { pageType: type, pageId: target.id, actorId: actor.id, action: 'absorbed', note: input.note ?? null, detail: { from: source.slug, fromName: source.name, resultIds: movedResultIds } },
       ],
-      { transaction },
+      transaction,
     );
     return { source, target, movedResultIds };
   });

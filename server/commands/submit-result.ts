@@ -5,18 +5,31 @@ import type { ResultInput, ResultStatus } from '@shared/schemas/result';
 import type { GritStandard } from '@shared/grit';
 import type { AppContext } from '../context';
 import { badRequest, forbidden, type FieldIssue } from '../errors';
-import { Abrasive, Method, PAGE_TEXT_COLUMNS, Result, ResultEvent, Steel } from '../models';
+import { Abrasive, Method, PAGE_TEXT_COLUMNS, Result, ResultEvent, Steel, type User } from '../models';
+import { onPagesChanged } from '../models/write-events';
+import { keptUntil } from '../queries/kept-until';
+import type { Database } from '../db/database';
+import { GroupCommit } from '../db/group-commit';
+import { insertRows } from '../db/insert-rows';
 import { renderRichText } from '../rich-text/render';
-import { findResult } from '../queries/results';
+
+/**
+ * The pages results refer to, by type and slug, without their long columns, kept until a page
+ * changes: every submission names three or four of them. Shared, so never changed by a caller.
+ */
+const pageRefs = keptUntil<string, Steel | Abrasive | Method | null>([onPagesChanged]);
+const attributes = { exclude: PAGE_TEXT_COLUMNS };
+const steelRef = (slug: string) => pageRefs.read(`steel:${slug}`, () => Steel.findOne({ where: { slug }, attributes })) as Promise<Steel | null>;
+const abrasiveRef = (slug: string) => pageRefs.read(`abrasive:${slug}`, () => Abrasive.findOne({ where: { slug }, attributes })) as Promise<Abrasive | null>;
+const methodRef = (slug: string) => pageRefs.read(`method:${slug}`, () => Method.findOne({ where: { slug }, attributes })) as Promise<Method | null>;
 
 /** Looks up the pages a result refers to by slug; every unknown slug is a field issue. */
 async function resolveReferences(input: ResultInput): Promise<ResultReferences> {
-  const attributes = { exclude: PAGE_TEXT_COLUMNS };
   const [steel, abrasive, sharpnessMethod, retentionMethod] = await Promise.all([
-    Steel.findOne({ where: { slug: input.steel }, attributes }),
-    Abrasive.findOne({ where: { slug: input.abrasive }, attributes }),
-    Method.findOne({ where: { slug: input.sharpness.method }, attributes }),
-    input.retention ? Method.findOne({ where: { slug: input.retention.method }, attributes }) : Promise.resolve(null),
+    steelRef(input.steel),
+    abrasiveRef(input.abrasive),
+    methodRef(input.sharpness.method),
+    input.retention ? methodRef(input.retention.method) : Promise.resolve(null),
   ]);
   const issues: FieldIssue[] = [];
   if (!steel) issues.push({ path: 'steel', message: `no steel page "${input.steel}"` });
@@ -61,18 +74,40 @@ export function resultRow(authorId: number, status: ResultStatus, input: ResultI
   };
 }
 
+type ResultRow = ReturnType<typeof resultRow>;
+
 /**
- * Stores a member's result as `pending`, with its derived values and rendered notes, and
- * records the first step of its trail. Resolves after the commit with the result, with its trail.
+ * New results go in by group commit: those posted while another write runs are inserted
+ * together, with the first step of each one's trail, in one transaction.
  */
-export async function submitResult(ctx: AppContext, actor: Actor, input: ResultInput): Promise<Result> {
-  if (!can(actor, 'create:result')) throw forbidden();
-  const row = resultRow(actor.id, 'pending', input, await resolveReferences(input));
-  const id = await ctx.db.write(async (transaction) => {
-    const result = await Result.create(row, { transaction });
-    await ResultEvent.create({ resultId: result.id, actorId: actor.id, fromStatus: null, toStatus: 'pending', note: null }, { transaction });
-    return result.id;
-  });
-  return findResult(id, actor);
+const submissions = new WeakMap<Database, GroupCommit<ResultRow, { result: Result; event: ResultEvent }>>();
+function submissionsOf(db: Database) {
+  let group = submissions.get(db);
+  if (!group) {
+    group = new GroupCommit(db, async (rows, transaction) => {
+      const results = await insertRows(Result, rows, transaction);
+      const events = await insertRows(
+        ResultEvent,
+        results.map((r) => ({ resultId: r.id, actorId: r.authorId, fromStatus: null, toStatus: 'pending' as const, note: null })),
+        transaction,
+      );
+      return results.map((result, i) => ({ result, event: events[i] }));
+    });
+    submissions.set(db, group);
+  }
+  return group;
 }
 
+/**
+ * Stores `author`'s result as `pending`, with its derived values and rendered notes, and
+ * records the first step of its trail. Resolves after the commit with the result, with its
+ * pages, author and trail as a read would give them (they are all at hand, so none is read again).
+ */
+export async function submitResult(ctx: AppContext, author: User, input: ResultInput): Promise<Result> {
+  const actor: Actor = { id: author.id, role: author.role, banned: author.banned };
+  if (!can(actor, 'create:result')) throw forbidden();
+  const refs = await resolveReferences(input);
+  const { result, event } = await submissionsOf(ctx.db).add(resultRow(actor.id, 'pending', input, refs));
+  event.actor = author;
+  return Object.assign(result, { author, steel: refs.steel, abrasive: refs.abrasive, sharpnessMethod: refs.sharpnessMethod, retentionMethod: refs.retentionMethod ?? undefined, events: [event] });
+}

@@ -4,6 +4,8 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { Database } from '../../server/db/database';
+import { GroupCommit } from '../../server/db/group-commit';
+import { insertRows } from '../../server/db/insert-rows';
 import { User } from '../../server/models';
 
 let dir: string;
@@ -59,5 +61,39 @@ describe('the SQLite connection set-up', () => {
     expect(await User.count()).toBe(before);
     await db.write((transaction) => User.create({ handle: 'after', displayName: 'After', email: null, role: 'member', oauthSubject: 'after', bio: null }, { transaction }));
     expect(await User.count()).toBe(before + 1);
+  });
+});
+
+describe('group commit', () => {
+  const userRow = (n: number, tag: string) => ({ handle: `group-${tag}-${n}`, displayName: `Group ${n}`, role: 'member' as const, oauthSubject: `group-${tag}-${n}` });
+
+  it('writes items that arrive together in one transaction, each settled after the commit', async () => {
+    const batches: number[] = [];
+    const group = new GroupCommit(db, async (rows: ReturnType<typeof userRow>[], transaction) => {
+      batches.push(rows.length);
+      return insertRows(User, rows, transaction);
+    });
+    // A slow write ahead of them, so that the twelve queue up behind it.
+    const ahead = db.write(() => new Promise((r) => setTimeout(r, 50)));
+    const users = await Promise.all(Array.from({ length: 12 }, (_, i) => group.add(userRow(i, 'a'))));
+    await ahead;
+    expect(batches).toEqual([12]);
+    expect(users.map((u) => u.handle)).toEqual(Array.from({ length: 12 }, (_, i) => `group-a-${i}`));
+    for (const u of users) expect((await User.findByPk(u.id))?.handle).toBe(u.handle);
+  });
+
+  it('lets a bad item fail alone: the others of its batch still go in', async () => {
+    const group = new GroupCommit(db, (rows: ReturnType<typeof userRow>[], transaction) => insertRows(User, rows, transaction));
+    const ahead = db.write(() => new Promise((r) => setTimeout(r, 50)));
+    // Two rows with the same handle: the unique index refuses the second.
+    const outcomes = await Promise.allSettled([group.add(userRow(1, 'b')), group.add(userRow(2, 'b')), group.add({ ...userRow(1, 'b'), oauthSubject: 'other' }), group.add(userRow(3, 'b'))]);
+    await ahead;
+    expect(outcomes.map((o) => o.status)).toEqual(['fulfilled', 'fulfilled', 'rejected', 'fulfilled']);
+    expect((await User.findAll({ where: { handle: ['group-b-1', 'group-b-2', 'group-b-3'] } })).length).toBe(3);
+  });
+
+  it('stores text with a NUL character exactly (bound, not written into the SQL)', async () => {
+    const [user] = await db.write((t) => insertRows(User, [{ ...userRow(1, 'c'), displayName: 'before\0after' }], t));
+    expect((await User.findByPk(user.id))?.displayName).toBe('before\0after');
   });
 });

@@ -422,3 +422,50 @@ describe('lists', () => {
     expect(res.body.versions.map((v: { slug: string }) => v.slug)).toEqual(['push-cut-test-v1', 'push-cut-test-v2']);
   });
 });
+
+describe('a visitor’s page answers (kept until pages or results change)', () => {
+  /** A visitor's answer beside a signed-in one read fresh, without the viewer's own actions. */
+  async function visitorMatchesFresh(path: string) {
+    const [visitor, fresh] = await Promise.all([get(path), get(path, moderator)]);
+    expect(visitor.status).toBe(200);
+    const strip = (b: Record<string, unknown>) => {
+      const { can: _can, ...rest } = b;
+      return rest;
+    };
+    if (Array.isArray(visitor.body.items)) expect(visitor.body).toEqual(fresh.body);
+    else expect(strip(visitor.body)).toEqual(strip(fresh.body));
+    return visitor.body;
+  }
+
+  it('follows a live edit, a proposal and an approved result at once', async () => {
+    const path = '/api/steels/aisi-o1';
+    const before = await visitorMatchesFresh(path);
+    await visitorMatchesFresh('/api/steels');
+    await get(path); // asked twice: the second answer comes from the cache
+
+    const live = await put(moderator, path, editOf('steels', before as Page, 'Cache check: a live edit', { name: 'AISI O1 (cache check)' }));
+    expect(live.status).toBe(200);
+    expect((await visitorMatchesFresh(path)).name).toBe('AISI O1 (cache check)');
+    const listed = (await visitorMatchesFresh('/api/steels')).items as { slug: string; name: string }[];
+    expect(listed.find((s) => s.slug === 'aisi-o1')?.name).toBe('AISI O1 (cache check)');
+
+    const current = await visitorMatchesFresh(path);
+    const proposal = await put(member, path, editOf('steels', current as Page, 'Cache check: a proposal', { name: 'AISI O1 (proposed)' }));
+    expect(proposal.status).toBe(202);
+    expect((await visitorMatchesFresh(path)).proposals).toBe((current.proposals as number) + 1);
+
+    const counted = (current.results as { count: number }).count;
+    const posted = await post(member, '/api/results', {
+      steel: 'aisi-o1',
+      hardness: { value: 61, scale: 'HRC' },
+      abrasive: 'cbn-electroplated-wheel-250-b126',
+      edgeAngle: { perSideDeg: 15 },
+      sharpness: { method: 'push-cut-test-v2', readingsG: [180, 175, 190] },
+    });
+    expect(posted.status).toBe(201);
+    expect(((await visitorMatchesFresh(path)).results as { count: number }).count).toBe(counted);
+    const approved = await post(moderator, `/api/results/${posted.body.id}/review`, { decision: 'approve' });
+    expect(approved.status).toBe(200);
+    expect(((await visitorMatchesFresh(path)).results as { count: number }).count).toBe(counted + 1);
+  });
+});

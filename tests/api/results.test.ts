@@ -200,3 +200,24 @@ describe('reading', () => {
     await request(server.url).get('/api/health').expect(200);
   });
 });
+
+describe('many people posting at once', () => {
+  it('stores every one of 16 concurrent posts, each answered as a later read of it gives it', async () => {
+    const members = await Promise.all([0, 1, 2, 3].map(async (i) => signIn(server.url, await demoHandle(server.url, 'member', i))));
+    const posts = await Promise.all(
+      Array.from({ length: 16 }, (_, i) => {
+        const who = members[i % members.length];
+        return who.agent.post('/api/results').set('X-CSRF-Token', who.csrf).send({ ...goodInput(), edgeAngle: { perSideDeg: 10 + i / 2 } });
+      }),
+    );
+    expect(posts.map((p) => p.status)).toEqual(Array(16).fill(201));
+    expect(new Set(posts.map((p) => p.body.id)).size).toBe(16);
+    for (const [i, p] of posts.entries()) {
+      const who = members[i % members.length];
+      const read = await who.agent.get(`/api/results/${p.body.id}`).expect(200);
+      expect(p.body).toEqual(read.body);
+      expect(p.body.edgeAngle.perSideDeg).toBe(10 + i / 2);
+      expect(p.body.author.handle).toBe(who.user.handle);
+    }
+  });
+});

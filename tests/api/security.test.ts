@@ -8,7 +8,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { Writable } from 'node:stream';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { inject } from 'vitest';
 import request from 'supertest';
 import express from 'express';
@@ -118,8 +118,15 @@ async function sessionRow(sid: string) {
   const [rows] = (await server.ctx.db.sequelize.query('SELECT data FROM sessions WHERE sid = ?', { replacements: [sid] })) as [{ data: string }[], unknown];
   return rows[0] ? (JSON.parse(rows[0].data) as Record<string, unknown> & { life: { startedAt: number; seenAt: number } }) : null;
 }
-async function writeSessionRow(sid: string, data: unknown) {
-  await server.ctx.db.write((transaction) => server.ctx.db.sequelize.query('UPDATE sessions SET data = ? WHERE sid = ?', { replacements: [JSON.stringify(data), sid], transaction }));
+/** Runs `fn` with the clock (Date only; timers run as usual) set to `ms`, for the server in this process too. */
+async function atClock<T>(ms: number, fn: () => PromiseLike<T>): Promise<T> {
+  vi.useFakeTimers({ toFake: ['Date'] });
+  vi.setSystemTime(ms);
+  try {
+    return await fn();
+  } finally {
+    vi.useRealTimers();
+  }
 }
 
 describe('one server', () => {
@@ -189,21 +196,25 @@ describe('one server', () => {
     it('ends a session idle longer than SESSION_IDLE_MINUTES, on the server', async () => {
       const s = await signInRaw(server.url, await demoHandle(server.url, 'member', 2));
       const sid = sidOf(sessionPart(s.cookie));
-      const data = (await sessionRow(sid))!;
       const idleMs = server.ctx.env.SESSION_IDLE_MINUTES * 60_000;
-      await writeSessionRow(sid, { ...data, life: { ...data.life, seenAt: Date.now() - idleMs - 1000 } });
-      const res = await request(server.url).get('/api/session').set('Cookie', s.cookie).expect(200);
+      const res = await atClock(Date.now() + idleMs + 1000, () => request(server.url).get('/api/session').set('Cookie', s.cookie).expect(200));
       expect(res.body.user).toBeNull();
       expect(await sessionRow(sid)).toBeNull();
     });
 
     it('ends a busy session older than SESSION_ABSOLUTE_HOURS, on the server', async () => {
       const s = await signInRaw(server.url, await demoHandle(server.url, 'member', 2));
-      const sid = sidOf(sessionPart(s.cookie));
-      const data = (await sessionRow(sid))!;
+      const idleMs = server.ctx.env.SESSION_IDLE_MINUTES * 60_000;
       const absoluteMs = server.ctx.env.SESSION_ABSOLUTE_HOURS * 3_600_000;
-      await writeSessionRow(sid, { ...data, life: { ...data.life, startedAt: Date.now() - absoluteMs - 1000, seenAt: Date.now() } });
-      const res = await request(server.url).get('/api/session').set('Cookie', s.cookie).expect(200);
+      const start = Date.now();
+      // In use every half idle period: never idle, still signed in until the absolute limit.
+      let at = start;
+      while (at + idleMs / 2 < start + absoluteMs) {
+        at += idleMs / 2;
+        const busy = await atClock(at, () => request(server.url).get('/api/session').set('Cookie', s.cookie).expect(200));
+        expect(busy.body.user, `signed in ${Math.round((at - start) / 60_000)} min after sign-in`).not.toBeNull();
+      }
+      const res = await atClock(start + absoluteMs + 1000, () => request(server.url).get('/api/session').set('Cookie', s.cookie).expect(200));
       expect(res.body.user).toBeNull();
     });
 

@@ -25,6 +25,7 @@ import {
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
+import { visitorCache } from '../../../middleware/visitor-cache';
 import { forbidden, notFound } from '../../../errors';
 import { Method, PAGE_TEXT_COLUMNS, PageRevision, type Abrasive, type Steel } from '../../../models';
 import {
@@ -118,7 +119,7 @@ async function sendStale(res: Response, outcome: Extract<ReviseOutcome, { outcom
 export function pagesRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/steels', validate({ query: steelListQuerySchema }), async (req, res) => {
+  router.get('/steels', visitorCache, validate({ query: steelListQuerySchema }), async (req, res) => {
     const q = req.valid.query as z.infer<typeof steelListQuerySchema>;
     const filters = q.composition ? parseCompositionFilter(q.composition) : [];
     const [steels, counts] = await Promise.all([listSteels(), approvedCounts('steelId')]);
@@ -133,7 +134,7 @@ export function pagesRouter(ctx: AppContext): Router {
     res.json({ items: items.map((s) => presentSteelSummary(s, counts.get(s.id) ?? 0)) });
   });
 
-  router.get('/abrasives', validate({ query: abrasiveListQuerySchema }), async (req, res) => {
+  router.get('/abrasives', visitorCache, validate({ query: abrasiveListQuerySchema }), async (req, res) => {
     const q = req.valid.query as z.infer<typeof abrasiveListQuerySchema>;
     const [abrasives, counts] = await Promise.all([listAbrasives(), approvedCounts('abrasiveId')]);
     const items = abrasives.filter(
@@ -146,7 +147,7 @@ export function pagesRouter(ctx: AppContext): Router {
     res.json({ items: items.map((a) => presentAbrasiveSummary(a, counts.get(a.id) ?? 0)) });
   });
 
-  router.get('/methods', validate({ query: emptyQuerySchema }), async (_req, res) => {
+  router.get('/methods', visitorCache, validate({ query: emptyQuerySchema }), async (_req, res) => {
     const methods = await listMethods();
     const slugById = new Map(methods.map((m) => [m.id, m.slug]));
     res.json({ items: methods.map((m) => presentMethodSummary(m, slugById)) });
@@ -155,7 +156,7 @@ export function pagesRouter(ctx: AppContext): Router {
   for (const type of PAGE_TYPES) {
     const section = PAGE_SECTIONS[type];
 
-    router.get(`/${section}/:slug`, validate({ params: slugParams }), async (req, res) => {
+    router.get(`/${section}/:slug`, visitorCache, validate({ params: slugParams }), async (req, res) => {
       const page = await findPageOfType(type, (req.valid.params as { slug: string }).slug);
       const survivor = await survivorOf(type, page);
       if (survivor) {

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { resultInputSchema, resultListQuerySchema, reviewInputSchema, type ResultInput, type ReviewInput } from '@shared/schemas/result';
 import type { AppContext } from '../../../context';
+import type { User } from '../../../models';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { forbidden } from '../../../errors';
@@ -23,8 +24,8 @@ export function resultsRouter(ctx: AppContext): Router {
   const router = Router();
 
   router.post('/results', requireUser, validate({ body: resultInputSchema }), async (req, res) => {
-    const actor = actorOf(req)!;
-    res.status(201).json(presentResult(await submitResult(ctx, actor, req.valid.body as ResultInput), actor));
+    const author = req.user as User;
+    res.status(201).json(presentResult(await submitResult(ctx, author, req.valid.body as ResultInput), actorOf(req)));
   });
 
   router.get('/results', validate({ query: resultListQuerySchema }), async (req, res) => {

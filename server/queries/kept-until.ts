@@ -1,0 +1,36 @@
+/** Registers a listener for a change event (onPagesChanged, onCellsChanged, …). */
+type ChangeEvent = (listener: () => void) => unknown;
+
+/**
+ * A map of values read from the database, kept until one of `events` fires, then emptied. A
+ * value read while a change happened is handed out but not kept, so a read that raced a commit
+ * never outlives it. Past `max` entries the map starts again empty (the keys are few: pages,
+ * accounts, page URLs).
+ */
+export function keptUntil<K, V>(events: ChangeEvent[], max = 5_000) {
+  const values = new Map<K, V>();
+  let generation = 0;
+  for (const on of events)
+    on(() => {
+      generation += 1;
+      values.clear();
+    });
+  return {
+    get: (key: K): V | undefined => values.get(key),
+    /** A mark to give `keep` later: a change between the two makes `keep` do nothing. */
+    mark: (): number => generation,
+    keep(key: K, value: V, mark: number): void {
+      if (mark !== generation) return;
+      if (values.size >= max) values.clear();
+      values.set(key, value);
+    },
+    /** The kept value of `key`, or `load()`'s (kept when no change came in between). */
+    async read(key: K, load: () => Promise<V>): Promise<V> {
+      if (values.has(key)) return values.get(key)!;
+      const mark = generation;
+      const value = await load();
+      this.keep(key, value, mark);
+      return value;
+    },
+  };
+}
