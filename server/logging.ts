@@ -101,7 +101,9 @@ function build(level: LogLevel, destination?: DestinationStream): Logger {
       serializers: { err: errorForLog },
       hooks: { streamWrite: scrub },
     },
-    destination ?? pino.destination({ dest: 1, sync: true }),
+    // Asynchronous: lines written while one write is under way go out together, instead of one
+    // blocking write per request; pino flushes what is left when the process exits.
+    destination ?? pino.destination({ dest: 1, sync: false }),
   );
 }
 

@@ -1,32 +1,43 @@
+import crypto from 'node:crypto';
 import type { RequestHandler } from 'express';
-import { onCellsChanged } from '../aggregates/comparison-cells';
-import { onPagesChanged } from '../models/write-events';
-import { keptUntil } from '../queries/kept-until';
+import { keptUntil, type ChangeEvent } from '../queries/kept-until';
 import { actorOf } from './auth';
 
-/**
- * What a visitor's GET of a page or a page list answered (status 200, as JSON text), by URL. A
- * visitor's page answer depends only on the pages (fields, bodies, links between them, pending
- * proposals) and on the approved results' figures, so it is kept until a page or a revision
- * changes or comparison cells do. Signed-in people get a fresh answer: theirs carries their own
- * allowed actions.
- */
-const answers = keptUntil<string, string>([onPagesChanged, onCellsChanged], 2_000);
+/** A weak ETag of the answer, computed once, as Express's own (etag package) would for it. */
+function etagOf(text: string): string {
+  const hash = crypto.createHash('sha1').update(text, 'utf8').digest('base64').substring(0, 27);
+  return `W/"${Buffer.byteLength(text, 'utf8').toString(16)}-${hash}"`;
+}
 
-/** Serves visitors' repeated GETs from the cache above; mount on routes whose answer it describes. */
-export const visitorCache: RequestHandler = (req, res, next) => {
-  if (req.method !== 'GET' || actorOf(req)) return next();
-  const key = req.originalUrl;
-  const hit = answers.get(key);
-  if (hit !== undefined) {
-    res.type('json').send(hit);
-    return;
-  }
-  const mark = answers.mark();
-  res.json = function keepAnswer(body: unknown) {
-    const text = JSON.stringify(body);
-    if (res.statusCode === 200) answers.keep(key, text, mark);
-    return res.type('json').send(text);
+/**
+ * Keeps what a visitor's GET answered (status 200, as JSON text with its ETag), by URL, until
+ * one of `events` fires, and serves the same URL from it. Mount it on read routes whose answer
+ * to a visitor depends only on what those events follow: pages and comparison cells
+ * (onPagesChanged, onCellsChanged) for pages and the comparison, the index's changes for search.
+ * Signed-in people always get a fresh answer: theirs carries their own allowed actions.
+ */
+export function visitorCache(events: ChangeEvent[], max = 2_000): RequestHandler {
+  const answers = keptUntil<string, { text: string; etag: string }>(events, max);
+  return (req, res, next) => {
+    if (req.method !== 'GET' || actorOf(req)) return next();
+    const key = req.originalUrl;
+    const hit = answers.get(key);
+    if (hit !== undefined) {
+      // With the ETag set, Express neither hashes the answer again nor skips a 304.
+      res.set('ETag', hit.etag).type('json').send(hit.text);
+      return;
+    }
+    const mark = answers.mark();
+    const send = res.send.bind(res);
+    // res.json ends here too, with its text and a JSON content type.
+    res.send = function keepAnswer(body?: unknown) {
+      if (res.statusCode === 200 && typeof body === 'string' && /json/.test(String(res.get('Content-Type')))) {
+        const etag = String(res.get('ETag') ?? etagOf(body));
+        answers.keep(key, { text: body, etag }, mark);
+        res.set('ETag', etag);
+      }
+      return send(body);
+    };
+    next();
   };
-  next();
-};
+}

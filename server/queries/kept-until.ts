@@ -1,5 +1,5 @@
 /** Registers a listener for a change event (onPagesChanged, onCellsChanged, …). */
-type ChangeEvent = (listener: () => void) => unknown;
+export type ChangeEvent = (listener: () => void) => unknown;
 
 /**
  * A map of values read from the database, kept until one of `events` fires, then emptied. A

@@ -131,6 +131,19 @@ export class SearchIndex {
    * or an edit. Cleared by every change; at most ANSWERS_KEPT.
    */
   private readonly answers = new Map<string, SearchAnswer>();
+  private readonly changeListeners = new Set<() => void>();
+
+  /** Calls `listener` whenever what the index would answer may have changed (a build, an upsert, a removal). */
+  onChanged(listener: () => void): () => void {
+    this.changeListeners.add(listener);
+    return () => this.changeListeners.delete(listener);
+  }
+
+  /** Forgets the kept answers, here and in every listener's cache. */
+  private changed(): void {
+    this.answers.clear();
+    for (const l of this.changeListeners) l();
+  }
 
   private static create() {
     return new MiniSearch<SearchDoc>({
@@ -175,7 +188,7 @@ export class SearchIndex {
     [this.pages, this.own, this.owners, this.table] = [pages, own, owners, table];
     this.docs.clear();
     for (const [k, v] of shown) this.docs.set(k, v);
-    this.answers.clear();
+    this.changed();
     this.warmUp();
   }
 
@@ -197,7 +210,7 @@ export class SearchIndex {
   /** Adds or replaces one document. */
   upsert(doc: SearchDoc): void {
     this.remove(doc.key);
-    this.answers.clear();
+    this.changed();
     this.docs.set(doc.key, shownOf(doc));
     if (!doc.owners) {
       this.pages.add(doc);
@@ -214,7 +227,7 @@ export class SearchIndex {
   /** Removes one document if present. */
   remove(key: string): void {
     if (!this.docs.has(key)) return;
-    this.answers.clear();
+    this.changed();
     for (const index of [this.pages, this.own]) if (index.has(key)) index.discard(key);
     this.docs.delete(key);
     this.table.remove(key);

@@ -469,3 +469,14 @@ describe('a visitor’s page answers (kept until pages or results change)', () =
     expect(((await visitorMatchesFresh(path)).results as { count: number }).count).toBe(counted + 1);
   });
 });
+
+describe('a visitor’s read', () => {
+  it('starts no session, while the session endpoint still does', async () => {
+    const read = await request(server.url).get('/api/steels/aisi-d2').expect(200);
+    expect(read.headers['set-cookie']).toBeUndefined();
+    const again = await request(server.url).get('/api/steels/aisi-d2').set('If-None-Match', read.headers.etag).expect(304);
+    expect(again.text).toBe('');
+    const session = await request(server.url).get('/api/session').expect(200);
+    expect(String(session.headers['set-cookie'])).toMatch(/edgeledger=/);
+  });
+});

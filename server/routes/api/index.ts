@@ -23,6 +23,7 @@ import { meRouter } from './me';
 import { devRouter } from './dev';
 import type { MailCatcher } from '../../mail/mail-catcher';
 import { emptyQuerySchema } from '@shared/schemas/common';
+import { visitorCache } from '../../middleware/visitor-cache';
 
 /** The JSON API under /api. Every state-changing request passes the CSRF check first. */
 export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
@@ -45,7 +46,8 @@ export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
 
   router.use(compareRouter(ctx));
 
-  router.get('/search', validate({ query: searchQuerySchema }), (req, res) => {
+  // Search answers follow the index: kept until it changes.
+  router.get('/search', visitorCache([(listener) => ctx.search.onChanged(listener)]), validate({ query: searchQuerySchema }), (req, res) => {
     const { q, type } = req.valid.query as z.infer<typeof searchQuerySchema>;
     res.json(ctx.search.search(q, type));
   });

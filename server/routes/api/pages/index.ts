@@ -26,6 +26,8 @@ import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { visitorCache } from '../../../middleware/visitor-cache';
+import { onPagesChanged } from '../../../models/write-events';
+import { onCellsChanged } from '../../../aggregates/comparison-cells';
 import { forbidden, notFound } from '../../../errors';
 import { Method, PAGE_TEXT_COLUMNS, PageRevision, type Abrasive, type Steel } from '../../../models';
 import {
@@ -118,8 +120,10 @@ async function sendStale(res: Response, outcome: Extract<ReviseOutcome, { outcom
  */
 export function pagesRouter(ctx: AppContext): Router {
   const router = Router();
+  // A visitor's page or list answer depends on the pages and the approved results' figures only.
+  const forVisitors = visitorCache([onPagesChanged, onCellsChanged]);
 
-  router.get('/steels', visitorCache, validate({ query: steelListQuerySchema }), async (req, res) => {
+  router.get('/steels', forVisitors, validate({ query: steelListQuerySchema }), async (req, res) => {
     const q = req.valid.query as z.infer<typeof steelListQuerySchema>;
     const filters = q.composition ? parseCompositionFilter(q.composition) : [];
     const [steels, counts] = await Promise.all([listSteels(), approvedCounts('steelId')]);
@@ -134,7 +138,7 @@ export function pagesRouter(ctx: AppContext): Router {
     res.json({ items: items.map((s) => presentSteelSummary(s, counts.get(s.id) ?? 0)) });
   });
 
-  router.get('/abrasives', visitorCache, validate({ query: abrasiveListQuerySchema }), async (req, res) => {
+  router.get('/abrasives', forVisitors, validate({ query: abrasiveListQuerySchema }), async (req, res) => {
     const q = req.valid.query as z.infer<typeof abrasiveListQuerySchema>;
     const [abrasives, counts] = await Promise.all([listAbrasives(), approvedCounts('abrasiveId')]);
     const items = abrasives.filter(
@@ -147,7 +151,7 @@ export function pagesRouter(ctx: AppContext): Router {
     res.json({ items: items.map((a) => presentAbrasiveSummary(a, counts.get(a.id) ?? 0)) });
   });
 
-  router.get('/methods', visitorCache, validate({ query: emptyQuerySchema }), async (_req, res) => {
+  router.get('/methods', forVisitors, validate({ query: emptyQuerySchema }), async (_req, res) => {
     const methods = await listMethods();
     const slugById = new Map(methods.map((m) => [m.id, m.slug]));
     res.json({ items: methods.map((m) => presentMethodSummary(m, slugById)) });
@@ -156,7 +160,7 @@ export function pagesRouter(ctx: AppContext): Router {
   for (const type of PAGE_TYPES) {
     const section = PAGE_SECTIONS[type];
 
-    router.get(`/${section}/:slug`, visitorCache, validate({ params: slugParams }), async (req, res) => {
+    router.get(`/${section}/:slug`, forVisitors, validate({ params: slugParams }), async (req, res) => {
       const page = await findPageOfType(type, (req.valid.params as { slug: string }).slug);
       const survivor = await survivorOf(type, page);
       if (survivor) {
