@@ -35,11 +35,14 @@ onCellsChanged((change) => {
   const byMethod = new Map<number, CellKey[]>();
   for (const k of change.keys) byMethod.set(k.methodId, [...(byMethod.get(k.methodId) ?? []), k]);
   for (const [methodId, keys] of byMethod) {
+    // Both band steps hold the same results, so the method's overall median is read once.
+    const medians = new Map<number, Promise<number | null>>();
+    const medianOf = (n: number) => medians.get(n) ?? medians.set(n, overallMedian(methodId, n)).get(n)!;
     for (const step of [1, 0.5] as const) {
       const id = `${methodId}|${step}`;
       const entry = entries.get(id);
       if (!entry) continue;
-      const patched = entry.then((e) => patch(e, keys)).catch(() => load(methodId, step));
+      const patched = entry.then((e) => patch(e, keys, medianOf)).catch(() => load(methodId, step));
       entries.set(id, patched);
       patched.catch(() => {
         if (entries.get(id) === patched) entries.delete(id);
@@ -48,8 +51,8 @@ onCellsChanged((change) => {
   }
 });
 
-/** `entry` with the cells of `keys` (whole-φ keys: every band inside them) read again. */
-async function patch(entry: MethodCells, keys: CellKey[]): Promise<MethodCells> {
+/** `entry` with the cells of `keys` (whole-φ keys: every band inside them) read again; `medianOf(n)` gives the method's overall median over n results. */
+async function patch(entry: MethodCells, keys: CellKey[], medianOf: (n: number) => Promise<number | null>): Promise<MethodCells> {
   const whole = (steelId: number, material: string, bandStart: number) => `${steelId}|${material}|${Math.floor(bandStart / 2)}`;
   const changed = new Set(keys.map((k) => whole(k.steelId, k.material, 2 * k.gritPhi)));
   const fresh = (await ComparisonCell.findAll({
@@ -62,7 +65,7 @@ async function patch(entry: MethodCells, keys: CellKey[]): Promise<MethodCells> 
   })) as unknown as CellRecord[];
   const cells = [...entry.cells.filter((c) => !changed.has(whole(c.steelId, c.material, c.bandStart))), ...fresh];
   const results = cells.reduce((s, c) => s + c.n, 0);
-  return { ...entry, cells, results, overallMedianG: await overallMedian(entry.methodId, results) };
+  return { ...entry, cells, results, overallMedianG: await medianOf(results) };
 }
 
 /**

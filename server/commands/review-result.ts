@@ -6,7 +6,7 @@ import { conflict, forbidden, HttpError, notFound } from '../errors';
 import { Result, ResultEvent, User } from '../models';
 import { cellKeyOf, refreshCell } from '../aggregates/comparison-cells';
 import { resultDoc } from '../search/documents';
-import { findResult } from '../queries/results';
+import { withTrail } from '../queries/results';
 import { notifyReviewOutcome } from './notify-review-outcome';
 import { recordAudit, recordRefusal } from './record-audit';
 
@@ -18,10 +18,13 @@ const outcome: Record<ReviewInput['decision'], ResultStatus> = { approve: 'appro
  * after the commit. A result already decided is refused with 409, naming its state. Resolves
  * with the result as it now stands, with its trail.
  */
-export async function reviewResult(ctx: AppContext, actor: Actor, id: number, review: ReviewInput): Promise<Result> {
+export async function reviewResult(ctx: AppContext, reviewer: User, id: number, review: ReviewInput): Promise<Result> {
+  const actor: Actor = { id: reviewer.id, role: reviewer.role, banned: reviewer.banned };
   const audit = { action: `result.${review.decision}`, subjectType: 'result', subjectId: id, reason: review.note ?? null };
-  await ctx.db.write(async (transaction) => {
-    const result = await Result.findByPk(id, { transaction });
+  // Read once, with its pages and trail, inside the write: the search document, the notice and
+  // the answer all use it, and no read after the commit waits behind the caches catching up.
+  const result = await ctx.db.write(async (transaction) => {
+    const result = await Result.findByPk(id, { include: withTrail, transaction });
     if (!result) throw notFound('Result');
     if (!can(actor, 'review:result', { authorId: result.authorId, status: result.status })) {
       throw forbidden(result.authorId === actor.id ? 'You cannot review your own result.' : 'Only moderators review results.');
@@ -31,16 +34,17 @@ export async function reviewResult(ctx: AppContext, actor: Actor, id: number, re
     }
     const to = outcome[review.decision];
     await result.update({ status: to, approvedAt: to === 'approved' ? new Date() : null }, { transaction });
-    await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'pending', toStatus: to, note: review.note ?? null }, { transaction });
+    const event = await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'pending', toStatus: to, note: review.note ?? null }, { transaction });
     await recordAudit(actor, { ...audit, details: { from: 'pending', to } }, transaction);
     if (to === 'approved') await refreshCell(cellKeyOf(result), transaction);
+    event.actor = reviewer;
+    result.events = [...(result.events ?? []), event];
+    return result;
   }).catch(async (err: unknown) => {
     // A moderator's refused attempt (already decided, or their own result) is kept in the audit log too.
     if (err instanceof HttpError && (err.status === 409 || err.status === 403) && atLeast(actor.role, 'moderator')) await recordRefusal(ctx, actor, audit, err.message);
     throw err;
   });
-  // Read once, with its trail: the search document, the notice and the answer all use it.
-  const result = await findResult(id, actor);
   if (result.status === 'approved') ctx.search.upsert(resultDoc(result));
   const author = result.author as User;
   notifyReviewOutcome(ctx, author, result, review.note).catch(() => undefined);

@@ -7,7 +7,8 @@ import { forbidden, notFound } from '../errors';
 import { Abrasive, Method, Result, ResultEvent, Steel, User } from '../models';
 import { resultIncludes } from '../search/documents';
 
-const withTrail = [...resultIncludes, { model: ResultEvent, as: 'events', include: [{ model: User, as: 'actor' }] }];
+/** A result's pages, author and trail (each step with who took it): what presentResult shows. */
+export const withTrail = [...resultIncludes, { model: ResultEvent, as: 'events', include: [{ model: User, as: 'actor' }] }];
 
 /** One result, if the viewer may see it (approved ones are public; others only to their author and moderators). */
 export async function findResult(id: number, viewer: Actor | null): Promise<Result> {

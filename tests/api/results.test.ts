@@ -123,6 +123,18 @@ describe('review', () => {
     await agent.get('/api/review-desk').expect(403);
   });
 
+  it('answers a decision with the result as a later read gives it, trail included', async () => {
+    const { id } = await postPending();
+    const mod = await signIn(server.url, await demoHandle(server.url, 'moderator'));
+    const decided = await mod.agent.post(`/api/results/${id}/review`).set('X-CSRF-Token', mod.csrf).send({ decision: 'approve', note: 'Clear method notes.' }).expect(200);
+    const read = await mod.agent.get(`/api/results/${id}`).expect(200);
+    expect(decided.body).toEqual(read.body);
+    expect(decided.body.trail.map((e: { to: string; by: { handle: string } }) => [e.to, e.by.handle])).toEqual([
+      ['pending', expect.any(String)],
+      ['approved', mod.user.handle],
+    ]);
+  });
+
   it('lets a moderator return a result with a note that its author then sees', async () => {
     const { id, author } = await postPending();
     const mod = await signIn(server.url, await demoHandle(server.url, 'moderator'));

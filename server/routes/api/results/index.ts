@@ -44,7 +44,7 @@ export function resultsRouter(ctx: AppContext): Router {
     const actor = actorOf(req)!;
     if (!can(actor, 'read:review-desk')) throw forbidden('Only moderators review results.');
     const { id } = req.valid.params as z.infer<typeof idParams>;
-    res.json(presentResult(await reviewResult(ctx, actor, id, req.valid.body as ReviewInput), actor));
+    res.json(presentResult(await reviewResult(ctx, req.user as User, id, req.valid.body as ReviewInput), actor));
   });
 
   router.get('/review-desk', requireUser, validate({ query: reviewDeskQuerySchema }), async (req, res) => {
