@@ -39,18 +39,17 @@ export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
     res.set('Cache-Control', 'no-store').json({ user: user ? presentAccount(user) : null, csrfToken: csrfTokenOf(req) });
   });
 
-  router.use(resultsRouter(ctx));
-  router.use(pagesRouter(ctx));
-  router.use(toolsRouter());
-  router.use(wheelsRouter(ctx));
-
+  // The busiest reads first: Express tries each route of every router in turn until one matches.
   router.use(compareRouter(ctx));
-
   // Search answers follow the index: kept until it changes.
   router.get('/search', visitorCache([(listener) => ctx.search.onChanged(listener)]), validate({ query: searchQuerySchema }), (req, res) => {
     const { q, type } = req.valid.query as z.infer<typeof searchQuerySchema>;
     res.json(ctx.search.search(q, type));
   });
+  router.use(pagesRouter(ctx));
+  router.use(resultsRouter(ctx));
+  router.use(toolsRouter());
+  router.use(wheelsRouter(ctx));
 
   router.use(publishersRouter(ctx));
   router.use(importRouter(ctx));
