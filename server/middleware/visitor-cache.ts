@@ -16,8 +16,9 @@ function etagOf(text: string): string {
  * (onPagesChanged, onCellsChanged) for pages and the comparison, the index's changes for search.
  * Signed-in people always get a fresh answer: theirs carries their own allowed actions.
  */
-export function visitorCache(events: ChangeEvent[], max = 2_000): RequestHandler {
-  const answers = keptUntil<string, { text: string; etag: string }>(events, max);
+export function visitorCache(events: ChangeEvent[]): RequestHandler {
+  // At most 16 MB of answers per route group (a whole 5 000-cell comparison is about 2 MB).
+  const answers = keptUntil<string, { text: string; etag: string }>(events, { max: 2_000, weigh: (a) => a.text.length, budget: 16 * 1024 * 1024 });
   return (req, res, next) => {
     if (req.method !== 'GET' || actorOf(req)) return next();
     const key = req.originalUrl;

@@ -4,24 +4,32 @@ export type ChangeEvent = (listener: () => void) => unknown;
 /**
  * A map of values read from the database, kept until one of `events` fires, then emptied. A
  * value read while a change happened is handed out but not kept, so a read that raced a commit
- * never outlives it. Past `max` entries the map starts again empty (the keys are few: pages,
- * accounts, page URLs).
+ * never outlives it. Past `max` entries, or past `budget` by `weigh` (bytes, say), the map starts
+ * again empty: the keys are few (pages, accounts, page URLs), and memory stays bounded.
  */
-export function keptUntil<K, V>(events: ChangeEvent[], max = 5_000) {
+export function keptUntil<K, V>(events: ChangeEvent[], options: { max?: number; weigh?: (value: V) => number; budget?: number } = {}) {
+  const { max = 5_000, weigh, budget = Infinity } = options;
   const values = new Map<K, V>();
   let generation = 0;
+  let weight = 0;
+  const clear = () => {
+    values.clear();
+    weight = 0;
+  };
   for (const on of events)
     on(() => {
       generation += 1;
-      values.clear();
+      clear();
     });
   return {
     get: (key: K): V | undefined => values.get(key),
     /** A mark to give `keep` later: a change between the two makes `keep` do nothing. */
     mark: (): number => generation,
     keep(key: K, value: V, mark: number): void {
-      if (mark !== generation) return;
-      if (values.size >= max) values.clear();
+      if (mark !== generation || values.has(key)) return;
+      const w = weigh ? weigh(value) : 0;
+      if (values.size >= max || weight + w > budget) clear();
+      weight += w;
       values.set(key, value);
     },
     /** The kept value of `key`, or `load()`'s (kept when no change came in between). */
