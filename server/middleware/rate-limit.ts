@@ -28,7 +28,7 @@ function limiter(
   perMinute: number,
   options: { key?: (req: Request) => string; skip?: (req: Request) => boolean; counts?: (res: Response) => boolean },
 ): RequestHandler {
-  return rateLimit({
+  const limit = rateLimit({
     // `counts`: only requests whose answer it picks count (the rest are handed back).
     ...(options.counts ? { skipSuccessfulRequests: true, requestWasSuccessful: (_req: Request, res: Response) => !options.counts!(res) } : {}),
     windowMs: MINUTE_MS,
@@ -37,7 +37,6 @@ function limiter(
     legacyHeaders: false,
     identifier: name,
     keyGenerator: options.key ?? clientKey,
-    skip: options.skip,
     // We read the peer address on purpose (trust proxy off unless TRUST_PROXY says how many
     // hops to trust); the library's warning about a present X-Forwarded-For is then noise.
     validate: { xForwardedForHeader: false },
@@ -46,6 +45,10 @@ function limiter(
       res.status(429).json({ error: `Too many requests (${name}): at most ${perMinute} a minute. Try again after the number of seconds in Retry-After.` });
     },
   });
+  // A request the limit skips passes straight on, without the library's asynchronous round
+  // (about 2 % of a read's time under load, for each limit it passes).
+  const skip = options.skip;
+  return skip ? (req, res, next) => (skip(req) ? next() : limit(req, res, next)) : limit;
 }
 
 /** The rate limits: sign-in (and guessed API tokens), posting (any write under /api), uploads and search, per client per minute. */
