@@ -4,6 +4,7 @@ import { sortRows, type CompareRow } from '@shared/compare-view';
 import { SHRINKAGE_PSEUDO_RESULTS } from '@shared/compare-shrinkage';
 import { comparisonCsv, comparisonJson, type ExportContext } from '@shared/compare-export';
 import { onCellsChanged } from '../aggregates/comparison-cells';
+import { keptUntil } from './kept-until';
 import { filtersInWords, filtersQueryString, resolveView, viewRows, type ResolvedView } from './compare-view';
 import type { Lookups } from './compare-lookups';
 
@@ -46,24 +47,15 @@ export async function compareBody(query: CompareQuery): Promise<CompareBody> {
   const id = cacheable ? JSON.stringify(query) : '';
   const hit = cacheable ? responses.get(id) : undefined;
   if (hit && hit.look === view.look) return hit;
-  const started = generation;
+  // A cell that changes while this is computed makes `keep` drop the answer (it may hold the old cell).
+  const mark = responses.mark();
   const body = JSON.stringify(await computeCompare(query, view));
   const entry = { look: view.look, body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
-  // A cell changed while this was computed: the answer may hold the old cell, so keep it not.
-  if (cacheable && started === generation) {
-    if (responses.size >= RESPONSES_MAX) responses.clear();
-    responses.set(id, entry);
-  }
+  if (cacheable) responses.keep(id, entry, mark);
   return entry;
 }
 
-const RESPONSES_MAX = 2000;
-const responses = new Map<string, CompareBody & { look: Lookups }>();
-let generation = 0;
-onCellsChanged(() => {
-  generation++;
-  responses.clear();
-});
+const responses = keptUntil<string, CompareBody & { look: Lookups }>([onCellsChanged], { max: 2_000, weigh: (e) => e.body.length, budget: 32 * 1024 * 1024 });
 
 async function computeCompare(query: CompareQuery, view: ResolvedView) {
   const { rows, source, overallMedianG, methodResults } = await viewRows(view);

@@ -26,11 +26,18 @@ export function keptUntil<K, V>(events: ChangeEvent[], options: { max?: number; 
     /** A mark to give `keep` later: a change between the two makes `keep` do nothing. */
     mark: (): number => generation,
     keep(key: K, value: V, mark: number): void {
-      if (mark !== generation || values.has(key)) return;
+      if (mark !== generation) return;
+      this.forget(key);
       const w = weigh ? weigh(value) : 0;
       if (values.size >= max || weight + w > budget) clear();
       weight += w;
       values.set(key, value);
+    },
+    /** Drops `key` (a read that failed, say). */
+    forget(key: K): void {
+      if (!values.has(key)) return;
+      if (weigh) weight -= weigh(values.get(key)!);
+      values.delete(key);
     },
     /** The kept value of `key`, or `load()`'s (kept when no change came in between). */
     async read(key: K, load: () => Promise<V>): Promise<V> {

@@ -8,6 +8,7 @@ import { presentDeskRevision } from '../presenters/pages';
 import { Abrasive, Method, PAGE_TEXT_COLUMNS, PageEvent, PageRevision, Result, Steel, User } from '../models';
 import { notFound } from '../errors';
 import { onCellsChanged } from '../aggregates/comparison-cells';
+import { keptUntil } from './kept-until';
 
 /** A reference page of any type. */
 export type PageModel = Steel | Abrasive | Method;
@@ -31,17 +32,18 @@ export const RESULT_COLUMNS: Record<PageType, ('steelId' | 'abrasiveId' | 'sharp
  * cells, whose change event clears this. Each costs a pass over thousands of rows (a steel page
  * spent 90 ms of its 100 on it at 100 000 results); a page read then costs a map look-up.
  */
-const overApproved = new Map<string, Promise<unknown>>();
-onCellsChanged(() => overApproved.clear());
+const overApproved = keptUntil<string, Promise<unknown>>([onCellsChanged]);
 
 function cachedOverApproved<T>(key: string, compute: () => Promise<T>): Promise<T> {
   let entry = overApproved.get(key) as Promise<T> | undefined;
   if (!entry) {
-    entry = compute();
-    overApproved.set(key, entry);
+    // The promise is kept at once, so that readers at the same moment share one read.
+    const started = compute();
+    entry = started;
+    overApproved.keep(key, started, overApproved.mark());
     // A failed read is not kept.
-    entry.catch(() => {
-      if (overApproved.get(key) === entry) overApproved.delete(key);
+    started.catch(() => {
+      if (overApproved.get(key) === started) overApproved.forget(key);
     });
   }
   return entry;
