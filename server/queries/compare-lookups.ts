@@ -1,5 +1,7 @@
 import { Abrasive, Method, Steel } from '../models';
 import { onCellsChanged } from '../aggregates/comparison-cells';
+import { onPagesChanged } from '../models/write-events';
+import { keptUntil } from './kept-until';
 
 /** What the comparison needs to know of a steel page. */
 export interface SteelInfo {
@@ -35,16 +37,8 @@ export interface Lookups {
   abrasives: Map<number, AbrasiveInfo>;
 }
 
-/**
- * Page names change rarely and a stale name is harmless for a few seconds, so the pages are
- * read at most every few seconds, and again after any cell change (a new page can only enter
- * the comparison through an approved result, which refreshes a cell).
- */
-const TTL_MS = 5000;
-let cached: { at: number; value: Promise<Lookups> } | null = null;
-onCellsChanged(() => {
-  cached = null;
-});
+/** The pages, read once and kept until a page changes or cells do (a new page can only enter the comparison through an approved result). */
+const kept = keptUntil<'pages', Promise<Lookups>>([onPagesChanged, onCellsChanged]);
 
 async function load(): Promise<Lookups> {
   const [steels, methods, abrasives] = await Promise.all([
@@ -67,20 +61,7 @@ async function load(): Promise<Lookups> {
   };
 }
 
-/** The reference pages the comparison names, read at most every 5 s. */
-export function lookups(now = Date.now()): Promise<Lookups> {
-  if (!cached || now - cached.at > TTL_MS) {
-    const value = load();
-    const entry = { at: now, value };
-    cached = entry;
-    value.catch(() => {
-      if (cached === entry) cached = null;
-    });
-  }
-  return cached.value;
-}
-
-/** Forgets the pages (after a page edit that must show at once). */
-export function clearLookups(): void {
-  cached = null;
+/** The reference pages the comparison names, by id and slug. */
+export function lookups(): Promise<Lookups> {
+  return kept.share('pages', load);
 }

@@ -38,7 +38,7 @@ export interface CompareBody {
 
 /**
  * GET /api/compare as serialised JSON. Views the cells answer are kept, serialised, until a
- * cell changes or the page names are read again (every few seconds), so a repeated view costs
+ * cell or a page changes, so a repeated view costs
  * a map lookup; views that need the results are computed each time.
  */
 export async function compareBody(query: CompareQuery): Promise<CompareBody> {

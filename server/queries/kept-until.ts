@@ -39,6 +39,21 @@ export function keptUntil<K, V>(events: ChangeEvent[], options: { max?: number; 
       if (weigh) weight -= weigh(values.get(key)!);
       values.delete(key);
     },
+    /**
+     * For a map of promises: the kept promise of `key`, or `load()`'s, kept at once so that
+     * readers at the same moment share one read (a change clears it like any value); a promise
+     * that rejects is forgotten.
+     */
+    share(key: K, load: () => V & PromiseLike<unknown>): V {
+      const kept = values.get(key);
+      if (kept !== undefined) return kept;
+      const started = load();
+      this.keep(key, started, generation);
+      Promise.resolve(started).catch(() => {
+        if (values.get(key) === started) this.forget(key);
+      });
+      return started;
+    },
     /** The kept value of `key`, or `load()`'s (kept when no change came in between). */
     async read(key: K, load: () => Promise<V>): Promise<V> {
       if (values.has(key)) return values.get(key)!;

@@ -35,18 +35,7 @@ export const RESULT_COLUMNS: Record<PageType, ('steelId' | 'abrasiveId' | 'sharp
 const overApproved = keptUntil<string, Promise<unknown>>([onCellsChanged]);
 
 function cachedOverApproved<T>(key: string, compute: () => Promise<T>): Promise<T> {
-  let entry = overApproved.get(key) as Promise<T> | undefined;
-  if (!entry) {
-    // The promise is kept at once, so that readers at the same moment share one read.
-    const started = compute();
-    entry = started;
-    overApproved.keep(key, started, overApproved.mark());
-    // A failed read is not kept.
-    started.catch(() => {
-      if (overApproved.get(key) === started) overApproved.forget(key);
-    });
-  }
-  return entry;
+  return overApproved.share(key, compute) as Promise<T>;
 }
 
 /** Approved result counts per steel or abrasive id. */
