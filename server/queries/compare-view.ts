@@ -113,10 +113,9 @@ export async function resultWhere(view: ResolvedView): Promise<WhereOptions<Resu
   return where as WhereOptions<Result>;
 }
 
-/** The view's approved results, as cell members (the live path, the drill-down, the paired comparison). */
-export async function viewMembers(view: ResolvedView, extra: Record<string, unknown> = {}): Promise<BandedMember[]> {
-  const where = { ...(await resultWhere(view)), ...extra } as WhereOptions<Result>;
-  return (await Result.findAll({ where, attributes: [...memberAttributes], raw: true })) as unknown as BandedMember[];
+/** The approved results of one steel that a view's `where` (resultWhere) picks, as cell members. */
+async function steelMembers(where: WhereOptions<Result>, steelId: number): Promise<BandedMember[]> {
+  return (await Result.findAll({ where: { ...where, steelId } as WhereOptions<Result>, attributes: [...memberAttributes], raw: true })) as unknown as BandedMember[];
 }
 
 /** The view's cells, as rows, with where they came from and the method's overall median. */
@@ -134,8 +133,7 @@ export async function viewRows(view: ResolvedView): Promise<{ rows: CompareRow[]
     const steels = [...new Set(cached.cells.map((c) => c.steelId))].filter((id) => !view.steelIds || view.steelIds.has(id));
     cells = [];
     for (const steelId of steels) {
-      const members = (await Result.findAll({ where: { ...where, steelId }, attributes: [...memberAttributes], raw: true })) as unknown as BandedMember[];
-      for (const c of cellsOf(members, [view.step])) if (cellMatches(view, c)) cells.push(c);
+      for (const c of cellsOf(await steelMembers(where, steelId), [view.step])) if (cellMatches(view, c)) cells.push(c);
     }
     source = 'results';
   }
