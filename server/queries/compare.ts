@@ -3,10 +3,7 @@ import type { CompareFilters, CompareQuery } from '@shared/schemas/compare';
 import { sortRows, type CompareRow } from '@shared/compare-view';
 import { SHRINKAGE_PSEUDO_RESULTS } from '@shared/compare-shrinkage';
 import { comparisonCsv, comparisonJson, type ExportContext } from '@shared/compare-export';
-import { onCellsChanged } from '../aggregates/comparison-cells';
-import { keptUntil } from './kept-until';
 import { filtersInWords, filtersQueryString, resolveView, viewRows, type ResolvedView } from './compare-view';
-import type { Lookups } from './compare-lookups';
 
 /** The method version a view compares, with the versions it replaces and is replaced by. */
 function methodOf(view: ResolvedView) {
@@ -37,25 +34,13 @@ export interface CompareBody {
 }
 
 /**
- * GET /api/compare as serialised JSON. Views the cells answer are kept, serialised, until a
- * cell or a page changes, so a repeated view costs
- * a map lookup; views that need the results are computed each time.
+ * GET /api/compare as serialised JSON with its entity tag (the route keeps both until a cell,
+ * a page or an account changes: server/middleware/answer-cache.ts).
  */
 export async function compareBody(query: CompareQuery): Promise<CompareBody> {
-  const view = await resolveView(query);
-  const cacheable = view.liveKeys.length === 0;
-  const id = cacheable ? JSON.stringify(query) : '';
-  const hit = cacheable ? responses.get(id) : undefined;
-  if (hit && hit.look === view.look) return hit;
-  // A cell that changes while this is computed makes `keep` drop the answer (it may hold the old cell).
-  const mark = responses.mark();
-  const body = JSON.stringify(await computeCompare(query, view));
-  const entry = { look: view.look, body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
-  if (cacheable) responses.keep(id, entry, mark);
-  return entry;
+  const body = JSON.stringify(await compare(query));
+  return { body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
 }
-
-const responses = keptUntil<string, CompareBody & { look: Lookups }>([onCellsChanged], { max: 2_000, weigh: (e) => e.body.length, budget: 32 * 1024 * 1024 });
 
 async function computeCompare(query: CompareQuery, view: ResolvedView) {
   const { rows, source, overallMedianG, methodResults } = await viewRows(view);

@@ -168,6 +168,21 @@ describe('the comparison table', () => {
     expect(recent.totalResults).toBe(inRange);
   });
 
+  it('follows a new publisher in the publishers-only view at once', async () => {
+    const v2 = await methodId('push-cut-test-v2');
+    const proCount = async () => Result.count({ where: { status: 'approved', sharpnessMethodId: v2, authorId: (await User.findAll({ where: { role: 'publisher' } })).map((u) => u.id) } });
+    expect((await view('method=push-cut-test-v2&publisher=1')).totalResults).toBe(await proCount());
+    // a member with published results on this method becomes a publisher (an approved application)
+    const authors = await Result.findAll({ where: { status: 'approved', sharpnessMethodId: v2 }, attributes: ['authorId'], raw: true });
+    const member = await User.findOne({ where: { role: 'member', id: [...new Set(authors.map((a) => a.authorId))] } });
+    expect(member).not.toBeNull();
+    await server.ctx.db.write((transaction) => member!.update({ role: 'publisher' }, { transaction }));
+    const after = await view('method=push-cut-test-v2&publisher=1');
+    expect(after.totalResults).toBe(await proCount());
+    await server.ctx.db.write((transaction) => member!.update({ role: 'member' }, { transaction }));
+    expect((await view('method=push-cut-test-v2&publisher=1')).totalResults).toBe(await proCount());
+  });
+
   it('sorts on every column, both ways, and pages', async () => {
     const value: Record<string, (r: CompareRow) => number | string | null> = {
       steel: (r) => r.steelName.toLowerCase(),

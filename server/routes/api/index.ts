@@ -23,7 +23,7 @@ import { meRouter } from './me';
 import { devRouter } from './dev';
 import type { MailCatcher } from '../../mail/mail-catcher';
 import { emptyQuerySchema } from '@shared/schemas/common';
-import { visitorCache } from '../../middleware/visitor-cache';
+import { answerCache } from '../../middleware/answer-cache';
 
 /** The JSON API under /api. Every state-changing request passes the CSRF check first. */
 export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
@@ -41,8 +41,8 @@ export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
 
   // The busiest reads first: Express tries each route of every router in turn until one matches.
   router.use(compareRouter(ctx));
-  // Search answers follow the index: kept until it changes.
-  router.get('/search', visitorCache([(listener) => ctx.search.onChanged(listener)]), validate({ query: searchQuerySchema }), (req, res) => {
+  // Search answers are the same for whoever asks, and follow the index.
+  router.get('/search', answerCache([(listener) => ctx.search.onChanged(listener)], { forEveryone: true }), validate({ query: searchQuerySchema }), (req, res) => {
     const { q, type } = req.valid.query as z.infer<typeof searchQuerySchema>;
     res.json(ctx.search.search(q, type));
   });

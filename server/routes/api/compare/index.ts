@@ -10,9 +10,9 @@ import {
 import type { AppContext } from '../../../context';
 import { validate } from '../../../middleware/validate';
 import { actorOf } from '../../../middleware/auth';
-import { visitorCache } from '../../../middleware/visitor-cache';
+import { answerCache } from '../../../middleware/answer-cache';
 import { onCellsChanged } from '../../../aggregates/comparison-cells';
-import { onPagesChanged } from '../../../models/write-events';
+import { onPagesChanged, onUsersChanged } from '../../../models/write-events';
 import { compareBody, compareExport } from '../../../queries/compare';
 import { compareCell } from '../../../queries/compare-cell';
 import { comparePaired } from '../../../queries/compare-paired';
@@ -24,10 +24,11 @@ import { comparePoints } from '../../../queries/compare-points';
  */
 export function compareRouter(ctx: AppContext): Router {
   const router = Router();
-  // The comparison reads approved results through the cells, and pages for their names.
-  const forVisitors = visitorCache([onPagesChanged, onCellsChanged]);
+  // The same for whoever asks; it reads approved results (through the cells), pages for their
+  // names, and accounts for the publishers-only filter.
+  const kept = answerCache([onPagesChanged, onCellsChanged, onUsersChanged], { forEveryone: true });
 
-  router.get('/compare', forVisitors, validate({ query: compareQuerySchema }), async (req, res) => {
+  router.get('/compare', kept, validate({ query: compareQuerySchema }), async (req, res) => {
     const { body, etag } = await compareBody(req.valid.query as z.infer<typeof compareQuerySchema>);
     // Express would hash the body again for its ETag; this one was made once, with the body.
     res.set('ETag', etag);

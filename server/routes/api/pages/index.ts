@@ -25,7 +25,7 @@ import {
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
-import { visitorCache } from '../../../middleware/visitor-cache';
+import { answerCache } from '../../../middleware/answer-cache';
 import { onPagesChanged } from '../../../models/write-events';
 import { onCellsChanged } from '../../../aggregates/comparison-cells';
 import { forbidden, notFound } from '../../../errors';
@@ -121,7 +121,7 @@ async function sendStale(res: Response, outcome: Extract<ReviseOutcome, { outcom
 export function pagesRouter(ctx: AppContext): Router {
   const router = Router();
   // A visitor's page or list answer depends on the pages and the approved results' figures only.
-  const forVisitors = visitorCache([onPagesChanged, onCellsChanged]);
+  const forVisitors = answerCache([onPagesChanged, onCellsChanged]);
 
   router.get('/steels', forVisitors, validate({ query: steelListQuerySchema }), async (req, res) => {
     const q = req.valid.query as z.infer<typeof steelListQuerySchema>;

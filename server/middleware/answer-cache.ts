@@ -10,17 +10,17 @@ function etagOf(text: string): string {
 }
 
 /**
- * Keeps what a visitor's GET answered (status 200, as JSON text with its ETag), by URL, until
- * one of `events` fires, and serves the same URL from it. Mount it on read routes whose answer
- * to a visitor depends only on what those events follow: pages and comparison cells
- * (onPagesChanged, onCellsChanged) for pages and the comparison, the index's changes for search.
- * Signed-in people always get a fresh answer: theirs carries their own allowed actions.
+ * Keeps what a GET answered (status 200, as JSON text with its ETag), by URL, until one of
+ * `events` fires, and serves the same URL from it. Mount it on read routes whose answer depends
+ * only on what those events follow. By default only visitors are served from it (a signed-in
+ * person's page carries their own allowed actions); `forEveryone` for routes whose answer is the
+ * same whoever asks (the comparison, search).
  */
-export function visitorCache(events: ChangeEvent[]): RequestHandler {
+export function answerCache(events: ChangeEvent[], options: { forEveryone?: boolean } = {}): RequestHandler {
   // At most 16 MB of answers per route group (a whole 5 000-cell comparison is about 2 MB).
   const answers = keptUntil<string, { text: string; etag: string }>(events, { max: 2_000, weigh: (a) => a.text.length, budget: 16 * 1024 * 1024 });
   return (req, res, next) => {
-    if (req.method !== 'GET' || actorOf(req)) return next();
+    if (req.method !== 'GET' || (!options.forEveryone && actorOf(req))) return next();
     const key = req.originalUrl;
     const hit = answers.get(key);
     if (hit !== undefined) {
