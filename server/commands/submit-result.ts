@@ -18,18 +18,18 @@ import { renderRichText } from '../rich-text/render';
  * changes: every submission names three or four of them. Shared, so never changed by a caller.
  */
 const pageRefs = keptUntil<string, Steel | Abrasive | Method | null>([onPagesChanged]);
-const attributes = { exclude: PAGE_TEXT_COLUMNS };
-const steelRef = (slug: string) => pageRefs.read(`steel:${slug}`, () => Steel.findOne({ where: { slug }, attributes })) as Promise<Steel | null>;
-const abrasiveRef = (slug: string) => pageRefs.read(`abrasive:${slug}`, () => Abrasive.findOne({ where: { slug }, attributes })) as Promise<Abrasive | null>;
-const methodRef = (slug: string) => pageRefs.read(`method:${slug}`, () => Method.findOne({ where: { slug }, attributes })) as Promise<Method | null>;
+function pageRef<T extends typeof Steel | typeof Abrasive | typeof Method>(model: T, slug: string): Promise<InstanceType<T> | null> {
+  const find = () => (model as typeof Steel).findOne({ where: { slug }, attributes: { exclude: PAGE_TEXT_COLUMNS } });
+  return pageRefs.read(`${model.name}:${slug}`, find) as Promise<InstanceType<T> | null>;
+}
 
 /** Looks up the pages a result refers to by slug; every unknown slug is a field issue. */
 async function resolveReferences(input: ResultInput): Promise<ResultReferences> {
   const [steel, abrasive, sharpnessMethod, retentionMethod] = await Promise.all([
-    steelRef(input.steel),
-    abrasiveRef(input.abrasive),
-    methodRef(input.sharpness.method),
-    input.retention ? methodRef(input.retention.method) : Promise.resolve(null),
+    pageRef(Steel, input.steel),
+    pageRef(Abrasive, input.abrasive),
+    pageRef(Method, input.sharpness.method),
+    input.retention ? pageRef(Method, input.retention.method) : Promise.resolve(null),
   ]);
   const issues: FieldIssue[] = [];
   if (!steel) issues.push({ path: 'steel', message: `no steel page "${input.steel}"` });
