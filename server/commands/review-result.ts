@@ -1,4 +1,4 @@
-import { atLeast, can, type Actor } from '@shared/permissions';
+import { atLeast, can } from '@shared/permissions';
 import type { ReviewInput, ResultStatus } from '@shared/schemas/result';
 import { STATUS_LABELS } from '@shared/vocabulary';
 import type { AppContext } from '../context';
@@ -19,7 +19,7 @@ const outcome: Record<ReviewInput['decision'], ResultStatus> = { approve: 'appro
  * with the result as it now stands, with its trail.
  */
 export async function reviewResult(ctx: AppContext, reviewer: User, id: number, review: ReviewInput): Promise<Result> {
-  const actor: Actor = { id: reviewer.id, role: reviewer.role, banned: reviewer.banned };
+  const actor = reviewer.asActor();
   const audit = { action: `result.${review.decision}`, subjectType: 'result', subjectId: id, reason: review.note ?? null };
   // Read once, with its pages and trail, inside the write: the search document, the notice and
   // the answer all use it, and no read after the commit waits behind the caches catching up.

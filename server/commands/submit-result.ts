@@ -1,4 +1,3 @@
-import type { Actor } from '@shared/permissions';
 import { can } from '@shared/permissions';
 import { deriveResult } from '@shared/derive-result';
 import type { ResultInput, ResultStatus } from '@shared/schemas/result';
@@ -104,7 +103,7 @@ function submissionsOf(db: Database) {
  * pages, author and trail as a read would give them (they are all at hand, so none is read again).
  */
 export async function submitResult(ctx: AppContext, author: User, input: ResultInput): Promise<Result> {
-  const actor: Actor = { id: author.id, role: author.role, banned: author.banned };
+  const actor = author.asActor();
   if (!can(actor, 'create:result')) throw forbidden();
   const refs = await resolveReferences(input);
   const { result, event } = await submissionsOf(ctx.db).add(resultRow(actor.id, 'pending', input, refs));

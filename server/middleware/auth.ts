@@ -27,7 +27,7 @@ declare global {
 /** The signed-in person as the policy sees them, or null for a visitor. */
 export function actorOf(req: Request): Actor | null {
   const user = req.user as User | undefined;
-  return user ? { id: user.id, role: user.role, banned: user.banned } : null;
+  return user ? user.asActor() : null;
 }
 
 /** Refuses visitors with 401 and banned members with 403. */

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { Role } from '@shared/permissions';
+import type { Actor, Role } from '@shared/permissions';
 
 /** A person with an account; `oauthSubject` is the provider's stable id for them. */
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
@@ -13,6 +13,11 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare bio: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+
+  /** This account as the policy sees it (shared/permissions.ts). */
+  asActor(): Actor {
+    return { id: this.id, role: this.role, banned: this.banned };
+  }
 
   static initModel(sequelize: Sequelize) {
     User.init(

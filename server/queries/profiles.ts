@@ -74,7 +74,7 @@ const LIST = 50;
  * settings, tokens (publishers), their publisher application and their imports.
  */
 export async function ownPage(user: User) {
-  const actor: Actor = { id: user.id, role: user.role, banned: user.banned };
+  const actor = user.asActor();
   const byStatus = (status: ResultStatus) =>
     Result.findAll({ where: { authorId: user.id, status }, include: withTrail, order: [['updatedAt', 'DESC'], ['id', 'DESC']], limit: LIST });
   const counts = (await Result.findAll({ where: { authorId: user.id }, attributes: ['status', [fn('COUNT', col('id')), 'n']], group: ['status'], raw: true })) as unknown as {
