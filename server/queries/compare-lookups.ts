@@ -65,3 +65,8 @@ async function load(): Promise<Lookups> {
 export function lookups(): Promise<Lookups> {
   return kept.share('pages', load);
 }
+
+/** Forgets the pages, so the next comparison reads them again (the bench's cold reads). */
+export function clearLookups(): void {
+  kept.forget('pages');
+}
