@@ -10,6 +10,7 @@ import { CachedSessionStore } from './auth/cached-session-store';
 import { configurePassport } from './auth/passport';
 import { authRouter } from './routes/auth';
 import { apiRouter } from './routes/api';
+import { AnswerCache } from './middleware/answer-cache';
 import { bearerToken } from './middleware/bearer-token';
 import { errorHandler, SIGN_IN_FAILED_PATH } from './middleware/error-handler';
 import { rateLimits } from './middleware/rate-limit';
@@ -73,6 +74,10 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
     }),
   );
   app.use(requestLog());
+  const cookieName = sessionCookieName(ctx.env.isProduction);
+  // A visitor's read with a kept answer ends here: no session, body parsing or routing.
+  const answers = new AnswerCache();
+  app.use(answers.serveVisitors((req) => !needsSession(req, cookieName) && !req.headers.authorization));
   app.use(express.json({ limit: '256kb' }));
 
   const SessionStore = ConnectSessionSequelize(session.Store);
@@ -88,7 +93,6 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   const storeOptions = { db: ctx.db.sequelize, table: 'Session', checkExpirationInterval: 15 * 60 * 1000, expiration: idleMs, disableTouch: true };
   // In memory in front of the table: a signed-in request then reads no session row.
   const store = new CachedSessionStore(new SessionStore(storeOptions) as never);
-  const cookieName = sessionCookieName(ctx.env.isProduction);
   const auth = configurePassport(ctx);
   const withSession = express.Router();
   withSession.use(
@@ -116,11 +120,10 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use('/api', limits.tokenGuesses, bearerToken(ctx));
   app.use('/auth/signin', limits.signin);
   app.use('/auth/callback', signInOutcomeLog(SIGN_IN_FAILED_PATH));
-  app.use('/api/search', limits.search);
   app.use('/api', limits.posts, limits.uploads);
 
   app.use('/auth', authRouter(ctx, auth));
-  app.use('/api', apiRouter(ctx, options.mailCatcher));
+  app.use('/api', apiRouter(ctx, { mailCatcher: options.mailCatcher, answers, searchLimit: limits.search }));
 
   const clientDir = options.clientDir;
   if (clientDir && fs.existsSync(path.join(clientDir, 'index.html'))) {

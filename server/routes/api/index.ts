@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
 import { searchQuerySchema } from '@shared/schemas/result';
 import type { z } from 'zod';
 import type { AppContext } from '../../context';
@@ -23,10 +23,18 @@ import { meRouter } from './me';
 import { devRouter } from './dev';
 import type { MailCatcher } from '../../mail/mail-catcher';
 import { emptyQuerySchema } from '@shared/schemas/common';
-import { answerCache } from '../../middleware/answer-cache';
+import type { AnswerCache } from '../../middleware/answer-cache';
+
+export interface ApiOptions {
+  /** The app's kept answers, which the busiest reads use. */
+  answers: AnswerCache;
+  /** The search rate limit (created with the app's other limits). */
+  searchLimit: RequestHandler;
+  mailCatcher?: MailCatcher;
+}
 
 /** The JSON API under /api. Every state-changing request passes the CSRF check first. */
-export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
+export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }: ApiOptions): Router {
   const router = Router();
   router.use(csrfProtection);
 
@@ -40,13 +48,15 @@ export function apiRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
   });
 
   // The busiest reads first: Express tries each route of every router in turn until one matches.
-  router.use(compareRouter(ctx));
-  // Search answers are the same for whoever asks, and follow the index.
-  router.get('/search', answerCache([(listener) => ctx.search.onChanged(listener)], { forEveryone: true }), validate({ query: searchQuerySchema }), (req, res) => {
+  router.use(compareRouter(ctx, answers));
+  // Search answers are the same for whoever asks, and follow the index; a kept one still counts
+  // against the search limit.
+  const keptSearch = answers.keep([(listener) => ctx.search.onChanged(listener)], { forEveryone: true, guard: searchLimit });
+  router.get('/search', searchLimit, keptSearch, validate({ query: searchQuerySchema }), (req, res) => {
     const { q, type } = req.valid.query as z.infer<typeof searchQuerySchema>;
     res.json(ctx.search.search(q, type));
   });
-  router.use(pagesRouter(ctx));
+  router.use(pagesRouter(ctx, answers));
   router.use(resultsRouter(ctx));
   router.use(toolsRouter());
   router.use(wheelsRouter(ctx));

@@ -10,7 +10,7 @@ import {
 import type { AppContext } from '../../../context';
 import { validate } from '../../../middleware/validate';
 import { actorOf } from '../../../middleware/auth';
-import { answerCache } from '../../../middleware/answer-cache';
+import type { AnswerCache } from '../../../middleware/answer-cache';
 import { onCellsChanged } from '../../../aggregates/comparison-cells';
 import { onPagesChanged, onUsersChanged } from '../../../models/write-events';
 import { compareBody, compareExport } from '../../../queries/compare';
@@ -22,11 +22,11 @@ import { comparePoints } from '../../../queries/compare-points';
  * The comparison under /api/compare: the table (and pivot), its export, a cell's results, the
  * tester-paired comparison of two cells, and the chart points. All read approved results only.
  */
-export function compareRouter(ctx: AppContext): Router {
+export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   const router = Router();
   // The same for whoever asks; it reads approved results (through the cells), pages for their
   // names, and accounts for the publishers-only filter.
-  const kept = answerCache([onPagesChanged, onCellsChanged, onUsersChanged], { forEveryone: true });
+  const kept = answers.keep([onPagesChanged, onCellsChanged, onUsersChanged], { forEveryone: true });
 
   router.get('/compare', kept, validate({ query: compareQuerySchema }), async (req, res) => {
     const { body, etag } = await compareBody(req.valid.query as z.infer<typeof compareQuerySchema>);

@@ -25,7 +25,7 @@ import {
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
-import { answerCache } from '../../../middleware/answer-cache';
+import type { AnswerCache } from '../../../middleware/answer-cache';
 import { onPagesChanged } from '../../../models/write-events';
 import { onCellsChanged } from '../../../aggregates/comparison-cells';
 import { forbidden, notFound } from '../../../errors';
@@ -118,10 +118,10 @@ async function sendStale(res: Response, outcome: Extract<ReviseOutcome, { outcom
  * cached, since a browser would otherwise remember it for good). Its history stays readable at
  * /api/{section}/{merged-slug}/revisions.
  */
-export function pagesRouter(ctx: AppContext): Router {
+export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
   const router = Router();
   // A visitor's page or list answer depends on the pages and the approved results' figures only.
-  const forVisitors = answerCache([onPagesChanged, onCellsChanged]);
+  const forVisitors = answers.keep([onPagesChanged, onCellsChanged]);
 
   router.get('/steels', forVisitors, validate({ query: steelListQuerySchema }), async (req, res) => {
     const q = req.valid.query as z.infer<typeof steelListQuerySchema>;
