@@ -6,7 +6,8 @@ import { QueryTypes } from 'sequelize';
 import { Database } from '../../server/db/database';
 import { GroupCommit } from '../../server/db/group-commit';
 import { insertRows } from '../../server/db/insert-rows';
-import { User } from '../../server/models';
+import { AuditEntry, User } from '../../server/models';
+import { onUsersChanged } from '../../server/models/write-events';
 
 let dir: string;
 let db: Database;
@@ -95,5 +96,53 @@ describe('group commit', () => {
   it('stores text with a NUL character exactly (bound, not written into the SQL)', async () => {
     const [user] = await db.write((t) => insertRows(User, [{ ...userRow(1, 'c'), displayName: 'before\0after' }], t));
     expect((await User.findByPk(user.id))?.displayName).toBe('before\0after');
+  });
+});
+
+describe('insertRows', () => {
+  const stored = async (table: string, id: number) => (await db.sequelize.query<Record<string, unknown>>(`SELECT * FROM ${table} WHERE id = ?`, { replacements: [id], type: QueryTypes.SELECT }))[0];
+  const withoutIds = ({ id: _id, createdAt: _c, updatedAt: _u, ...rest }: Record<string, unknown>) => rest;
+
+  it('stores each row exactly as a create stores it (defaults, booleans, JSON, nulls, dates)', async () => {
+    const user = { handle: 'rows-user', displayName: 'Rows “User” — ünïcode', role: 'member' as const, oauthSubject: 'rows-user', email: null, bio: 'line\nbreak' };
+    const created = await db.write((t) => User.create({ ...user, handle: 'create-user', oauthSubject: 'create-user' }, { transaction: t }));
+    const [inserted] = await db.write((t) => insertRows(User, [user], t));
+    const [a, b] = [await stored('users', created.id), await stored('users', inserted.id)];
+    expect(withoutIds(b)).toEqual({ ...withoutIds(a), handle: 'rows-user', oauthSubject: 'rows-user' });
+    // The same format of date as a create writes (Sequelize's SQLite date text).
+    expect(String(b.createdAt)).toMatch(/^\d{4}-\d\d-\d\d \d\d:\d\d:\d\d\.\d{3} \+00:00$/);
+    expect(String(a.createdAt)).toMatch(/^\d{4}-\d\d-\d\d \d\d:\d\d:\d\d\.\d{3} \+00:00$/);
+
+    const audit = { actorId: created.id, action: 'rows-check', outcome: 'done' as const, subjectType: 'user', subjectId: null, reason: null, details: { list: [1, 2.5, 'three'], nested: { ok: true, none: null } } };
+    const auditCreated = await db.write((t) => AuditEntry.create(audit, { transaction: t }));
+    const [auditInserted] = await db.write((t) => insertRows(AuditEntry, [audit], t));
+    expect(withoutIds(await stored('audit_entries', auditInserted.id))).toEqual(withoutIds(await stored('audit_entries', auditCreated.id)));
+    expect((await AuditEntry.findByPk(auditInserted.id))?.details).toEqual(audit.details);
+    // What insertRows hands back reads as the row does.
+    expect(inserted.isNewRecord).toBe(false);
+    expect({ handle: inserted.handle, banned: inserted.banned, role: inserted.role }).toEqual({ handle: 'rows-user', banned: false, role: 'member' });
+  });
+
+  it('gives every row its own id, past the bound values one statement can hold', async () => {
+    // Seven columns bound per user: 5 000 rows need more than one statement.
+    const rows = Array.from({ length: 5_000 }, (_, i) => ({ handle: `many-${i}`, displayName: `Many ${i}`, role: 'member' as const, oauthSubject: `many-${i}` }));
+    const users = await db.write((t) => insertRows(User, rows, t));
+    expect(new Set(users.map((u) => u.id)).size).toBe(5_000);
+    const byId = new Map((await User.findAll({ where: { id: users.map((u) => u.id) }, raw: true })).map((u) => [u.id, u.handle]));
+    for (const u of users) expect(byId.get(u.id)).toBe(u.handle);
+  });
+
+  it('tells the model’s write events after the commit, not before', async () => {
+    const heard: string[] = [];
+    const stop = onUsersChanged(() => heard.push('changed'));
+    try {
+      await db.write(async (t) => {
+        await insertRows(User, [{ handle: 'rows-event', displayName: 'Event', role: 'member' as const, oauthSubject: 'rows-event' }], t);
+        expect(heard).toEqual([]);
+      });
+      expect(heard).toEqual(['changed']);
+    } finally {
+      stop();
+    }
   });
 });
