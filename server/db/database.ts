@@ -58,7 +58,10 @@ export class Database {
           logging: options.logging ? console.log : false,
           pool: { max: 1, idle: 60_000 },
         });
-    if (this.isSqlite) keepOneWriterConnection(this.sequelize);
+    if (this.isSqlite) {
+      keepOneWriterConnection(this.sequelize);
+      beginAndCommitDirectly(this.sequelize);
+    }
     initModels(this.sequelize);
   }
 
@@ -117,4 +120,27 @@ function keepOneWriterConnection(sequelize: Sequelize): void {
     if (connection === writer && !force) return;
     release(connection, force);
   };
+}
+
+/**
+ * A transaction's BEGIN and COMMIT go straight to its SQLite connection instead of through
+ * `sequelize.query`, whose work per statement (options copied, a stack trace taken, the answer
+ * parsed) cost more than the statements themselves: an empty write transaction took 0.7–0.9 ms
+ * of CPU through Sequelize, 0.15–0.25 ms sent directly (measured on the 100 000-result
+ * database), and most submissions under load are a transaction of their own. Sequelize still
+ * runs the transaction (its connection, afterCommit hooks, rollback); savepoints are left to it.
+ */
+function beginAndCommitDirectly(sequelize: Sequelize): void {
+  type Connection = { exec(sql: string, callback: (err: Error | null) => void): void };
+  type Tx = Transaction & { parent?: Transaction; connection: Connection };
+  const queryInterface = sequelize.getQueryInterface() as unknown as {
+    queryGenerator: { startTransactionQuery(t: Transaction): string; commitTransactionQuery(t: Transaction): string };
+    startTransaction(t: Tx, options?: object): Promise<unknown>;
+    commitTransaction(t: Tx, options?: object): Promise<unknown>;
+  };
+  const exec = (connection: Connection, sql: string) => new Promise<void>((resolve, reject) => connection.exec(sql, (err) => (err ? reject(err) : resolve())));
+  const start = queryInterface.startTransaction.bind(queryInterface);
+  const commit = queryInterface.commitTransaction.bind(queryInterface);
+  queryInterface.startTransaction = (t, options) => (t.parent ? start(t, options) : exec(t.connection, queryInterface.queryGenerator.startTransactionQuery(t)));
+  queryInterface.commitTransaction = (t, options) => (t.parent ? commit(t, options) : exec(t.connection, queryInterface.queryGenerator.commitTransactionQuery(t)));
 }

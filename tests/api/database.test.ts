@@ -3,6 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
+import sqlite3 from 'sqlite3';
 import { Database } from '../../server/db/database';
 import { GroupCommit } from '../../server/db/group-commit';
 import { insertRows } from '../../server/db/insert-rows';
@@ -49,6 +50,21 @@ describe('the SQLite connection set-up', () => {
     const settled = await Promise.allSettled(writes);
     expect(settled.filter((s) => s.status === 'rejected')).toEqual([]);
     expect(await User.count({ where: {} })).toBe(40);
+  });
+
+  it('holds the write lock from the start of a write (BEGIN IMMEDIATE) until its commit', async () => {
+    const other = new sqlite3.Database(path.join(dir, 'edgeledger.sqlite'));
+    const tryBegin = () =>
+      new Promise<string>((resolve) => other.exec('BEGIN IMMEDIATE; ROLLBACK;', (err) => resolve(err ? String((err as { code?: string }).code) : 'began')));
+    try {
+      // Without a busy timeout, a second writer is refused at once while the lock is held.
+      await new Promise((r) => other.exec('PRAGMA busy_timeout = 0', r));
+      const during = await db.write(async () => tryBegin());
+      expect(during).toBe('SQLITE_BUSY');
+      expect(await tryBegin()).toBe('began');
+    } finally {
+      await new Promise((r) => other.close(r));
+    }
   });
 
   it('rolls a failed write back and goes on with the next', async () => {
