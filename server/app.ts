@@ -92,7 +92,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   // minute, instead of the store updating the row on every request.
   const storeOptions = { db: ctx.db.sequelize, table: 'Session', checkExpirationInterval: 15 * 60 * 1000, expiration: idleMs, disableTouch: true };
   // In memory in front of the table: a signed-in request then reads no session row.
-  const store = new CachedSessionStore(new SessionStore(storeOptions) as never);
+  const store = new CachedSessionStore(new SessionStore(storeOptions) as never, (write) => ctx.db.queue.run(write));
   const auth = configurePassport(ctx);
   const withSession = express.Router();
   withSession.use(

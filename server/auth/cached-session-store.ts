@@ -12,6 +12,9 @@ interface InnerStore {
   expiration(data: session.SessionData): Date;
 }
 
+/** Runs a write in turn with the database's other writes (Database.queue.run). */
+export type InTurn = <T>(write: () => Promise<T>) => Promise<T>;
+
 /** Most sessions kept in memory; the oldest are dropped past it (they are read again on use). */
 const MAX_SESSIONS = 20_000;
 
@@ -20,13 +23,27 @@ const MAX_SESSIONS = 20_000;
  * a signed-in request does not read its session row (one process owns the database, so the
  * rows change only through here). Writes go to the database first; memory follows only once
  * they succeeded, and a destroy forgets the memory first. A kept session past its row's expiry
- * counts as gone, as the row would after the store's clean-up.
+ * counts as gone, as the row would after the store's clean-up. Writes to the table take their
+ * turn with the database's other writes (`inTurn`): a session saved while a write transaction
+ * held SQLite's lock would otherwise wait for it in SQLite's busy handler, holding the
+ * connection every read uses meanwhile.
  */
 export class CachedSessionStore extends session.Store {
   private readonly kept = new Map<string, { json: string; expiresAt: number }>();
 
-  constructor(private readonly inner: InnerStore) {
+  constructor(
+    private readonly inner: InnerStore,
+    private readonly inTurn: InTurn,
+  ) {
     super();
+  }
+
+  /** `inner`'s write method, run in turn; settles `callback` with its outcome. */
+  private write(call: (done: Callback) => void, callback: Callback): void {
+    this.inTurn(() => new Promise<void>((resolve, reject) => call((err) => (err ? reject(err) : resolve())))).then(
+      () => callback(),
+      (err: unknown) => callback(err),
+    );
   }
 
   private keep(sid: string, data: session.SessionData): void {
@@ -47,15 +64,18 @@ export class CachedSessionStore extends session.Store {
 
   override set(sid: string, data: session.SessionData, callback?: Callback): void {
     this.kept.delete(sid);
-    this.inner.set(sid, data, (err) => {
-      if (!err) this.keep(sid, data);
-      callback?.(err);
-    });
+    this.write(
+      (done) => this.inner.set(sid, data, done),
+      (err) => {
+        if (!err) this.keep(sid, data);
+        callback?.(err);
+      },
+    );
   }
 
   override destroy(sid: string, callback?: Callback): void {
     this.kept.delete(sid);
-    this.inner.destroy(sid, callback);
+    this.write((done) => this.inner.destroy(sid, done), (err) => callback?.(err));
   }
 
   override touch(sid: string, data: session.SessionData, callback?: () => void): void {
