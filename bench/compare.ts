@@ -376,8 +376,8 @@ async function searchPhase() {
   figures.searchFirstRequestMs = ms(coldStart[0]);
   await ask('reset-loop');
   const times: number[] = [];
-  // Round 1 asks each query for the first time; rounds 2–5 repeat them, and the index answers
-  // those from its cache of answers (cleared by any change to the index).
+  // Round 1 asks each query for the first time; rounds 2–5 repeat them, and the search route
+  // answers those from its kept answers (cleared by any change to the index).
   const firstRound: number[] = [];
   const hitsOf: Record<string, number> = {};
   const slowest: Record<string, number> = {};

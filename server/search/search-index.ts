@@ -101,7 +101,6 @@ const OWNERS_PER_DOC = 4;
 type Counts = { facets: Record<SearchDocType, number>; groups: Partial<Record<SearchDocType, Record<string, number>>> };
 type Ranked = { key: string; score: number; terms: string[] };
 type SearchAnswer = { hits: SearchHit[] } & Counts;
-const ANSWERS_KEPT = 500;
 /** Hits shown for a query, unless the caller asks for another number. */
 const HITS_SHOWN = 30;
 
@@ -125,23 +124,18 @@ export class SearchIndex {
   private owners = SearchIndex.createOwners();
   private table = new OwnerTable();
   private readonly docs = new Map<string, ShownDoc>();
-  /**
-   * Answers given since the index last changed, by query: the same words are asked again and
-   * again (the words typed so far, a popular grade), and the index changes only on an approval
-   * or an edit. Cleared by every change; at most ANSWERS_KEPT.
-   */
-  private readonly answers = new Map<string, SearchAnswer>();
   private readonly changeListeners = new Set<() => void>();
 
-  /** Calls `listener` whenever what the index would answer may have changed (a build, an upsert, a removal). */
+  /**
+   * Calls `listener` whenever what the index would answer may have changed (a build, an upsert,
+   * a removal): the search route keeps its answers until then (server/middleware/answer-cache.ts).
+   */
   onChanged(listener: () => void): () => void {
     this.changeListeners.add(listener);
     return () => this.changeListeners.delete(listener);
   }
 
-  /** Forgets the kept answers, here and in every listener's cache. */
   private changed(): void {
-    this.answers.clear();
     for (const l of this.changeListeners) l();
   }
 
@@ -233,20 +227,9 @@ export class SearchIndex {
     this.table.remove(key);
   }
 
-  /**
-   * Hits for `query`, best first, and the number of hits of each type before the type filter.
-   * The answer may be shared with other callers: read it, do not change it.
-   */
+  /** Hits for `query`, best first, and the number of hits of each type before the type filter. */
   search(query: string, type?: SearchDocType, limit = HITS_SHOWN): SearchAnswer {
-    const terms = tokenizeQuery(query);
-    const id = `${type ?? ''}|${limit}|${terms.join(' ')}`;
-    let answer = this.answers.get(id);
-    if (!answer) {
-      answer = this.answer(terms, type, limit);
-      if (this.answers.size >= ANSWERS_KEPT) this.answers.delete(this.answers.keys().next().value!);
-      this.answers.set(id, answer);
-    }
-    return answer;
+    return this.answer(tokenizeQuery(query), type, limit);
   }
 
   private answer(terms: string[], type: SearchDocType | undefined, limit: number): SearchAnswer {
