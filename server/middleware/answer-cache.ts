@@ -24,6 +24,11 @@ interface Group {
   guard?: RequestHandler;
 }
 
+/** Runs `guard` (Express middleware, perhaps asynchronous), then `then` unless it answered or failed. */
+function guarded(guard: RequestHandler, req: Request, res: Response, next: NextFunction, then: () => void): void {
+  Promise.resolve(guard(req, res, (err?: unknown) => (err ? next(err) : then()))).catch(next);
+}
+
 /** Sends `answer`; with its ETag set, Express answers 304 when the client holds it already. */
 function send(res: Response, answer: Answer): void {
   res.set(answer.headers).send(answer.body);
@@ -44,14 +49,15 @@ export class AnswerCache {
    * routes whose answer depends only on what those events follow), and serves them. By default
    * only visitors are served (a signed-in person's page carries their own allowed actions);
    * `forEveryone` for routes whose answer is the same whoever asks (the comparison, search).
-   * `guard` is middleware that must run for a kept answer too: the early path runs it; on the
-   * route it is mounted before this.
+   * `guard` is middleware that runs first, for a kept answer too (a rate limit, say), on the
+   * route and on the early path alike.
    */
   keep(events: ChangeEvent[], options: { forEveryone?: boolean; guard?: RequestHandler } = {}): RequestHandler {
     // At most 16 MB of answers per route group (a whole 5 000-cell comparison is about 2 MB).
     const answers = keptUntil<string, Answer>(events, { max: 2_000, weigh: (a) => a.body.length, budget: 16 * 1024 * 1024 });
-    this.groups.push({ answers, guard: options.guard });
-    return (req, res, next) => {
+    const { guard } = options;
+    this.groups.push({ answers, guard });
+    const keepOrServe: RequestHandler = (req, res, next) => {
       if (req.method !== 'GET' || (!options.forEveryone && actorOf(req))) return next();
       const key = req.originalUrl;
       const hit = answers.get(key);
@@ -71,6 +77,7 @@ export class AnswerCache {
       };
       next();
     };
+    return guard ? (req, res, next) => guarded(guard, req, res, next, () => keepOrServe(req, res, next)) : keepOrServe;
   }
 
   /**
@@ -85,7 +92,7 @@ export class AnswerCache {
         const hit = answers.get(req.originalUrl);
         if (hit === undefined) continue;
         if (!guard) return send(res, hit);
-        return void Promise.resolve(guard(req, res, (err?: unknown) => (err ? next(err) : send(res, hit)))).catch(next);
+        return guarded(guard, req, res, next, () => send(res, hit));
       }
       next();
     };

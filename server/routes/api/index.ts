@@ -49,10 +49,10 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
 
   // The busiest reads first: Express tries each route of every router in turn until one matches.
   router.use(compareRouter(ctx, answers));
-  // Search answers are the same for whoever asks, and follow the index; a kept one still counts
-  // against the search limit.
+  // Search answers are the same for whoever asks, and follow the index; every search, kept
+  // answer or not, counts against the search limit.
   const keptSearch = answers.keep([(listener) => ctx.search.onChanged(listener)], { forEveryone: true, guard: searchLimit });
-  router.get('/search', searchLimit, keptSearch, validate({ query: searchQuerySchema }), (req, res) => {
+  router.get('/search', keptSearch, validate({ query: searchQuerySchema }), (req, res) => {
     const { q, type } = req.valid.query as z.infer<typeof searchQuerySchema>;
     res.json(ctx.search.search(q, type));
   });
