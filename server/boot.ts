@@ -38,7 +38,8 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
     synchronous: env.SQLITE_SYNCHRONOUS,
   });
   await db.migrate();
-  if (env.SEED_DEMO === 'auto') {
+  // Production never loads the invented demo data (loadEnv refuses SEED_DEMO there too).
+  if (env.SEED_DEMO === 'auto' && !env.isProduction) {
     const seeded = await loadDemoData(db);
     if (seeded.loaded) log(`Loaded the demo data (${seeded.results} invented results).`);
   }
@@ -54,16 +55,19 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
     provider = new LocalOAuthProvider(() => firstMember?.oauthSubject);
     oauthUrl = await provider.start(env.OAUTH_PORT);
   }
-  if (!env.SMTP_HOST) {
+  // Production fails closed: loadEnv has required the hosted settings, and no stand-in starts
+  // there whatever the settings say.
+  if (!env.SMTP_HOST && !env.isProduction) {
     mailCatcher = new MailCatcher(env.dataDir);
     smtpPort = await mailCatcher.start(env.SMTP_PORT);
   }
   let localS3: LocalS3 | undefined;
   let s3Endpoint = env.S3_ENDPOINT;
-  if (!s3Endpoint) {
+  if (!s3Endpoint && !env.isProduction) {
     localS3 = new LocalS3(env.dataDir, env.S3_BUCKET);
     s3Endpoint = await localS3.start(env.S3_PORT);
   }
+  if (!s3Endpoint) throw new Error('S3_ENDPOINT: required in production');
   const storage = new ObjectStorage({ endpoint: s3Endpoint, bucket: env.S3_BUCKET, region: env.S3_REGION, accessKeyId: env.S3_ACCESS_KEY, secretAccessKey: env.S3_SECRET_KEY });
 
   const search = new SearchIndex();
@@ -94,6 +98,10 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
     s.once('error', reject);
   });
+  // A slow client may not hold a socket: its headers within 10 s, its whole request within 30 s
+  // (Node's defaults are 60 s and 5 minutes).
+  server.headersTimeout = 10_000;
+  server.requestTimeout = 30_000;
   const { port } = server.address() as AddressInfo;
   const url = `http://${env.HOST}:${port}`;
   ctx.baseUrl = env.PUBLIC_URL ?? url;

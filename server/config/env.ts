@@ -66,12 +66,47 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
   }
   const env = parsed.data;
   const isProduction = env.NODE_ENV === 'production';
-  if (isProduction && !env.SESSION_SECRET) throw new Error('Invalid environment:\n  SESSION_SECRET: required in production');
+  if (isProduction) {
+    const problems = productionProblems(env, source);
+    if (problems.length) throw new Error(`Refusing to start with NODE_ENV=production:\n${problems.map((p) => `  ${p}`).join('\n')}`);
+  }
   return {
     ...env,
     LOG_LEVEL: env.LOG_LEVEL ?? (env.NODE_ENV === 'test' ? 'silent' : 'info'),
     dataDir: path.resolve(env.DATA_DIR),
-    localProviders: !env.OAUTH_AUTHORIZE_URL,
+    localProviders: !isProduction && !env.OAUTH_AUTHORIZE_URL,
     isProduction,
   };
+}
+
+/** The local stand-ins' development credentials: never accepted in production. */
+const DEVELOPMENT_VALUES: Partial<Record<keyof z.infer<typeof envSchema>, string>> = {
+  OAUTH_CLIENT_ID: 'edgeledger-local',
+  OAUTH_CLIENT_SECRET: 'edgeledger-local-secret',
+  S3_ACCESS_KEY: 'S3RVER',
+  S3_SECRET_KEY: 'S3RVER',
+};
+
+/**
+ * What keeps `env` from running in production, one line per setting, each naming it: production
+ * fails closed, so no local stand-in (OAuth2 provider, mail catcher, S3 fake), no demo data and
+ * no development secret ever runs there. `source` tells a setting given from one left at its default.
+ */
+function productionProblems(env: z.infer<typeof envSchema>, source: NodeJS.ProcessEnv): string[] {
+  const problems: string[] = [];
+  const missing = (name: string, why: string) => problems.push(`${name}: required in production (${why})`);
+  if (!env.SESSION_SECRET) missing('SESSION_SECRET', 'at least 32 random characters signing the session cookie');
+  else if (env.SESSION_SECRET.length < 32) problems.push('SESSION_SECRET: at least 32 characters in production');
+  if (!env.PUBLIC_URL) missing('PUBLIC_URL', 'the https:// address people reach; sign-in and links in e-mail are built from it');
+  else if (new URL(env.PUBLIC_URL).protocol !== 'https:') problems.push('PUBLIC_URL: must be an https:// address in production');
+  const oauth = { OAUTH_AUTHORIZE_URL: env.OAUTH_AUTHORIZE_URL, OAUTH_TOKEN_URL: env.OAUTH_TOKEN_URL, OAUTH_USERINFO_URL: env.OAUTH_USERINFO_URL };
+  for (const [name, value] of Object.entries(oauth)) if (!value) missing(name, 'the hosted OAuth2 provider; the local stand-in never runs in production');
+  if (!env.SMTP_HOST) missing('SMTP_HOST', 'the SMTP server that sends e-mail; the local mail catcher never runs in production');
+  if (!env.S3_ENDPOINT) missing('S3_ENDPOINT', 'the S3-compatible bucket for photos; the local S3 fake never runs in production');
+  for (const [name, value] of Object.entries(DEVELOPMENT_VALUES)) {
+    if (!source[name]) missing(name, 'its development default is refused');
+    else if (source[name] === value) problems.push(`${name}: the development value is refused in production`);
+  }
+  if (source.SEED_DEMO && env.SEED_DEMO !== 'never') problems.push('SEED_DEMO: the invented demo data is never loaded in production; leave it unset or set it to never');
+  return problems;
 }

@@ -66,8 +66,9 @@ export const csrfProtection: RequestHandler = (req, _res, next) => {
   // attached by a browser on its own.
   if (!req.user || req.authenticatedBy === 'token') return next();
   const expected = (req.session?.csrfUser ?? null) === req.user.id ? req.session?.csrfToken : undefined;
-  const given = req.get('x-csrf-token');
-  if (!expected || !given || given.length !== expected.length || !crypto.timingSafeEqual(Buffer.from(given), Buffer.from(expected))) {
+  // Compared as bytes: a non-ASCII header of the right length in characters is longer in bytes.
+  const given = Buffer.from(req.get('x-csrf-token') ?? '');
+  if (!expected || given.length !== Buffer.byteLength(expected) || !crypto.timingSafeEqual(given, Buffer.from(expected))) {
     throw forbidden('Missing or wrong X-CSRF-Token header; fetch /api/session for the current token.');
   }
   next();

@@ -7,6 +7,7 @@ import { demoHandle, signIn, startTestServer } from '../setup/test-server';
 import type { CaughtMessage } from '../../server/mail/mail-catcher';
 import { renderEmail } from '../../server/mail/templates';
 import { User } from '../../server/models';
+import { unsubscribeQuery } from '../../server/mail/unsubscribe';
 
 const run = promisify(execFile);
 
@@ -93,6 +94,12 @@ describe('e-mail', () => {
     const all = (await admin.agent.get('/api/dev/mail').expect(200)).body as CaughtMessage[];
     expect(all.some((m) => m.subject.includes(`#${id2}:`))).toBe(false);
     await author.agent.put('/api/me/notifications').set('X-CSRF-Token', author.csrf).send({ review: true }).expect(200);
+  });
+
+  it('answers 404 to a correctly signed unsubscribe link for a member who does not exist', async () => {
+    const query = unsubscribeQuery(server.ctx.env, 987_654, 'review');
+    const res = await request(server.url).post(`/api/me/unsubscribe?${query}`).expect(404);
+    expect(res.body.error).toMatch(/member was not found/);
   });
 
   it('tells an applicant the outcome of their publisher application', async () => {

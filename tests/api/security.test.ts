@@ -13,7 +13,7 @@ import { inject } from 'vitest';
 import request from 'supertest';
 import express from 'express';
 import multer from 'multer';
-import { demoHandle, signIn, startTestServer, testRateLimits } from '../setup/test-server';
+import { demoHandle, productionEnv, signIn, startTestServer, testRateLimits } from '../setup/test-server';
 import { boot } from '../../server/boot';
 import { loadEnv } from '../../server/config/env';
 import { Database } from '../../server/db/database';
@@ -181,6 +181,12 @@ describe('one server', () => {
       expect(after.csrf).not.toBe(early);
       await request(server.url).post('/api/results').set('Cookie', after.cookie).set('X-CSRF-Token', early).send(goodResult()).expect(403);
       await request(server.url).post('/api/results').set('Cookie', after.cookie).set('X-CSRF-Token', after.csrf).send(goodResult()).expect(201);
+    });
+
+    it('refuses a non-ASCII X-CSRF-Token of the right length with 403 (compared as bytes)', async () => {
+      const s = await signInRaw(server.url, await demoHandle(server.url, 'member'));
+      // Node sends 'é' as one Latin-1 byte and reads it back as one character: two bytes in UTF-8.
+      await request(server.url).post('/api/results').set('Cookie', s.cookie).set('X-CSRF-Token', 'é'.repeat(s.csrf.length)).send(goodResult()).expect(403);
     });
 
     it('sign-out destroys the session: the old cookie is refused afterwards', async () => {
@@ -417,7 +423,7 @@ describe('one server', () => {
 });
 
 describe('in production (NODE_ENV=production behind one TLS proxy)', () => {
-  serverFor((s) => (production = s), { NODE_ENV: 'production', SESSION_SECRET: 'a-production-secret-for-tests-only', TRUST_PROXY: '1' });
+  serverFor((s) => (production = s), { ...productionEnv, TRUST_PROXY: '1' });
 
   it('is named __Host-, Secure, HttpOnly and SameSite in production, and never sent over plain HTTP', async () => {
     const viaTls = await request(production.url).get('/api/session').set('X-Forwarded-Proto', 'https').expect(200);

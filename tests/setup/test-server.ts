@@ -15,6 +15,25 @@ export const testRateLimits = {
 };
 
 /**
+ * Every setting production requires, pointing at addresses where nothing listens (the server
+ * reaches them only when someone signs in, sends mail or uploads a photo).
+ */
+export const productionEnv: Record<string, string> = {
+  NODE_ENV: 'production',
+  SESSION_SECRET: 'a-production-secret-for-tests-only-0123456789',
+  PUBLIC_URL: 'https://edgeledger.example',
+  OAUTH_AUTHORIZE_URL: 'https://id.edgeledger.example/authorize',
+  OAUTH_TOKEN_URL: 'https://id.edgeledger.example/token',
+  OAUTH_USERINFO_URL: 'https://id.edgeledger.example/userinfo',
+  OAUTH_CLIENT_ID: 'edgeledger-tests',
+  OAUTH_CLIENT_SECRET: 'a-client-secret-for-tests-only',
+  SMTP_HOST: 'smtp.edgeledger.example',
+  S3_ENDPOINT: 'https://s3.edgeledger.example',
+  S3_ACCESS_KEY: 'tests-access-key',
+  S3_SECRET_KEY: 'tests-secret-key',
+};
+
+/**
  * Starts the real server (with the real local OAuth2 provider and mail catcher) on free
  * loopback ports, over a fresh copy of the migrated demo database.
  */
