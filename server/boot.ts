@@ -6,7 +6,7 @@ import type { AppContext } from './context';
 import { Database } from './db/database';
 import { SearchIndex } from './search/search-index';
 import { allSearchDocs } from './search/documents';
-import { keepCellsInStep } from './aggregates/cell-search';
+import { searchFollowsChanges } from './search/follow-changes';
 import { Mailer } from './mail/mailer';
 import { MailCatcher } from './mail/mail-catcher';
 import { LocalS3 } from './storage/local-s3';
@@ -70,6 +70,8 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
   if (!s3Endpoint) throw new Error('S3_ENDPOINT: required in production');
   const storage = new ObjectStorage({ endpoint: s3Endpoint, bucket: env.S3_BUCKET, region: env.S3_REGION, accessKeyId: env.S3_ACCESS_KEY, secretAccessKey: env.S3_SECRET_KEY });
 
+  // The followers in this process build from the tables now, so they start at the newest change.
+  await db.changes.startAtNewest();
   const search = new SearchIndex();
   const started = Date.now();
   await search.rebuild(allSearchDocs());
@@ -91,8 +93,8 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
     },
     baseUrl: '',
   };
-  // Comparison cells refreshed by a write reach the search index after its commit.
-  const stopCellSync = keepCellsInStep(ctx);
+  // The index follows the change feed from here on: pages, published results, comparison cells.
+  const stopSearchFollow = searchFollowsChanges(ctx);
   const app = createApp(ctx, { clientDir: path.resolve('dist'), mailCatcher });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
@@ -128,7 +130,7 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
         });
         server.closeIdleConnections();
       });
-      stopCellSync();
+      stopSearchFollow();
       await db.close();
       mailer.close();
       await provider?.stop();

@@ -1,13 +1,13 @@
 import { Op, QueryTypes } from 'sequelize';
 import { ComparisonCell, Result } from '../models';
-import { onCellsChanged, type CellKey, type CellRecord } from './comparison-cells';
+import type { CellRecord } from './comparison-cells';
+import { follow, type CellKey, type Dispatched } from '../changes';
 
 /**
- * An in-process read cache of the precomputed cells, one entry per method and band step. The
- * server is the one process that writes the database (DEVELOPERS.md, decision 001) and every
- * cell refresh announces itself after its commit, so an entry is brought up to date exactly
- * when its method's cells change: the changed cells are read again from the table (every cell
- * after a full rebuild).
+ * An in-process read cache of the precomputed cells, one entry per method and band step. It
+ * follows the change feed's `cells`, so an entry is brought up to date exactly when its
+ * method's cells change: the changed cells are read again from the table (every cell after a
+ * full rebuild).
  */
 
 /** A method's cells for one band step, with the method's totals. */
@@ -24,16 +24,27 @@ export interface MethodCells {
 const entries = new Map<string, Promise<MethodCells>>();
 let totals: Promise<Map<number, number>> | null = null;
 
-onCellsChanged((change) => {
+/** The whole-φ cells a dispatched batch changed, or 'all' after a rebuild. */
+export function changedCells(batch: Dispatched): CellKey[] | 'all' {
+  const keys: CellKey[] = [];
+  for (const { change } of batch.changes) {
+    if (change.kind === 'cells') return 'all';
+    if (change.kind === 'result') keys.push(...change.cells);
+  }
+  return keys;
+}
+
+follow(['cells'], (batch) => {
   totals = null;
-  if ('all' in change) {
+  const changed = changedCells(batch);
+  if (changed === 'all') {
     entries.clear();
     return;
   }
   // A few cells changed (an approval, a retraction): re-read only those, after whatever read
   // of the entry is under way. Re-reading a method's thousand cells took 35–60 ms here.
   const byMethod = new Map<number, CellKey[]>();
-  for (const k of change.keys) byMethod.set(k.methodId, [...(byMethod.get(k.methodId) ?? []), k]);
+  for (const k of changed) byMethod.set(k.methodId, [...(byMethod.get(k.methodId) ?? []), k]);
   for (const [methodId, keys] of byMethod) {
     // Both band steps hold the same results, so the method's overall median is read once.
     const medians = new Map<number, Promise<number | null>>();

@@ -5,7 +5,8 @@ import type { SearchDoc } from '../search/search-index';
 import { lookups } from '../queries/compare-lookups';
 import { presentCell } from '../queries/compare-view';
 import { methodCells } from './cell-cache';
-import { onCellsChanged, type CellKey, type CellRecord } from './comparison-cells';
+import type { CellKey } from '../changes';
+import type { CellRecord } from './comparison-cells';
 
 // Keys of the cell documents this process has put in the index, so a cell that empties is removed.
 const indexed = new Set<string>();
@@ -34,7 +35,8 @@ export async function* allCellDocs(): AsyncGenerator<SearchDoc> {
   }
 }
 
-async function refreshKeys(ctx: AppContext, keys: CellKey[]): Promise<void> {
+/** Replaces the documents of the whole-φ cells `keys` (removes those of cells that emptied). */
+export async function reindexCells(ctx: Pick<AppContext, 'search'>, keys: CellKey[]): Promise<void> {
   const look = await lookups();
   for (const k of keys) {
     const method = look.methods.get(k.methodId);
@@ -53,7 +55,8 @@ async function refreshKeys(ctx: AppContext, keys: CellKey[]): Promise<void> {
   }
 }
 
-async function refreshAll(ctx: AppContext): Promise<void> {
+/** Replaces every cell document (after a full rebuild). */
+export async function reindexAllCells(ctx: Pick<AppContext, 'search'>): Promise<void> {
   const before = new Set(indexed);
   for await (const doc of allCellDocs()) {
     ctx.search.upsert(doc);
@@ -63,16 +66,4 @@ async function refreshAll(ctx: AppContext): Promise<void> {
     ctx.search.remove(key);
     indexed.delete(key);
   }
-}
-
-/**
- * Keeps the comparison cells in the search index in step with the table: after every commit
- * that refreshed cells, each touched whole-φ cell's document is replaced (or removed when the
- * cell emptied). Returns a function that stops listening.
- */
-export function keepCellsInStep(ctx: AppContext): () => void {
-  return onCellsChanged((change) => {
-    const work = 'all' in change ? refreshAll(ctx) : refreshKeys(ctx, change.keys);
-    work.catch((err) => console.error('search: could not update comparison cells', err));
-  });
 }

@@ -3,7 +3,6 @@ import OAuth2Strategy, { type VerifyCallback } from 'passport-oauth2';
 import type { AppContext } from '../context';
 import type { InferAttributes } from 'sequelize';
 import { User } from '../models';
-import { onUsersChanged } from '../models/write-events';
 import { keptUntil } from '../queries/kept-until';
 import { signInFromProvider } from '../commands/sign-in-from-provider';
 import { SignInStateStore } from './sign-in-state';
@@ -53,7 +52,7 @@ class ProviderStrategy extends OAuth2Strategy {
  * member): every signed-in request reads one, and a ban still takes effect on the next request
  * after its commit. Each request gets a User of its own, so nothing a handler does to it leaks.
  */
-const accounts = keptUntil<number, InferAttributes<User> | null>([onUsersChanged]);
+const accounts = keptUntil<number, InferAttributes<User> | null>('accounts');
 
 async function findAccount(id: number): Promise<User | null> {
   const fields = await accounts.read(id, async () => ((await User.findByPk(id))?.get({ plain: true }) as InferAttributes<User> | undefined) ?? null);

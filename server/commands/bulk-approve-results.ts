@@ -4,8 +4,7 @@ import { STATUS_LABELS } from '@shared/vocabulary';
 import type { AppContext } from '../context';
 import { forbidden, notFound } from '../errors';
 import { AuditEntry, ImportBatch, ImportBatchResult, Result, ResultEvent, User } from '../models';
-import { refreshCellsOf } from '../aggregates/comparison-cells';
-import { resultDoc, resultIncludes } from '../search/documents';
+import { record, resultsChanged, resultState } from '../changes';
 import { notifyMember } from '../mail/notify-member';
 import { insertRows } from '../db/insert-rows';
 
@@ -22,7 +21,7 @@ export interface BulkApproval {
  * import). In one transaction: each still-pending result not by the moderator is approved
  * with its trail entry, every decision and every refusal (already decided, own result,
  * unknown) gets an audit entry, and each comparison cell touched is refreshed once. The search
- * index follows after the commit, and each author gets one summary e-mail.
+ * index follows with the change feed, and each author gets one summary e-mail.
  */
 export async function bulkApproveResults(ctx: AppContext, actor: Actor, target: { ids?: number[]; importId?: number; note?: string }): Promise<BulkApproval> {
   if (!can(actor, 'bulk-approve:results')) throw forbidden('Only moderators approve results.');
@@ -61,22 +60,24 @@ export async function bulkApproveResults(ctx: AppContext, actor: Actor, target: 
       ...approved.map((r) => ({ actorId: actor.id, action: 'result.approve', outcome: 'done' as const, subjectType: 'result', subjectId: r.id, reason: note, details: { ...details, from: 'pending', to: 'approved' } })),
       ...refused.map((r) => ({ actorId: actor.id, action: 'result.approve', outcome: 'refused' as const, subjectType: 'result', subjectId: r.id, reason: note, details: { ...details, refusal: r.reason } })),
     ];
-    for (let i = 0; i < audits.length; i += CHUNK) await insertRows(AuditEntry, audits.slice(i, i + CHUNK), transaction);
-    await refreshCellsOf(approved, transaction);
+    for (let i = 0; i < audits.length; i += CHUNK) {
+      const entries = await insertRows(AuditEntry, audits.slice(i, i + CHUNK), transaction);
+      record(transaction, { kind: 'audit', ids: entries.map((e) => e.id) });
+    }
+    record(transaction, resultsChanged(approved.map((r) => ({ ...resultState(r), status: 'approved' as const }))));
     if (target.importId) {
       // What was refused while still pending (the moderator's own) keeps the import open.
       const stillPending = refused.some((r) => found.get(r.id)?.status === 'pending');
-      if (!stillPending && approved.length) await ImportBatch.update({ status: 'approved' }, { where: { id: target.importId }, transaction });
+      if (!stillPending && approved.length) {
+        await ImportBatch.update({ status: 'approved' }, { where: { id: target.importId }, transaction });
+        record(transaction, { kind: 'import', ids: [target.importId] });
+      }
     }
     const perAuthor = new Map<number, number>();
     for (const r of approved) perAuthor.set(r.authorId, (perAuthor.get(r.authorId) ?? 0) + 1);
     return { approved: approvedIds, refused, perAuthor };
   });
 
-  for (let i = 0; i < outcome.approved.length; i += 2000) {
-    const loaded = await Result.findAll({ where: { id: { [Op.in]: outcome.approved.slice(i, i + 2000) } }, include: resultIncludes });
-    for (const r of loaded) ctx.search.upsert(resultDoc(r));
-  }
   for (const [authorId, count] of outcome.perAuthor) {
     const author = await User.findByPk(authorId);
     if (!author) continue;

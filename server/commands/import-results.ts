@@ -9,8 +9,7 @@ import type { GritStandard } from '@shared/grit';
 import type { AppContext } from '../context';
 import { badRequest, forbidden, HttpError } from '../errors';
 import { Abrasive, ImportBatch, ImportBatchResult, Method, Result, ResultEvent, Steel } from '../models';
-import { refreshCellsOf } from '../aggregates/comparison-cells';
-import { resultDoc, resultIncludes } from '../search/documents';
+import { record, resultsChanged } from '../changes';
 import { loadPageLookup } from '../queries/page-lookup';
 import { siteSettings } from '../queries/site-settings';
 import { resultRow, type ResultReferences } from './submit-result';
@@ -165,7 +164,7 @@ const CHUNK = 500;
  * Imports a publisher's CSV: every row checked first; if any row has a problem, nothing is
  * stored (ImportRefused with the report). Otherwise all rows go in ONE write transaction, as
  * `pending` (or `approved` when the site trusts publishers' imports, with their comparison
- * cells refreshed in that transaction and the search index updated after the commit).
+ * cells refreshed in that transaction and the search index following the change feed).
  */
 export async function importResults(ctx: AppContext, actor: Actor, bytes: Buffer): Promise<{ imported: number; importId: number; status: 'pending' | 'approved' }> {
   if (!can(actor, 'import:results')) throw forbidden('Bulk import is for publishers.');
@@ -178,7 +177,6 @@ export async function importResults(ctx: AppContext, actor: Actor, bytes: Buffer
   const { importId, ids } = await ctx.db.write(async (transaction) => {
     const batch = await ImportBatch.create({ publisherId: actor.id, rows: rows.length, status }, { transaction });
     const ids: number[] = [];
-    const stored: Result[] = [];
     for (let i = 0; i < rows.length; i += CHUNK) {
       const inserted = await insertRows(Result, rows.slice(i, i + CHUNK), transaction);
       const events = inserted.flatMap((r) => {
@@ -190,18 +188,11 @@ export async function importResults(ctx: AppContext, actor: Actor, bytes: Buffer
       await insertRows(ResultEvent, events, transaction);
       await ImportBatchResult.bulkCreate(inserted.map((r) => ({ batchId: batch.id, resultId: r.id })), { transaction });
       for (const r of inserted) ids.push(r.id);
-      if (status === 'approved') stored.push(...inserted);
+      record(transaction, resultsChanged(inserted));
     }
-    if (status === 'approved') await refreshCellsOf(stored, transaction);
+    record(transaction, { kind: 'import', ids: [batch.id] });
     return { importId: batch.id, ids };
   });
-
-  if (status === 'approved') {
-    for (let i = 0; i < ids.length; i += 2000) {
-      const loaded = await Result.findAll({ where: { id: ids.slice(i, i + 2000) }, include: resultIncludes });
-      for (const r of loaded) ctx.search.upsert(resultDoc(r));
-    }
-  }
   return { imported: ids.length, importId, status };
 }
 

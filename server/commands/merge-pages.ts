@@ -6,9 +6,9 @@ import type { PageMerge, PageType } from '@shared/schemas/pages';
 import type { AppContext } from '../context';
 import { badRequest, conflict, forbidden, HttpError } from '../errors';
 import { Abrasive, Method, PageEvent, Result } from '../models';
-import { refreshCellsOf } from '../aggregates/comparison-cells';
+import { record, resultsChanged, resultState, type ResultState } from '../changes';
 import { findPageOfType, PAGE_MODELS, PAGE_WHAT, RESULT_COLUMNS, survivorOf, type PageModel } from '../queries/pages';
-import { reindexPage } from './revise-page';
+import { recordPageChange } from './revise-page';
 import { insertRows } from '../db/insert-rows';
 
 /** What a merge did. */
@@ -19,17 +19,14 @@ export interface MergeOutcome {
   movedResultIds: number[];
 }
 
-type CellRef = Pick<Result, 'sharpnessMethodId' | 'steelId' | 'material' | 'gritPhi'>;
-const cellRef = (r: CellRef): CellRef => ({ sharpnessMethodId: r.sharpnessMethodId, steelId: r.steelId, material: r.material, gritPhi: r.gritPhi });
-
 /**
  * A moderator merges a duplicate page (`slug`) into the page that survives (`input.into`), in
  * one transaction: every result on the duplicate moves to the survivor (an abrasive's results
  * re-derive grit and material from the survivor), the comparison cells they leave and enter are
  * refreshed, pages earlier merged into the duplicate now point at the survivor, and the duplicate
  * keeps all its revisions but redirects (`mergedIntoId`). Both pages record a page event naming
- * the other and the moved results. After the commit the duplicate leaves the search index and
- * the survivor (with the duplicate's names as aliases) and the moved results are re-indexed.
+ * the other and the moved results. With the change feed the duplicate leaves the search index
+ * and the survivor (with the duplicate's names as aliases) and the moved results are re-indexed.
  */
 export async function mergePages(ctx: AppContext, actor: Actor, type: PageType, slug: string, input: PageMerge): Promise<MergeOutcome> {
   if (!can(actor, 'merge:page')) throw forbidden('Only moderators merge pages.');
@@ -51,9 +48,9 @@ export async function mergePages(ctx: AppContext, actor: Actor, type: PageType, 
 
     const columns = RESULT_COLUMNS[type];
     const rows = await Result.findAll({ where: { [Op.or]: columns.map((c) => ({ [c]: source.id })) }, transaction });
-    const touched: CellRef[] = [];
+    const before: ResultState[] = [];
     for (const r of rows) {
-      if (r.status === 'approved') touched.push(cellRef(r));
+      before.push(resultState(r));
       const change: Partial<Record<string, unknown>> = {};
       for (const c of columns) if (r[c] === source.id) change[c] = target.id;
       if (type === 'abrasive') {
@@ -62,9 +59,8 @@ export async function mergePages(ctx: AppContext, actor: Actor, type: PageType, 
         Object.assign(change, { material: a.material, gritStandard: d.gritStandard, gritGrade: d.gritGrade, gritUm: d.gritUm, gritPhi: d.gritPhi });
       }
       await r.update(change, { transaction });
-      if (r.status === 'approved') touched.push(cellRef(r));
     }
-    if (touched.length) await refreshCellsOf(touched, transaction);
+    if (rows.length) record(transaction, resultsChanged(rows, before));
 
     const model = PAGE_MODELS[type] as typeof Method;
     await model.update({ mergedIntoId: target.id }, { where: { mergedIntoId: source.id }, transaction });
@@ -83,9 +79,9 @@ export async function mergePages(ctx: AppContext, actor: Actor, type: PageType, 
       ],
       transaction,
     );
+    // The survivor takes the duplicate's names as aliases; its results' titles stay its own.
+    recordPageChange(transaction, type, [source.id, target.id]);
     return { source, target, movedResultIds };
   });
-  ctx.search.remove(`${type}:${outcome.source.slug}`);
-  await reindexPage(ctx, type, outcome.target, { results: true });
   return outcome;
 }

@@ -2,13 +2,13 @@ import { can, type Actor } from '@shared/permissions';
 import type { AppContext } from '../context';
 import { forbidden, notFound } from '../errors';
 import { Result, ResultEvent } from '../models';
-import { cellKeyOf, refreshCell } from '../aggregates/comparison-cells';
+import { record, resultsChanged, resultState } from '../changes';
 import { findResult } from '../queries/results';
 
 /**
  * The author withdraws their approved result: it is kept (state `retracted`), leaves the
  * comparison cell in the same transaction, gets a trail entry with the reason, and leaves the
- * search index right after the commit. Resolves with the result as it now stands, with its trail.
+ * search index with the change feed. Resolves with the result as it now stands, with its trail.
  */
 export async function retractResult(ctx: AppContext, actor: Actor, id: number, reason: string): Promise<Result> {
   await ctx.db.write(async (transaction) => {
@@ -17,10 +17,10 @@ export async function retractResult(ctx: AppContext, actor: Actor, id: number, r
     if (!can(actor, 'retract:result', { authorId: result.authorId, status: result.status })) {
       throw forbidden(result.authorId === actor.id ? 'Only a published result can be withdrawn.' : 'Only the author withdraws a result.');
     }
+    const before = resultState(result);
     await result.update({ status: 'retracted' }, { transaction });
     await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'approved', toStatus: 'retracted', note: reason }, { transaction });
-    await refreshCell(cellKeyOf(result), transaction);
+    record(transaction, resultsChanged([result], [before]));
   });
-  ctx.search.remove(`result:${id}`);
   return findResult(id, actor);
 }

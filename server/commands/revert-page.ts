@@ -6,7 +6,7 @@ import { badRequest, forbidden } from '../errors';
 import { PageRevision } from '../models';
 import { contentOf, findPageOfType, findRevisionOf, type PageModel } from '../queries/pages';
 import type { ReviseOutcome } from './revise-page';
-import { applyContent, refuseIfMerged, reindexPage } from './revise-page';
+import { applyContent, recordPageChange, refuseIfMerged } from './revise-page';
 
 /**
  * A moderator restores an earlier accepted revision: its fields and body become a new live
@@ -48,9 +48,8 @@ export async function revertPage(ctx: AppContext, actor: Actor, type: PageType, 
       { transaction },
     );
     await applyContent(type, page, content, revision.id, transaction);
+    recordPageChange(transaction, type, [page.id], changedFields(type, contentOf(current), content));
     return { outcome: 'live', revision, page };
   });
-  // Reverts are rare: re-index the page's results too rather than work out what they touch.
-  if (outcome.outcome === 'live') await reindexPage(ctx, type, outcome.page, { results: true });
   return outcome;
 }

@@ -5,7 +5,7 @@ import type { AppContext } from '../context';
 import { conflict, forbidden, notFound } from '../errors';
 import { PageRevision } from '../models';
 import { contentOf, findPageOfType, findRevisionOf, PAGE_MODELS, type PageModel } from '../queries/pages';
-import { applyContent, refuseIfMerged, reindexPage, RESULT_VISIBLE_FIELDS } from './revise-page';
+import { applyContent, recordPageChange, refuseIfMerged } from './revise-page';
 
 /** What a review came to; 'conflict' means nothing was written. */
 export type ReviewOutcome =
@@ -35,13 +35,16 @@ export async function reviewPageRevision(ctx: AppContext, actor: Actor, id: numb
 
     if (review.decision === 'decline') {
       await found.update({ status: 'declined', ...reviewed }, { transaction });
+      recordPageChange(transaction, type, [page.id]);
       return { outcome: 'declined', revision: found, page, applied: found };
     }
 
     await refuseIfMerged(type, page);
     if (found.baseRevisionId === page.currentRevisionId) {
+      const current = await findRevisionOf(type, page.id, page.currentRevisionId!, transaction);
       await found.update({ status: 'live', ...reviewed }, { transaction });
       await applyContent(type, page, contentOf(found), found.id, transaction);
+      recordPageChange(transaction, type, [page.id], changedFields(type, contentOf(current), contentOf(found)));
       return { outcome: 'approved', revision: found, page, applied: found };
     }
 
@@ -67,13 +70,8 @@ export async function reviewPageRevision(ctx: AppContext, actor: Actor, id: numb
       { transaction },
     );
     await applyContent(type, page, merge.content, applied.id, transaction);
+    recordPageChange(transaction, type, [page.id], changedFields(type, contentOf(current), merge.content));
     return { outcome: 'approved', revision: found, page, applied };
   });
-  if (outcome.outcome === 'approved') {
-    const page = await findPageOfType(outcome.revision.pageType, outcome.page.slug);
-    const base = outcome.revision.baseRevisionId ? await PageRevision.findByPk(outcome.revision.baseRevisionId) : null;
-    const changed = base ? changedFields(outcome.revision.pageType, contentOf(base), contentOf(outcome.applied)) : RESULT_VISIBLE_FIELDS;
-    await reindexPage(ctx, outcome.revision.pageType, page, { results: changed.some((f) => RESULT_VISIBLE_FIELDS.includes(f)) });
-  }
   return outcome;
 }

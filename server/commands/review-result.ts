@@ -4,8 +4,7 @@ import { STATUS_LABELS } from '@shared/vocabulary';
 import type { AppContext } from '../context';
 import { conflict, forbidden, HttpError, notFound } from '../errors';
 import { Result, ResultEvent, User } from '../models';
-import { cellKeyOf, refreshCell } from '../aggregates/comparison-cells';
-import { resultDoc } from '../search/documents';
+import { record, resultsChanged, resultState } from '../changes';
 import { withTrail } from '../queries/results';
 import { notifyReviewOutcome } from './notify-review-outcome';
 import { recordAudit, recordRefusal } from './record-audit';
@@ -14,8 +13,8 @@ const outcome: Record<ReviewInput['decision'], ResultStatus> = { approve: 'appro
 
 /**
  * A moderator's decision on a pending result. The state change, its trail entry and the
- * comparison cell it touches are written in one transaction; the search index follows at once
- * after the commit. A result already decided is refused with 409, naming its state. Resolves
+ * comparison cell it touches are written in one transaction; the search index follows the
+ * change before the commit is acknowledged. A result already decided is refused with 409, naming its state. Resolves
  * with the result as it now stands, with its trail.
  */
 export async function reviewResult(ctx: AppContext, reviewer: User, id: number, review: ReviewInput): Promise<Result> {
@@ -33,10 +32,11 @@ export async function reviewResult(ctx: AppContext, reviewer: User, id: number, 
       throw conflict(`This result was already decided: it is now "${STATUS_LABELS[result.status]}".`);
     }
     const to = outcome[review.decision];
+    const before = resultState(result);
     await result.update({ status: to, approvedAt: to === 'approved' ? new Date() : null }, { transaction });
     const event = await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'pending', toStatus: to, note: review.note ?? null }, { transaction });
     await recordAudit(actor, { ...audit, details: { from: 'pending', to } }, transaction);
-    if (to === 'approved') await refreshCell(cellKeyOf(result), transaction);
+    record(transaction, resultsChanged([result], [before]));
     event.actor = reviewer;
     result.events = [...(result.events ?? []), event];
     return result;
@@ -45,7 +45,6 @@ export async function reviewResult(ctx: AppContext, reviewer: User, id: number, 
     if (err instanceof HttpError && (err.status === 409 || err.status === 403) && atLeast(actor.role, 'moderator')) await recordRefusal(ctx, actor, audit, err.message);
     throw err;
   });
-  if (result.status === 'approved') ctx.search.upsert(resultDoc(result));
   const author = result.author as User;
   notifyReviewOutcome(ctx, author, result, review.note).catch(() => undefined);
   return result;

@@ -8,8 +8,7 @@ import type { AppContext } from '../context';
 import { badRequest, conflict, forbidden, type FieldIssue } from '../errors';
 import { fieldIssues } from '../middleware/validate';
 import { Abrasive, Method, PageRevision, Result, Steel } from '../models';
-import { refreshCellsOf } from '../aggregates/comparison-cells';
-import { pageSearchDoc, resultDocsOfPage } from '../search/documents';
+import { record, resultsChanged, resultState, type ResultState } from '../changes';
 import { contentOf, findPageOfType, findRevisionOf, survivorOf, type PageModel } from '../queries/pages';
 
 /** What saving an edit came to: live at once, proposed for review, or refused as stale (nothing written). */
@@ -52,24 +51,23 @@ async function checkDesignationsFree(page: PageModel, fields: SteelFields, trans
 
 /**
  * Re-derives the stored grit and material of every result on an abrasive after its page
- * changed them (a result without its own grit takes the abrasive's), and refreshes the
- * comparison cells those results leave and enter. Returns how many results changed.
+ * changed them (a result without its own grit takes the abrasive's), and records the change
+ * (the comparison cells those results leave and enter follow). Returns how many results changed.
  */
 async function rederiveAbrasiveResults(abrasive: Abrasive, transaction: Transaction): Promise<number> {
   const rows = await Result.findAll({ where: { abrasiveId: abrasive.id }, transaction });
-  const touched: Pick<Result, 'sharpnessMethodId' | 'steelId' | 'material' | 'gritPhi'>[] = [];
-  let changed = 0;
+  const now: Result[] = [];
+  const before: ResultState[] = [];
   for (const r of rows) {
     const d = deriveResult(r.input, { standard: abrasive.gritStandard as GritStandard, grade: abrasive.gritGrade });
     const next = { material: abrasive.material, gritStandard: d.gritStandard, gritGrade: d.gritGrade, gritUm: d.gritUm, gritPhi: d.gritPhi };
     if (r.material === next.material && r.gritStandard === next.gritStandard && r.gritGrade === next.gritGrade && r.gritUm === next.gritUm && r.gritPhi === next.gritPhi) continue;
-    if (r.status === 'approved') touched.push({ sharpnessMethodId: r.sharpnessMethodId, steelId: r.steelId, material: r.material, gritPhi: r.gritPhi });
+    before.push(resultState(r));
     await r.update(next, { transaction });
-    if (r.status === 'approved') touched.push({ sharpnessMethodId: r.sharpnessMethodId, steelId: r.steelId, material: next.material, gritPhi: next.gritPhi });
-    changed += 1;
+    now.push(r);
   }
-  if (touched.length) await refreshCellsOf(touched, transaction);
-  return changed;
+  if (now.length) record(transaction, resultsChanged(now, before));
+  return now.length;
 }
 
 /**
@@ -120,20 +118,16 @@ export async function applyContent(type: PageType, page: PageModel, content: Pag
   );
 }
 
-/**
- * Brings the search index in step after a committed change to a page: its own document (or
- * none, once merged away) and, when its name or identity changed, the documents of the
- * approved results whose titles carry it.
- */
-export async function reindexPage(ctx: AppContext, type: PageType, page: PageModel, options: { results?: boolean } = {}): Promise<void> {
-  const doc = await pageSearchDoc(type, page.id);
-  if (doc) ctx.search.upsert(doc);
-  else ctx.search.remove(`${type}:${page.slug}`);
-  if (options.results) for (const d of await resultDocsOfPage(type, page.id)) ctx.search.upsert(d);
-}
-
 /** Fields whose change alters how results on the page are titled or found. */
 export const RESULT_VISIBLE_FIELDS = ['name', 'designations', 'material', 'grit'];
+
+/**
+ * Records a change of the page (its revisions and events included) in `transaction`;
+ * `changed`, the fields a live change changed, says whether its results' titles follow.
+ */
+export function recordPageChange(transaction: Transaction, type: PageType, ids: number[], changed: readonly string[] = []): void {
+  record(transaction, { kind: 'page', pageType: type, ids, renamed: changed.some((f) => RESULT_VISIBLE_FIELDS.includes(f)) || undefined });
+}
 
 /** Refuses an edit of a page that was merged away, naming the page that survives. */
 export async function refuseIfMerged(type: PageType, page: PageModel): Promise<void> {
@@ -146,8 +140,8 @@ export async function refuseIfMerged(type: PageType, page: PageModel): Promise<v
  * Saves an edit of a page as a new revision. The edit names the revision it started from; when
  * another revision became current in the meantime nothing is written and the outcome is
  * 'stale', with the current revision, the conflicting fields and a suggested merge. Otherwise a
- * moderator's or publisher's edit goes live at once (the page follows it, the search index after
- * the commit) and a member's is stored as a proposal for the review desk. Protected pages take
+ * moderator's or publisher's edit goes live at once (the page follows it, the search index
+ * with the change feed) and a member's is stored as a proposal for the review desk. Protected pages take
  * edits from moderators only. An edit that changes nothing is refused.
  */
 export async function revisePage(ctx: AppContext, actor: Actor, type: PageType, slug: string, edit: PageEdit): Promise<ReviseOutcome> {
@@ -180,11 +174,8 @@ export async function revisePage(ctx: AppContext, actor: Actor, type: PageType, 
       { transaction },
     );
     if (live) await applyContent(type, page, content, revision.id, transaction);
+    recordPageChange(transaction, type, [page.id], live ? changedFields(type, contentOf(baseRevision), content) : []);
     return { outcome: live ? 'live' : 'proposed', revision, page };
   });
-  if (outcome.outcome === 'live') {
-    const changed = changedFields(type, contentOf(await findRevisionOf(type, outcome.page.id, base)), content);
-    await reindexPage(ctx, type, outcome.page, { results: changed.some((f) => RESULT_VISIBLE_FIELDS.includes(f)) });
-  }
   return outcome;
 }

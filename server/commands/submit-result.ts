@@ -5,18 +5,18 @@ import type { GritStandard } from '@shared/grit';
 import type { AppContext } from '../context';
 import { badRequest, forbidden, type FieldIssue } from '../errors';
 import { Abrasive, Method, PAGE_TEXT_COLUMNS, Result, ResultEvent, Steel, type User } from '../models';
-import { onPagesChanged } from '../models/write-events';
 import { keptUntil } from '../queries/kept-until';
 import type { Database } from '../db/database';
 import { GroupCommit } from '../db/group-commit';
 import { insertRows } from '../db/insert-rows';
 import { renderRichText } from '../rich-text/render';
+import { record, resultsChanged } from '../changes';
 
 /**
  * The pages results refer to, by type and slug, without their long columns, kept until a page
  * changes: every submission names three or four of them. Shared, so never changed by a caller.
  */
-const pageRefs = keptUntil<string, Steel | Abrasive | Method | null>([onPagesChanged]);
+const pageRefs = keptUntil<string, Steel | Abrasive | Method | null>('pageRefs');
 function pageRef<T extends typeof Steel | typeof Abrasive | typeof Method>(model: T, slug: string): Promise<InstanceType<T> | null> {
   const find = () => (model as typeof Steel).findOne({ where: { slug }, attributes: { exclude: PAGE_TEXT_COLUMNS } });
   return pageRefs.read(`${model.name}:${slug}`, find) as Promise<InstanceType<T> | null>;
@@ -90,6 +90,7 @@ function submissionsOf(db: Database) {
         results.map((r) => ({ resultId: r.id, actorId: r.authorId, fromStatus: null, toStatus: 'pending' as const, note: null })),
         transaction,
       );
+      record(transaction, resultsChanged(results));
       return results.map((result, i) => ({ result, event: events[i] }));
     });
     submissions.set(db, group);

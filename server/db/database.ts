@@ -12,6 +12,8 @@ import * as m0005 from './migrations/0005-publishing';
 import * as m0006 from './migrations/0006-wheel-log';
 import * as m0007 from './migrations/0007-result-page-indexes';
 import * as m0008 from './migrations/0008-result-members-index';
+import * as m0009 from './migrations/0009-changes';
+import { ChangeFeed } from '../changes/feed';
 
 /** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
 const migrations = [
@@ -22,6 +24,7 @@ const migrations = [
   { name: '0006-wheel-log', module: m0006 },
   { name: '0007-result-page-indexes', module: m0007 },
   { name: '0008-result-members-index', module: m0008 },
+  { name: '0009-changes', module: m0009 },
 ];
 
 export interface DatabaseOptions {
@@ -41,6 +44,8 @@ export interface DatabaseOptions {
 export class Database {
   readonly sequelize: Sequelize;
   readonly queue = new WriteQueue();
+  /** What the writes changed: recorded in each transaction, dispatched after its commit. */
+  readonly changes = new ChangeFeed(this);
   readonly isSqlite: boolean;
 
   constructor(readonly options: DatabaseOptions) {
@@ -77,16 +82,23 @@ export class Database {
   }
 
   /**
-   * Runs `work` in a write transaction once every earlier write has finished. Resolves only
-   * after the commit, so a caller that answers 2xx afterwards never acknowledges a lost write.
+   * Runs `work` in a write transaction once every earlier write has finished; what `work`
+   * recorded (`record(transaction, …)`, server/changes/) is written in the same transaction.
+   * Resolves only after the commit and after every follower took its changes (the search index,
+   * the caches), so a caller that answers 2xx afterwards never acknowledges a lost write and a
+   * read that follows sees it.
    */
-  write<T>(work: (t: Transaction) => Promise<T>): Promise<T> {
-    return this.queue.run(() =>
-      this.sequelize.transaction(
-        this.isSqlite ? { type: Transaction.TYPES.IMMEDIATE } : {},
-        work,
-      ),
+  async write<T>(work: (t: Transaction) => Promise<T>): Promise<T> {
+    let feed: { dispatched?: Promise<void> } = {};
+    const value = await this.queue.run(() =>
+      this.sequelize.transaction(this.isSqlite ? { type: Transaction.TYPES.IMMEDIATE } : {}, async (transaction) => {
+        const outcome = await work(transaction);
+        feed = await this.changes.beforeCommit(transaction);
+        return outcome;
+      }),
     );
+    await feed.dispatched;
+    return value;
   }
 
   async close(): Promise<void> {

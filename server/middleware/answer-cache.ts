@@ -1,6 +1,7 @@
 import crypto from 'node:crypto';
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
-import { keptUntil, type ChangeEvent } from '../queries/kept-until';
+import { keptUntil } from '../queries/kept-until';
+import type { Kept } from '../changes';
 import { actorOf } from './auth';
 
 /** A weak ETag of the answer, computed once, as Express's own (etag package) would for it. */
@@ -36,7 +37,7 @@ function send(res: Response, answer: Answer): void {
 
 /**
  * The app's kept answers: what GET routes answered (status 200, JSON, with its ETag), by URL,
- * until one of the route's change events fires. Routes opt in with `keep`; the app serves
+ * until a commit changes what the route's row of `KEPT` follows. Routes opt in with `keep`; the app serves
  * visitors from it early with `serveVisitors`, before sessions, body parsing and routing, which
  * were most of a kept read's time (measured with --cpu-prof: 2 400 kept reads a second through
  * the routers, against 5 300 served before them, on 2 cores). One per app.
@@ -45,16 +46,17 @@ export class AnswerCache {
   private readonly groups: Group[] = [];
 
   /**
-   * Route middleware: keeps this route's answers until one of `events` fires (mount it on read
-   * routes whose answer depends only on what those events follow), and serves them. By default
+   * Route middleware: keeps this route's answers until a commit changes what its row `kept` of
+   * `KEPT` (server/changes/kept.ts) follows (mount it on read routes whose answer depends only on
+   * that), and serves them. By default
    * only visitors are served (a signed-in person's page carries their own allowed actions);
    * `forEveryone` for routes whose answer is the same whoever asks (the comparison, search).
    * `guard` is middleware that runs first, for a kept answer too (a rate limit, say), on the
    * route and on the early path alike.
    */
-  keep(events: ChangeEvent[], options: { forEveryone?: boolean; guard?: RequestHandler } = {}): RequestHandler {
+  keep(kept: Kept, options: { forEveryone?: boolean; guard?: RequestHandler } = {}): RequestHandler {
     // At most 16 MB of answers per route group (a whole 5 000-cell comparison is about 2 MB).
-    const answers = keptUntil<string, Answer>(events, { max: 2_000, weigh: (a) => a.body.length, budget: 16 * 1024 * 1024 });
+    const answers = keptUntil<string, Answer>(kept, { max: 2_000, weigh: (a) => a.body.length, budget: 16 * 1024 * 1024, stage: 'answers' });
     const { guard } = options;
     this.groups.push({ answers, guard });
     const keepOrServe: RequestHandler = (req, res, next) => {

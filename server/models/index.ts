@@ -3,7 +3,7 @@ import { User } from './user';
 import { Abrasive, Method, PageRevision, Steel } from './reference-pages';
 import { ComparisonCell, Result, ResultEvent } from './result';
 import { PageEvent } from './page-event';
-import { watchWrites } from './write-events';
+import { ChangeRow } from '../changes/change-row';
 import { Wheel, WheelMeasurement } from './wheel';
 import { ApiToken, AuditEntry, Flag, Follow, ImportBatch, ImportBatchResult, NotificationSetting, Photo, PublisherApplication, SiteSetting, initPublishingModels } from './publishing';
 
@@ -23,7 +23,7 @@ export function initModels(sequelize: Sequelize) {
   PageEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
   Wheel.hasMany(WheelMeasurement, { as: 'measurements', foreignKey: 'wheelId' });
   initPublishingModels(sequelize);
-  watchWrites({ pages: [Steel, Abrasive, Method, PageRevision, PageEvent], users: [User] } as never);
+  ChangeRow.initModel(sequelize);
 }
 
 export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement };

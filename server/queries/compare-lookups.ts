@@ -1,6 +1,4 @@
 import { Abrasive, Method, Steel } from '../models';
-import { onCellsChanged } from '../aggregates/comparison-cells';
-import { onPagesChanged } from '../models/write-events';
 import { keptUntil } from './kept-until';
 
 /** What the comparison needs to know of a steel page. */
@@ -38,7 +36,7 @@ export interface Lookups {
 }
 
 /** The pages, read once and kept until a page changes or cells do (a new page can only enter the comparison through an approved result). */
-const kept = keptUntil<'pages', Promise<Lookups>>([onPagesChanged, onCellsChanged]);
+const kept = keptUntil<'pages', Promise<Lookups>>('compareLookups');
 
 async function load(): Promise<Lookups> {
   const [steels, methods, abrasives] = await Promise.all([

@@ -1,14 +1,15 @@
-/** Registers a listener for a change event (onPagesChanged, onCellsChanged, …). */
-export type ChangeEvent = (listener: () => void) => unknown;
+import { follow, KEPT, type Kept, type Stage } from '../changes';
 
 /**
- * A map of values read from the database, kept until one of `events` fires, then emptied. A
- * value read while a change happened is handed out but not kept, so a read that raced a commit
- * never outlives it. Past `max` entries, or past `budget` by `weigh` (bytes, say), the map starts
- * again empty: the keys are few (pages, accounts, page URLs), and memory stays bounded.
+ * A map of values read from the database, kept until a commit changes what its row of `KEPT`
+ * (server/changes/kept.ts) follows, then emptied. A value read while a change happened is
+ * handed out but not kept, so a read that raced a commit never outlives it. Past `max` entries,
+ * or past `budget` by `weigh` (bytes, say), the map starts again empty: the keys are few (pages,
+ * accounts, page URLs), and memory stays bounded. `stage`: when it hears of a commit (see
+ * server/changes/followers.ts); kept reads at once, kept answers once the search index is current.
  */
-export function keptUntil<K, V>(events: ChangeEvent[], options: { max?: number; weigh?: (value: V) => number; budget?: number } = {}) {
-  const { max = 5_000, weigh, budget = Infinity } = options;
+export function keptUntil<K, V>(kept: Kept, options: { max?: number; weigh?: (value: V) => number; budget?: number; stage?: Stage } = {}) {
+  const { max = 5_000, weigh, budget = Infinity, stage = 'reads' } = options;
   const values = new Map<K, V>();
   let generation = 0;
   let weight = 0;
@@ -16,11 +17,14 @@ export function keptUntil<K, V>(events: ChangeEvent[], options: { max?: number; 
     values.clear();
     weight = 0;
   };
-  for (const on of events)
-    on(() => {
+  follow(
+    KEPT[kept],
+    () => {
       generation += 1;
       clear();
-    });
+    },
+    stage,
+  );
   return {
     get: (key: K): V | undefined => values.get(key),
     /** A mark to give `keep` later: a change between the two makes `keep` do nothing. */

@@ -7,7 +7,6 @@ import type { Actor } from '@shared/permissions';
 import { presentDeskRevision } from '../presenters/pages';
 import { Abrasive, Method, PAGE_TEXT_COLUMNS, PageEvent, PageRevision, Result, Steel, User } from '../models';
 import { notFound } from '../errors';
-import { onCellsChanged } from '../aggregates/comparison-cells';
 import { keptUntil } from './kept-until';
 
 /** A reference page of any type. */
@@ -28,11 +27,11 @@ export const RESULT_COLUMNS: Record<PageType, ('steelId' | 'abrasiveId' | 'sharp
 
 /**
  * Figures over the approved results (counts per page, a page's summary), kept until a commit
- * changes which results are approved or what they say: every such write refreshes comparison
- * cells, whose change event clears this. Each costs a pass over thousands of rows (a steel page
+ * changes which results are approved or what they say: every such write changes comparison
+ * cells, which clears this (KEPT.figures). Each costs a pass over thousands of rows (a steel page
  * spent 90 ms of its 100 on it at 100 000 results); a page read then costs a map look-up.
  */
-const overApproved = keptUntil<string, Promise<unknown>>([onCellsChanged]);
+const overApproved = keptUntil<string, Promise<unknown>>('figures');
 
 function cachedOverApproved<T>(key: string, compute: () => Promise<T>): Promise<T> {
   return overApproved.share(key, compute) as Promise<T>;

@@ -124,20 +124,6 @@ export class SearchIndex {
   private owners = SearchIndex.createOwners();
   private table = new OwnerTable();
   private readonly docs = new Map<string, ShownDoc>();
-  private readonly changeListeners = new Set<() => void>();
-
-  /**
-   * Calls `listener` whenever what the index would answer may have changed (a build, an upsert,
-   * a removal): the search route keeps its answers until then (server/middleware/answer-cache.ts).
-   */
-  onChanged(listener: () => void): () => void {
-    this.changeListeners.add(listener);
-    return () => this.changeListeners.delete(listener);
-  }
-
-  private changed(): void {
-    for (const l of this.changeListeners) l();
-  }
 
   private static create() {
     return new MiniSearch<SearchDoc>({
@@ -182,7 +168,6 @@ export class SearchIndex {
     [this.pages, this.own, this.owners, this.table] = [pages, own, owners, table];
     this.docs.clear();
     for (const [k, v] of shown) this.docs.set(k, v);
-    this.changed();
     this.warmUp();
   }
 
@@ -204,7 +189,6 @@ export class SearchIndex {
   /** Adds or replaces one document. */
   upsert(doc: SearchDoc): void {
     this.remove(doc.key);
-    this.changed();
     this.docs.set(doc.key, shownOf(doc));
     if (!doc.owners) {
       this.pages.add(doc);
@@ -221,7 +205,6 @@ export class SearchIndex {
   /** Removes one document if present. */
   remove(key: string): void {
     if (!this.docs.has(key)) return;
-    this.changed();
     for (const index of [this.pages, this.own]) if (index.has(key)) index.discard(key);
     this.docs.delete(key);
     this.table.remove(key);

@@ -10,7 +10,8 @@ import { COMPARE_SORT_KEYS } from '../../shared/schemas/compare';
 import type { CompareRow } from '../../shared/compare-view';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
 import { Abrasive, ComparisonCell, Method, Result, Steel, User } from '../../server/models';
-import { rebuildAllCells, refreshCellsOf } from '../../server/aggregates/comparison-cells';
+import { rebuildAllCells } from '../../server/aggregates/comparison-cells';
+import { record, resultsChanged, resultState } from '../../server/changes';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 beforeAll(async () => {
@@ -107,8 +108,9 @@ describe('the comparison table', () => {
     const steelId = (await Steel.findOne({ where: { slug: steel } }))!.id;
     const victim = (await Result.findOne({ where: { status: 'approved', sharpnessMethodId: v2, steelId, material, gritPhi: Number(phi) } }))!;
     await server.ctx.db.write(async (transaction) => {
+      const before = resultState(victim);
       await victim.update({ status: 'retracted' }, { transaction });
-      await refreshCellsOf([victim], transaction);
+      record(transaction, resultsChanged([victim], [before]));
     });
     const after = await view('method=push-cut-test-v2');
     expect(after.rows.find((r) => r.cell === cell.cell)!.n).toBe(cell.n - 1);
@@ -432,8 +434,9 @@ describe('npm run reaggregate', () => {
     for (const p of pending) await mod.agent.post(`/api/results/${p.id}/review`).set('X-CSRF-Token', mod.csrf).send({ decision: 'approve' }).expect(200);
     const some = await Result.findAll({ where: { status: 'approved' }, order: [['id', 'ASC']], limit: 5 });
     await server.ctx.db.write(async (transaction) => {
+      const before = some.map(resultState);
       for (const r of some) await r.update({ status: 'retracted' }, { transaction });
-      await refreshCellsOf(some, transaction);
+      record(transaction, resultsChanged(some, before));
     });
 
     const snapshot = async () =>

@@ -2,13 +2,14 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { QueryTypes } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import sqlite3 from 'sqlite3';
 import { Database } from '../../server/db/database';
 import { GroupCommit } from '../../server/db/group-commit';
 import { insertRows } from '../../server/db/insert-rows';
 import { AuditEntry, User } from '../../server/models';
-import { onUsersChanged } from '../../server/models/write-events';
+import { follow, record } from '../../server/changes';
+import { ChangeRow } from '../../server/changes/change-row';
 
 let dir: string;
 let db: Database;
@@ -148,15 +149,30 @@ describe('insertRows', () => {
     for (const u of users) expect(byId.get(u.id)).toBe(u.handle);
   });
 
-  it('tells the model’s write events after the commit, not before', async () => {
-    const heard: string[] = [];
-    const stop = onUsersChanged(() => heard.push('changed'));
+  it('writes a batch’s recorded changes in its transaction and tells followers after the commit, not before', async () => {
+    const heard: number[][] = [];
+    const stop = follow(['account'], (batch) => void heard.push(batch.changes.flatMap(({ change }) => ('ids' in change ? change.ids : []))));
     try {
-      await db.write(async (t) => {
-        await insertRows(User, [{ handle: 'rows-event', displayName: 'Event', role: 'member' as const, oauthSubject: 'rows-event' }], t);
+      const before = ((await ChangeRow.max('id')) as number | null) ?? 0;
+      const users = await db.write(async (t) => {
+        const rows = await insertRows(User, [{ handle: 'rows-event', displayName: 'Event', role: 'member' as const, oauthSubject: 'rows-event' }], t);
+        record(t, { kind: 'account', ids: rows.map((u) => u.id) });
         expect(heard).toEqual([]);
+        return rows;
       });
-      expect(heard).toEqual(['changed']);
+      expect(heard).toEqual([[users[0].id]]);
+      const rows = await ChangeRow.findAll({ where: { id: { [Op.gt]: before } }, raw: true });
+      expect(rows.map((r) => [r.kind, JSON.parse(r.keys)])).toEqual([['account', { ids: [users[0].id] }]]);
+      expect(db.changes.lastDispatchedId).toBe(rows[0].id);
+      // A rolled-back write leaves no change and tells no one.
+      await expect(
+        db.write(async (t) => {
+          record(t, { kind: 'account', ids: [users[0].id] });
+          throw new Error('rolled back');
+        }),
+      ).rejects.toThrow('rolled back');
+      expect(await ChangeRow.count({ where: { id: { [Op.gt]: before } } })).toBe(1);
+      expect(heard).toHaveLength(1);
     } finally {
       stop();
     }

@@ -49,9 +49,9 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
 
   // The busiest reads first: Express tries each route of every router in turn until one matches.
   router.use(compareRouter(ctx, answers));
-  // Search answers are the same for whoever asks, and follow the index; every search, kept
-  // answer or not, counts against the search limit.
-  const keptSearch = answers.keep([(listener) => ctx.search.onChanged(listener)], { forEveryone: true, guard: searchLimit });
+  // Search answers are the same for whoever asks, and are dropped once the index took a change;
+  // every search, kept answer or not, counts against the search limit.
+  const keptSearch = answers.keep('search', { forEveryone: true, guard: searchLimit });
   router.get('/search', keptSearch, validate({ query: searchQuerySchema }), (req, res) => {
     const { q, type } = req.valid.query as z.infer<typeof searchQuerySchema>;
     res.json(ctx.search.search(q, type));

@@ -11,8 +11,6 @@ import type { AppContext } from '../../../context';
 import { validate } from '../../../middleware/validate';
 import { actorOf } from '../../../middleware/auth';
 import type { AnswerCache } from '../../../middleware/answer-cache';
-import { onCellsChanged } from '../../../aggregates/comparison-cells';
-import { onPagesChanged, onUsersChanged } from '../../../models/write-events';
 import { compareBody, compareExport } from '../../../queries/compare';
 import { compareCell } from '../../../queries/compare-cell';
 import { comparePaired } from '../../../queries/compare-paired';
@@ -24,9 +22,8 @@ import { comparePoints } from '../../../queries/compare-points';
  */
 export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   const router = Router();
-  // The same for whoever asks; it reads approved results (through the cells), pages for their
-  // names, and accounts for the publishers-only filter.
-  const kept = answers.keep([onPagesChanged, onCellsChanged, onUsersChanged], { forEveryone: true });
+  // The same for whoever asks (what it follows: KEPT.compare in server/changes/kept.ts).
+  const kept = answers.keep('compare', { forEveryone: true });
 
   router.get('/compare', kept, validate({ query: compareQuerySchema }), async (req, res) => {
     const { body, etag } = await compareBody(req.valid.query as z.infer<typeof compareQuerySchema>);

@@ -26,8 +26,6 @@ import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import type { AnswerCache } from '../../../middleware/answer-cache';
-import { onPagesChanged } from '../../../models/write-events';
-import { onCellsChanged } from '../../../aggregates/comparison-cells';
 import { forbidden, notFound } from '../../../errors';
 import { Method, PAGE_TEXT_COLUMNS, PageRevision, type Abrasive, type Steel } from '../../../models';
 import {
@@ -121,7 +119,7 @@ async function sendStale(res: Response, outcome: Extract<ReviseOutcome, { outcom
 export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
   const router = Router();
   // A visitor's page or list answer depends on the pages and the approved results' figures only.
-  const forVisitors = answers.keep([onPagesChanged, onCellsChanged]);
+  const forVisitors = answers.keep('pages');
 
   router.get('/steels', forVisitors, validate({ query: steelListQuerySchema }), async (req, res) => {
     const q = req.valid.query as z.infer<typeof steelListQuerySchema>;
