@@ -2,8 +2,6 @@ import { parseGrit, type GritStandard } from '@shared/grit';
 import type { Database } from '../server/db/database';
 import { Abrasive, Method, PageRevision, Result, ResultEvent, Steel, User } from '../server/models';
 import { resultRow } from '../server/commands/submit-result';
-import { rebuildAllCells } from '../server/aggregates/comparison-cells';
-import { record, resultsChanged } from '../server/changes';
 import { members } from './data/members';
 import { steels } from './data/steels';
 import { abrasives } from './data/abrasives';
@@ -15,8 +13,8 @@ const DAY_MS = 24 * 3600 * 1000;
 
 /**
  * Loads the invented demo community into an empty database, in one transaction: members,
- * reference pages with a first revision each, results with their review trail, then the
- * comparison cells. Does nothing when any account exists. Returns what it inserted.
+ * reference pages with a first revision each, results with their review trail; the comparison
+ * cells follow from the change feed in the same transaction. Does nothing when any account exists. Returns what it inserted.
  */
 export async function loadDemoData(db: Database, now = new Date()): Promise<{ loaded: boolean; results: number }> {
   if ((await User.count()) > 0) return { loaded: false, results: 0 };
@@ -25,7 +23,6 @@ export async function loadDemoData(db: Database, now = new Date()): Promise<{ lo
       members.map((m) => ({ handle: m.handle, displayName: m.displayName, email: m.email, role: m.role, oauthSubject: m.handle, bio: m.bio })),
       { transaction },
     );
-    record(transaction, { kind: 'account', ids: users.map((u) => u.id) });
     const userByHandle = new Map(users.map((u) => [u.handle, u]));
     const admin = users.find((u) => u.role === 'admin')!;
     const moderators = users.filter((u) => u.role === 'moderator');
@@ -104,13 +101,7 @@ export async function loadDemoData(db: Database, now = new Date()): Promise<{ lo
       return [first, { resultId: result.id, actorId: reviewer.id, fromStatus: 'pending' as const, toStatus: r.status, note: r.reviewNote ?? null, createdAt: result.updatedAt }];
     });
     await ResultEvent.bulkCreate(events, { transaction });
-    for (const [pageType, pages] of [['steel', steelBySlug], ['abrasive', abrasiveBySlug], ['method', methodBySlug]] as const) {
-      record(transaction, { kind: 'page', pageType, ids: [...pages.values()].map((p) => p.id) });
-    }
-    // Every cell is built at once by the rebuild below, rather than one refresh per cell here.
-    record(transaction, { ...resultsChanged(inserted), cells: [] });
     return inserted.length;
   });
-  await rebuildAllCells(db);
   return { loaded: true, results: count };
 }

@@ -3,7 +3,6 @@ import type { PublisherApplicationInput } from '@shared/schemas/publishing';
 import type { AppContext } from '../context';
 import { conflict, forbidden } from '../errors';
 import { PublisherApplication } from '../models';
-import { record } from '../changes';
 
 /** A member applies to become a publisher; one open application at a time. */
 export async function applyForPublisher(ctx: AppContext, actor: Actor, input: PublisherApplicationInput): Promise<PublisherApplication> {
@@ -11,8 +10,6 @@ export async function applyForPublisher(ctx: AppContext, actor: Actor, input: Pu
   return ctx.db.write(async (transaction) => {
     const open = await PublisherApplication.findOne({ where: { userId: actor.id, status: 'pending' }, transaction });
     if (open) throw conflict('You already have an application waiting for a decision.');
-    const application = await PublisherApplication.create({ userId: actor.id, ...input, status: 'pending', decidedById: null, decisionNote: null, decidedAt: null }, { transaction });
-    record(transaction, { kind: 'application', ids: [application.id] });
-    return application;
+    return PublisherApplication.create({ userId: actor.id, ...input, status: 'pending', decidedById: null, decisionNote: null, decidedAt: null }, { transaction });
   });
 }

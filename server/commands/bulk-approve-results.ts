@@ -4,7 +4,6 @@ import { STATUS_LABELS } from '@shared/vocabulary';
 import type { AppContext } from '../context';
 import { forbidden, notFound } from '../errors';
 import { AuditEntry, ImportBatch, ImportBatchResult, Result, ResultEvent, User } from '../models';
-import { record, resultsChanged, resultState } from '../changes';
 import { notifyMember } from '../mail/notify-member';
 import { insertRows } from '../db/insert-rows';
 
@@ -60,18 +59,11 @@ export async function bulkApproveResults(ctx: AppContext, actor: Actor, target: 
       ...approved.map((r) => ({ actorId: actor.id, action: 'result.approve', outcome: 'done' as const, subjectType: 'result', subjectId: r.id, reason: note, details: { ...details, from: 'pending', to: 'approved' } })),
       ...refused.map((r) => ({ actorId: actor.id, action: 'result.approve', outcome: 'refused' as const, subjectType: 'result', subjectId: r.id, reason: note, details: { ...details, refusal: r.reason } })),
     ];
-    for (let i = 0; i < audits.length; i += CHUNK) {
-      const entries = await insertRows(AuditEntry, audits.slice(i, i + CHUNK), transaction);
-      record(transaction, { kind: 'audit', ids: entries.map((e) => e.id) });
-    }
-    record(transaction, resultsChanged(approved.map((r) => ({ ...resultState(r), status: 'approved' as const }))));
+    for (let i = 0; i < audits.length; i += CHUNK) await insertRows(AuditEntry, audits.slice(i, i + CHUNK), transaction);
     if (target.importId) {
       // What was refused while still pending (the moderator's own) keeps the import open.
       const stillPending = refused.some((r) => found.get(r.id)?.status === 'pending');
-      if (!stillPending && approved.length) {
-        await ImportBatch.update({ status: 'approved' }, { where: { id: target.importId }, transaction });
-        record(transaction, { kind: 'import', ids: [target.importId] });
-      }
+      if (!stillPending && approved.length) await ImportBatch.update({ status: 'approved' }, { where: { id: target.importId }, transaction });
     }
     const perAuthor = new Map<number, number>();
     for (const r of approved) perAuthor.set(r.authorId, (perAuthor.get(r.authorId) ?? 0) + 1);

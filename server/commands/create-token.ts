@@ -3,7 +3,6 @@ import { can, type Actor } from '@shared/permissions';
 import type { AppContext } from '../context';
 import { conflict, forbidden } from '../errors';
 import { ApiToken } from '../models';
-import { record } from '../changes';
 
 /** The most active tokens one publisher may hold. */
 export const TOKENS_PER_PUBLISHER = 20;
@@ -23,12 +22,10 @@ export function hashToken(token: string): string {
 export async function createToken(ctx: AppContext, actor: Actor, name: string): Promise<{ record: ApiToken; token: string }> {
   if (!can(actor, 'manage:tokens')) throw forbidden('API tokens are for publishers.');
   const token = `${TOKEN_PREFIX}${crypto.randomBytes(32).toString('base64url')}`;
-  const saved = await ctx.db.write(async (transaction) => {
+  const record = await ctx.db.write(async (transaction) => {
     const active = await ApiToken.count({ where: { userId: actor.id, revokedAt: null }, transaction });
     if (active >= TOKENS_PER_PUBLISHER) throw conflict(`You have ${active} active tokens; revoke one first.`);
-    const created = await ApiToken.create({ userId: actor.id, name, tokenHash: hashToken(token), prefix: token.slice(0, TOKEN_PREFIX.length + 6), lastUsedAt: null, revokedAt: null }, { transaction });
-    record(transaction, { kind: 'token', ids: [created.id] });
-    return created;
+    return ApiToken.create({ userId: actor.id, name, tokenHash: hashToken(token), prefix: token.slice(0, TOKEN_PREFIX.length + 6), lastUsedAt: null, revokedAt: null }, { transaction });
   });
-  return { record: saved, token };
+  return { record, token };
 }

@@ -3,7 +3,6 @@ import type { ApplicationDecisionInput } from '@shared/schemas/publishing';
 import type { AppContext } from '../context';
 import { conflict, forbidden, HttpError, notFound } from '../errors';
 import { PublisherApplication, User } from '../models';
-import { record } from '../changes';
 import { notifyMember } from '../mail/notify-member';
 import { recordAudit, recordRefusal } from './record-audit';
 
@@ -25,11 +24,7 @@ export async function decidePublisherApplication(ctx: AppContext, actor: Actor, 
       const status = input.decision === 'approve' ? 'approved' : 'declined';
       await application.update({ status, decidedById: actor.id, decisionNote: input.note ?? null, decidedAt: new Date() }, { transaction });
       // Staff keep their role; only a member becomes a publisher.
-      record(transaction, { kind: 'application', ids: [application.id] });
-      if (status === 'approved' && applicant.role === 'member') {
-        await applicant.update({ role: 'publisher' }, { transaction });
-        record(transaction, { kind: 'account', ids: [applicant.id] });
-      }
+      if (status === 'approved' && applicant.role === 'member') await applicant.update({ role: 'publisher' }, { transaction });
       await recordAudit(actor, { ...audit, details: { applicant: applicant.handle, workshop: application.workshop } }, transaction);
     })
     .catch(async (err: unknown) => {

@@ -3,7 +3,6 @@ import type { FlagInput, FlagResolutionInput, FlagSubject } from '@shared/schema
 import type { AppContext } from '../context';
 import { conflict, forbidden, HttpError, notFound } from '../errors';
 import { Abrasive, Flag, Method, Result, Steel } from '../models';
-import { record } from '../changes';
 import { recordAudit, recordRefusal } from './record-audit';
 
 const pageModels = { steel: Steel, abrasive: Abrasive, method: Method } as const;
@@ -28,12 +27,10 @@ export async function flagItem(ctx: AppContext, actor: Actor, input: FlagInput):
   return ctx.db.write(async (transaction) => {
     const open = await Flag.findOne({ where: { subjectType: input.subjectType, subjectId, reporterId: actor.id, status: 'open' }, transaction });
     if (open) throw conflict('You already flagged this; a moderator will look at it.');
-    const flag = await Flag.create(
+    return Flag.create(
       { subjectType: input.subjectType, subjectId, reporterId: actor.id, reason: input.reason, text: input.text ?? null, status: 'open', resolvedById: null, resolutionNote: null, resolvedAt: null },
       { transaction },
     );
-    record(transaction, { kind: 'flag', ids: [flag.id] });
-    return flag;
   });
 }
 
@@ -47,7 +44,6 @@ export async function resolveFlag(ctx: AppContext, actor: Actor, id: number, inp
       if (!flag) throw notFound('Flag');
       if (flag.status !== 'open') throw conflict(`This flag was already closed: ${flag.status}.`);
       await flag.update({ status: input.outcome, resolvedById: actor.id, resolutionNote: input.note, resolvedAt: new Date() }, { transaction });
-      record(transaction, { kind: 'flag', ids: [flag.id] });
       await recordAudit(actor, { ...audit, details: { on: `${flag.subjectType}:${flag.subjectId}`, reason: flag.reason } }, transaction);
       return flag;
     })

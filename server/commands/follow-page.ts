@@ -3,7 +3,6 @@ import type { FollowablePage } from '@shared/schemas/publishing';
 import type { AppContext } from '../context';
 import { notFound } from '../errors';
 import { Abrasive, Follow, Steel } from '../models';
-import { record } from '../changes';
 
 async function pageIdOf(pageType: FollowablePage, slug: string): Promise<number> {
   const page = pageType === 'steel' ? await Steel.findOne({ where: { slug }, attributes: ['id'] }) : await Abrasive.findOne({ where: { slug }, attributes: ['id'] });
@@ -16,19 +15,12 @@ export async function followPage(ctx: AppContext, actor: Actor, pageType: Follow
   const pageId = await pageIdOf(pageType, slug);
   await ctx.db.write(async (transaction) => {
     const existing = await Follow.findOne({ where: { userId: actor.id, pageType, pageId }, transaction });
-    if (existing) return;
-    const follow = await Follow.create({ userId: actor.id, pageType, pageId }, { transaction });
-    record(transaction, { kind: 'follow', ids: [follow.id] });
+    if (!existing) await Follow.create({ userId: actor.id, pageType, pageId }, { transaction });
   });
 }
 
 /** The member stops following a page. Idempotent. */
 export async function unfollowPage(ctx: AppContext, actor: Actor, pageType: FollowablePage, slug: string): Promise<void> {
   const pageId = await pageIdOf(pageType, slug);
-  await ctx.db.write(async (transaction) => {
-    const follows = await Follow.findAll({ where: { userId: actor.id, pageType, pageId }, attributes: ['id'], transaction });
-    if (!follows.length) return;
-    await Follow.destroy({ where: { id: follows.map((f) => f.id) }, transaction });
-    record(transaction, { kind: 'follow', ids: follows.map((f) => f.id) });
-  });
+  await ctx.db.write((transaction) => Follow.destroy({ where: { userId: actor.id, pageType, pageId }, transaction }));
 }

@@ -9,7 +9,6 @@ import type { GritStandard } from '@shared/grit';
 import type { AppContext } from '../context';
 import { badRequest, forbidden, HttpError } from '../errors';
 import { Abrasive, ImportBatch, ImportBatchResult, Method, Result, ResultEvent, Steel } from '../models';
-import { record, resultsChanged } from '../changes';
 import { loadPageLookup } from '../queries/page-lookup';
 import { siteSettings } from '../queries/site-settings';
 import { resultRow, type ResultReferences } from './submit-result';
@@ -188,9 +187,7 @@ export async function importResults(ctx: AppContext, actor: Actor, bytes: Buffer
       await insertRows(ResultEvent, events, transaction);
       await ImportBatchResult.bulkCreate(inserted.map((r) => ({ batchId: batch.id, resultId: r.id })), { transaction });
       for (const r of inserted) ids.push(r.id);
-      record(transaction, resultsChanged(inserted));
     }
-    record(transaction, { kind: 'import', ids: [batch.id] });
     return { importId: batch.id, ids };
   });
   return { imported: ids.length, importId, status };

@@ -3,14 +3,13 @@ import type { WheelInput, WheelMeasurementInput } from '@shared/schemas/wheels';
 import type { AppContext } from '../context';
 import { badRequest, notFound } from '../errors';
 import { Abrasive, Wheel, WheelMeasurement } from '../models';
-import { record } from '../changes';
 
 /** Adds a wheel to the member's log. */
 export async function addWheel(ctx: AppContext, actor: Actor, input: WheelInput): Promise<Wheel> {
   const abrasive = input.abrasive ? await Abrasive.findOne({ where: { slug: input.abrasive } }) : null;
   if (input.abrasive && !abrasive) throw badRequest('Invalid input.', [{ path: 'abrasive', message: `no abrasive page "${input.abrasive}"` }]);
-  return ctx.db.write(async (transaction) => {
-    const wheel = await Wheel.create(
+  return ctx.db.write((transaction) =>
+    Wheel.create(
       {
         ownerId: actor.id,
         name: input.name,
@@ -22,10 +21,8 @@ export async function addWheel(ctx: AppContext, actor: Actor, input: WheelInput)
         usualAnglesDeg: input.usualAnglesDeg,
       },
       { transaction },
-    );
-    record(transaction, { kind: 'wheel', ids: [wheel.id] });
-    return wheel;
-  });
+    ),
+  );
 }
 
 /** Records a measured diameter of one of the member's own wheels. */
@@ -37,6 +34,5 @@ export async function measureWheel(ctx: AppContext, actor: Actor, wheelId: numbe
       throw badRequest('Invalid input.', [{ path: 'diameterMm', message: `larger than the wheel's original ${wheel.originalDiameterMm} mm` }]);
     }
     await WheelMeasurement.create({ wheelId, measuredOn: input.measuredOn, diameterMm: input.diameterMm }, { transaction });
-    record(transaction, { kind: 'wheel', ids: [wheel.id] });
   });
 }

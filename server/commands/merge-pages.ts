@@ -6,9 +6,7 @@ import type { PageMerge, PageType } from '@shared/schemas/pages';
 import type { AppContext } from '../context';
 import { badRequest, conflict, forbidden, HttpError } from '../errors';
 import { Abrasive, Method, PageEvent, Result } from '../models';
-import { record, resultsChanged, resultState, type ResultState } from '../changes';
 import { findPageOfType, PAGE_MODELS, PAGE_WHAT, RESULT_COLUMNS, survivorOf, type PageModel } from '../queries/pages';
-import { recordPageChange } from './revise-page';
 import { insertRows } from '../db/insert-rows';
 
 /** What a merge did. */
@@ -48,9 +46,7 @@ export async function mergePages(ctx: AppContext, actor: Actor, type: PageType, 
 
     const columns = RESULT_COLUMNS[type];
     const rows = await Result.findAll({ where: { [Op.or]: columns.map((c) => ({ [c]: source.id })) }, transaction });
-    const before: ResultState[] = [];
     for (const r of rows) {
-      before.push(resultState(r));
       const change: Partial<Record<string, unknown>> = {};
       for (const c of columns) if (r[c] === source.id) change[c] = target.id;
       if (type === 'abrasive') {
@@ -60,7 +56,6 @@ export async function mergePages(ctx: AppContext, actor: Actor, type: PageType, 
       }
       await r.update(change, { transaction });
     }
-    if (rows.length) record(transaction, resultsChanged(rows, before));
 
     const model = PAGE_MODELS[type] as typeof Method;
     await model.update({ mergedIntoId: target.id }, { where: { mergedIntoId: source.id }, transaction });
@@ -79,8 +74,6 @@ export async function mergePages(ctx: AppContext, actor: Actor, type: PageType, 
       ],
       transaction,
     );
-    // The survivor takes the duplicate's names as aliases; its results' titles stay its own.
-    recordPageChange(transaction, type, [source.id, target.id]);
     return { source, target, movedResultIds };
   });
   return outcome;

@@ -4,7 +4,7 @@ import type { AppContext } from '../context';
 import { badRequest, forbidden } from '../errors';
 import { PageEvent, type Method } from '../models';
 import { findPageOfType, type PageModel } from '../queries/pages';
-import { recordPageChange, refuseIfMerged } from './revise-page';
+import { refuseIfMerged } from './revise-page';
 
 /**
  * A moderator protects a page (from then on only moderators edit it; members' proposals are
@@ -24,7 +24,6 @@ export async function protectPage(ctx: AppContext, actor: Actor, type: PageType,
       { pageType: type, pageId: page.id, actorId: actor.id, action: input.protected ? 'protect' : 'unprotect', note: input.note ?? null, detail: null },
       { transaction },
     );
-    recordPageChange(transaction, type, [page.id]);
     return page;
   });
 }

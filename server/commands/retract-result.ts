@@ -2,7 +2,6 @@ import { can, type Actor } from '@shared/permissions';
 import type { AppContext } from '../context';
 import { forbidden, notFound } from '../errors';
 import { Result, ResultEvent } from '../models';
-import { record, resultsChanged, resultState } from '../changes';
 import { findResult } from '../queries/results';
 
 /**
@@ -17,10 +16,8 @@ export async function retractResult(ctx: AppContext, actor: Actor, id: number, r
     if (!can(actor, 'retract:result', { authorId: result.authorId, status: result.status })) {
       throw forbidden(result.authorId === actor.id ? 'Only a published result can be withdrawn.' : 'Only the author withdraws a result.');
     }
-    const before = resultState(result);
     await result.update({ status: 'retracted' }, { transaction });
     await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'approved', toStatus: 'retracted', note: reason }, { transaction });
-    record(transaction, resultsChanged([result], [before]));
   });
   return findResult(id, actor);
 }

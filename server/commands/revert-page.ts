@@ -6,7 +6,7 @@ import { badRequest, forbidden } from '../errors';
 import { PageRevision } from '../models';
 import { contentOf, findPageOfType, findRevisionOf, type PageModel } from '../queries/pages';
 import type { ReviseOutcome } from './revise-page';
-import { applyContent, recordPageChange, refuseIfMerged } from './revise-page';
+import { applyContent, refuseIfMerged } from './revise-page';
 
 /**
  * A moderator restores an earlier accepted revision: its fields and body become a new live
@@ -48,7 +48,6 @@ export async function revertPage(ctx: AppContext, actor: Actor, type: PageType, 
       { transaction },
     );
     await applyContent(type, page, content, revision.id, transaction);
-    recordPageChange(transaction, type, [page.id], changedFields(type, contentOf(current), content));
     return { outcome: 'live', revision, page };
   });
   return outcome;

@@ -1,11 +1,11 @@
 import { can, type Actor } from '@shared/permissions';
-import { changedFields, mergeEdits } from '@shared/page-diff';
+import { mergeEdits } from '@shared/page-diff';
 import type { PageContent, PageReview } from '@shared/schemas/pages';
 import type { AppContext } from '../context';
 import { conflict, forbidden, notFound } from '../errors';
 import { PageRevision } from '../models';
-import { contentOf, findPageOfType, findRevisionOf, PAGE_MODELS, type PageModel } from '../queries/pages';
-import { applyContent, recordPageChange, refuseIfMerged } from './revise-page';
+import { contentOf, findRevisionOf, PAGE_MODELS, type PageModel } from '../queries/pages';
+import { applyContent, refuseIfMerged } from './revise-page';
 
 /** What a review came to; 'conflict' means nothing was written. */
 export type ReviewOutcome =
@@ -35,16 +35,13 @@ export async function reviewPageRevision(ctx: AppContext, actor: Actor, id: numb
 
     if (review.decision === 'decline') {
       await found.update({ status: 'declined', ...reviewed }, { transaction });
-      recordPageChange(transaction, type, [page.id]);
       return { outcome: 'declined', revision: found, page, applied: found };
     }
 
     await refuseIfMerged(type, page);
     if (found.baseRevisionId === page.currentRevisionId) {
-      const current = await findRevisionOf(type, page.id, page.currentRevisionId!, transaction);
       await found.update({ status: 'live', ...reviewed }, { transaction });
       await applyContent(type, page, contentOf(found), found.id, transaction);
-      recordPageChange(transaction, type, [page.id], changedFields(type, contentOf(current), contentOf(found)));
       return { outcome: 'approved', revision: found, page, applied: found };
     }
 
@@ -70,7 +67,6 @@ export async function reviewPageRevision(ctx: AppContext, actor: Actor, id: numb
       { transaction },
     );
     await applyContent(type, page, merge.content, applied.id, transaction);
-    recordPageChange(transaction, type, [page.id], changedFields(type, contentOf(current), merge.content));
     return { outcome: 'approved', revision: found, page, applied };
   });
   return outcome;

@@ -4,7 +4,6 @@ import { STATUS_LABELS } from '@shared/vocabulary';
 import type { AppContext } from '../context';
 import { conflict, forbidden, HttpError, notFound } from '../errors';
 import { Result, ResultEvent, User } from '../models';
-import { record, resultsChanged, resultState } from '../changes';
 import { withTrail } from '../queries/results';
 import { notifyReviewOutcome } from './notify-review-outcome';
 import { recordAudit, recordRefusal } from './record-audit';
@@ -32,11 +31,9 @@ export async function reviewResult(ctx: AppContext, reviewer: User, id: number, 
       throw conflict(`This result was already decided: it is now "${STATUS_LABELS[result.status]}".`);
     }
     const to = outcome[review.decision];
-    const before = resultState(result);
     await result.update({ status: to, approvedAt: to === 'approved' ? new Date() : null }, { transaction });
     const event = await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'pending', toStatus: to, note: review.note ?? null }, { transaction });
     await recordAudit(actor, { ...audit, details: { from: 'pending', to } }, transaction);
-    record(transaction, resultsChanged([result], [before]));
     event.actor = reviewer;
     result.events = [...(result.events ?? []), event];
     return result;

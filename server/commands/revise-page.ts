@@ -8,7 +8,6 @@ import type { AppContext } from '../context';
 import { badRequest, conflict, forbidden, type FieldIssue } from '../errors';
 import { fieldIssues } from '../middleware/validate';
 import { Abrasive, Method, PageRevision, Result, Steel } from '../models';
-import { record, resultsChanged, resultState, type ResultState } from '../changes';
 import { contentOf, findPageOfType, findRevisionOf, survivorOf, type PageModel } from '../queries/pages';
 
 /** What saving an edit came to: live at once, proposed for review, or refused as stale (nothing written). */
@@ -51,23 +50,20 @@ async function checkDesignationsFree(page: PageModel, fields: SteelFields, trans
 
 /**
  * Re-derives the stored grit and material of every result on an abrasive after its page
- * changed them (a result without its own grit takes the abrasive's), and records the change
- * (the comparison cells those results leave and enter follow). Returns how many results changed.
+ * changed them (a result without its own grit takes the abrasive's); the comparison cells those
+ * results leave and enter follow with the change feed. Returns how many results changed.
  */
 async function rederiveAbrasiveResults(abrasive: Abrasive, transaction: Transaction): Promise<number> {
   const rows = await Result.findAll({ where: { abrasiveId: abrasive.id }, transaction });
-  const now: Result[] = [];
-  const before: ResultState[] = [];
+  let changed = 0;
   for (const r of rows) {
     const d = deriveResult(r.input, { standard: abrasive.gritStandard as GritStandard, grade: abrasive.gritGrade });
     const next = { material: abrasive.material, gritStandard: d.gritStandard, gritGrade: d.gritGrade, gritUm: d.gritUm, gritPhi: d.gritPhi };
     if (r.material === next.material && r.gritStandard === next.gritStandard && r.gritGrade === next.gritGrade && r.gritUm === next.gritUm && r.gritPhi === next.gritPhi) continue;
-    before.push(resultState(r));
     await r.update(next, { transaction });
-    now.push(r);
+    changed += 1;
   }
-  if (now.length) record(transaction, resultsChanged(now, before));
-  return now.length;
+  return changed;
 }
 
 /**
@@ -121,14 +117,6 @@ export async function applyContent(type: PageType, page: PageModel, content: Pag
 /** Fields whose change alters how results on the page are titled or found. */
 export const RESULT_VISIBLE_FIELDS = ['name', 'designations', 'material', 'grit'];
 
-/**
- * Records a change of the page (its revisions and events included) in `transaction`;
- * `changed`, the fields a live change changed, says whether its results' titles follow.
- */
-export function recordPageChange(transaction: Transaction, type: PageType, ids: number[], changed: readonly string[] = []): void {
-  record(transaction, { kind: 'page', pageType: type, ids, renamed: changed.some((f) => RESULT_VISIBLE_FIELDS.includes(f)) || undefined });
-}
-
 /** Refuses an edit of a page that was merged away, naming the page that survives. */
 export async function refuseIfMerged(type: PageType, page: PageModel): Promise<void> {
   if (!page.mergedIntoId) return;
@@ -174,7 +162,6 @@ export async function revisePage(ctx: AppContext, actor: Actor, type: PageType, 
       { transaction },
     );
     if (live) await applyContent(type, page, content, revision.id, transaction);
-    recordPageChange(transaction, type, [page.id], live ? changedFields(type, contentOf(baseRevision), content) : []);
     return { outcome: live ? 'live' : 'proposed', revision, page };
   });
   return outcome;

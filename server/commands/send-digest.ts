@@ -2,7 +2,6 @@ import { Op } from 'sequelize';
 import type { AppContext } from '../context';
 import { Abrasive, Follow, NotificationSetting, Result, Steel, User } from '../models';
 import { notifyMember, wantsMail } from '../mail/notify-member';
-import { record } from '../changes';
 
 const WEEK_MS = 7 * 24 * 3600 * 1000;
 /** Results listed in one digest; the rest are counted. */
@@ -72,7 +71,6 @@ export async function sendDigest(ctx: Pick<AppContext, 'env' | 'db' | 'mailer' |
     await ctx.db.write(async (transaction) => {
       const [row] = await NotificationSetting.findOrCreate({ where: { userId }, defaults: { userId, lastDigestAt: null }, transaction });
       await row.update({ lastDigestAt: now }, { transaction });
-      record(transaction, { kind: 'mail-settings', ids: [userId] });
     });
   }
   return run;

@@ -10,7 +10,6 @@ import type { Database } from '../db/database';
 import { GroupCommit } from '../db/group-commit';
 import { insertRows } from '../db/insert-rows';
 import { renderRichText } from '../rich-text/render';
-import { record, resultsChanged } from '../changes';
 
 /**
  * The pages results refer to, by type and slug, without their long columns, kept until a page
@@ -90,7 +89,6 @@ function submissionsOf(db: Database) {
         results.map((r) => ({ resultId: r.id, actorId: r.authorId, fromStatus: null, toStatus: 'pending' as const, note: null })),
         transaction,
       );
-      record(transaction, resultsChanged(results));
       return results.map((result, i) => ({ result, event: events[i] }));
     });
     submissions.set(db, group);

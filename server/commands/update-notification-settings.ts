@@ -1,7 +1,6 @@
 import type { EmailTopic } from '@shared/schemas/publishing';
 import type { AppContext } from '../context';
 import { NotificationSetting, User } from '../models';
-import { record } from '../changes';
 import { notFound } from '../errors';
 
 /** Turns kinds of e-mail on or off for a member; returns the settings after the change. */
@@ -10,7 +9,6 @@ export async function updateNotificationSettings(ctx: AppContext, userId: number
     if (!(await User.findByPk(userId, { attributes: ['id'], transaction }))) throw notFound('That member');
     const [settings] = await NotificationSetting.findOrCreate({ where: { userId }, defaults: { userId, lastDigestAt: null }, transaction });
     await settings.update(changes, { transaction });
-    record(transaction, { kind: 'mail-settings', ids: [userId] });
     return settings;
   });
 }

@@ -1,9 +1,10 @@
-import type { Sequelize } from 'sequelize';
+import type { Model, ModelStatic, Sequelize } from 'sequelize';
 import { User } from './user';
 import { Abrasive, Method, PageRevision, Steel } from './reference-pages';
 import { ComparisonCell, Result, ResultEvent } from './result';
 import { PageEvent } from './page-event';
 import { ChangeRow } from '../changes/change-row';
+import { pageRowsOf, pagesOf, recordWritesOf, resultsOf, resultTrailOf, rowsOf, settingsOf } from '../changes/model-writes';
 import { Wheel, WheelMeasurement } from './wheel';
 import { ApiToken, AuditEntry, Flag, Follow, ImportBatch, ImportBatchResult, NotificationSetting, Photo, PublisherApplication, SiteSetting, initPublishingModels } from './publishing';
 
@@ -24,6 +25,16 @@ export function initModels(sequelize: Sequelize) {
   Wheel.hasMany(WheelMeasurement, { as: 'measurements', foreignKey: 'wheelId' });
   initPublishingModels(sequelize);
   ChangeRow.initModel(sequelize);
+  // Every write through these models records its change in its transaction (server/changes/).
+  // The comparison cells are not here: the feed itself refreshes them from the result changes.
+  const recorded: [ModelStatic<Model>, Parameters<typeof recordWritesOf>[1]][] = [
+    [Result, resultsOf], [ResultEvent, resultTrailOf],
+    [Steel, pagesOf('steel')], [Abrasive, pagesOf('abrasive')], [Method, pagesOf('method')], [PageRevision, pageRowsOf], [PageEvent, pageRowsOf],
+    [User, rowsOf('account')], [ApiToken, rowsOf('token')], [SiteSetting, settingsOf], [Flag, rowsOf('flag')], [Photo, rowsOf('photo')],
+    [Follow, rowsOf('follow')], [PublisherApplication, rowsOf('application')], [ImportBatch, rowsOf('import')], [ImportBatchResult, rowsOf('import', 'batchId')],
+    [Wheel, rowsOf('wheel')], [WheelMeasurement, rowsOf('wheel', 'wheelId')], [NotificationSetting, rowsOf('mail-settings', 'userId')], [AuditEntry, rowsOf('audit')],
+  ];
+  for (const [model, describe] of recorded) recordWritesOf(model, describe);
 }
 
 export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement };

@@ -202,6 +202,11 @@ export class SearchIndex {
     }
   }
 
+  /** Whether the index holds the document `key` (`result:12`, `steel:aisi-d2`, …). */
+  has(key: string): boolean {
+    return this.docs.has(key);
+  }
+
   /** Removes one document if present. */
   remove(key: string): void {
     if (!this.docs.has(key)) return;
