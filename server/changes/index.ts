@@ -5,4 +5,4 @@
 export { record, ChangeFeed } from './feed';
 export { follow, tellFollowers, type Dispatched, type Stage } from './followers';
 export { KEPT, type Kept } from './kept';
-export { resultsChanged, resultState, cellKeyOf, cellId, ROW_KINDS, type Change, type ChangeKind, type CellKey, type PageChange, type ResultState, type Topic } from './kinds';
+export { resultsChanged, cellId, ROW_KINDS, type Change, type ChangeKind, type CellKey, type PageChange, type ResultState, type Topic } from './kinds';

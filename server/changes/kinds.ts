@@ -79,15 +79,13 @@ export interface ResultState {
   gritPhi: number;
 }
 
-/** A copy of `r`'s state, to take before an update changes it in place. */
-export const resultState = (r: ResultState): ResultState => ({ id: r.id, status: r.status, sharpnessMethodId: r.sharpnessMethodId, steelId: r.steelId, material: r.material, gritPhi: r.gritPhi });
-
-export const cellKeyOf = (r: Omit<ResultState, 'id' | 'status'>): CellKey => ({ methodId: r.sharpnessMethodId, steelId: r.steelId, material: r.material, gritPhi: r.gritPhi });
+const cellKeyOf = (r: Omit<ResultState, 'id' | 'status'>): CellKey => ({ methodId: r.sharpnessMethodId, steelId: r.steelId, material: r.material, gritPhi: r.gritPhi });
 export const cellId = (k: CellKey) => `${k.methodId}|${k.steelId}|${k.material}|${k.gritPhi}`;
 
 /**
  * The change of results now in state `now` that were in state `before` (give `before` for
- * updates: a review, a retraction, an edit or a move; leave it out for new results). Approved
+ * updates: a review, a retraction, an edit or a move; leave it out for new results). The model
+ * hooks build it for every write through `Result`; a raw SQL write on results records it itself. Approved
  * states on either side make the result `published` and its cell changed.
  */
 export function resultsChanged(now: readonly ResultState[], before: readonly ResultState[] = []): ResultChange {
