@@ -34,8 +34,8 @@ export const productionEnv: Record<string, string> = {
   S3_SECRET_KEY: 'tests-secret-key',
 };
 
-/** Runs one statement on the cluster's maintenance database. */
-async function onCluster(clusterUrl: string, sql: string): Promise<void> {
+/** Runs one statement on the cluster's maintenance database (TEST_DATABASE=postgres). */
+export async function onCluster(clusterUrl: string, sql: string): Promise<void> {
   const client = new pg.Client({ connectionString: `${clusterUrl}postgres` });
   await client.connect();
   try {
