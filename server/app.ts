@@ -91,8 +91,11 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   // disableTouch: the lifetime middleware writes the last-seen time back at most once a
   // minute, instead of the store updating the row on every request.
   const storeOptions = { db: ctx.db.sequelize, table: 'Session', checkExpirationInterval: 15 * 60 * 1000, expiration: idleMs, disableTouch: true };
-  // In memory in front of the table: a signed-in request then reads no session row.
-  const store = new CachedSessionStore(new SessionStore(storeOptions) as never, (write) => ctx.db.queue.run(write));
+  // On SQLite (one process owns the database) kept in memory in front of the table: a
+  // signed-in request then reads no session row. On PostgreSQL, where several processes may
+  // serve one database, every request reads its row, so a sign-out anywhere counts everywhere.
+  const tableStore = new SessionStore(storeOptions);
+  const store = ctx.db.isSqlite ? new CachedSessionStore(tableStore as never, (write) => ctx.db.queue.run(write)) : tableStore;
   const auth = configurePassport(ctx);
   const withSession = express.Router();
   withSession.use(

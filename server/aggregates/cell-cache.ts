@@ -86,7 +86,7 @@ async function patch(entry: MethodCells, keys: CellKey[], medianOf: (n: number) 
 async function overallMedian(methodId: number, n: number): Promise<number | null> {
   if (n === 0) return null;
   const rows = await Result.sequelize!.query<{ g: number }>(
-    'SELECT sharpnessMedianG AS g FROM results WHERE sharpnessMethodId = :methodId AND status = :status ORDER BY sharpnessMedianG LIMIT :limit OFFSET :offset',
+    'SELECT "sharpnessMedianG" AS g FROM results WHERE "sharpnessMethodId" = :methodId AND status = :status ORDER BY "sharpnessMedianG" LIMIT :limit OFFSET :offset',
     { replacements: { methodId, status: 'approved', limit: n % 2 ? 1 : 2, offset: n % 2 ? (n - 1) / 2 : n / 2 - 1 }, type: QueryTypes.SELECT },
   );
   if (!rows.length) return null;
@@ -115,7 +115,7 @@ export function methodCells(methodId: number, step: 1 | 0.5): Promise<MethodCell
 export function resultsPerMethod(): Promise<Map<number, number>> {
   if (!totals) {
     const t = (async () => {
-      const rows = await Result.sequelize!.query<{ methodId: number; n: number }>('SELECT methodId, SUM(n) AS n FROM comparison_cells WHERE bandWidth = 2 GROUP BY methodId', {
+      const rows = await Result.sequelize!.query<{ methodId: number; n: number }>('SELECT "methodId", SUM(n) AS n FROM comparison_cells WHERE "bandWidth" = 2 GROUP BY "methodId"', {
         type: QueryTypes.SELECT,
       });
       return new Map(rows.map((r) => [r.methodId, Number(r.n)]));

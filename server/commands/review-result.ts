@@ -27,11 +27,16 @@ export async function reviewResult(ctx: AppContext, reviewer: User, id: number, 
     if (!can(actor, 'review:result', { authorId: result.authorId, status: result.status })) {
       throw forbidden(result.authorId === actor.id ? 'You cannot review your own result.' : 'Only moderators review results.');
     }
-    if (result.status !== 'pending') {
-      throw conflict(`This result was already decided: it is now "${STATUS_LABELS[result.status]}".`);
-    }
+    const decided = (status: ResultStatus) => conflict(`This result was already decided: it is now "${STATUS_LABELS[status]}".`);
+    if (result.status !== 'pending') throw decided(result.status);
     const to = outcome[review.decision];
-    await result.update({ status: to, approvedAt: to === 'approved' ? new Date() : null }, { transaction });
+    // Only while it is still pending: of two decisions at once (two processes on PostgreSQL),
+    // exactly one changes the row; the other finds it decided and answers 409.
+    const now = new Date();
+    const changes = { status: to, approvedAt: to === 'approved' ? now : null, updatedAt: now };
+    const [changed] = await Result.update(changes, { where: { id, status: 'pending' }, transaction, silent: true });
+    if (changed !== 1) throw decided((await Result.findByPk(id, { attributes: ['status'], transaction }))!.status);
+    result.set(changes, { raw: true });
     const event = await ResultEvent.create({ resultId: id, actorId: actor.id, fromStatus: 'pending', toStatus: to, note: review.note ?? null }, { transaction });
     await recordAudit(actor, { ...audit, details: { from: 'pending', to } }, transaction);
     event.actor = reviewer;

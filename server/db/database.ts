@@ -1,8 +1,7 @@
-import fs from 'node:fs';
-import path from 'node:path';
-import { Sequelize, Transaction } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
-import { sqliteWithPragmas } from './sqlite-driver';
+import { sqliteSequelize, sqliteWrite } from './sqlite';
+import { postgresSequelize, postgresWrite } from './postgres';
 import { WriteQueue } from './write-queue';
 import { initModels } from '../models';
 import * as m0001 from './migrations/0001-initial';
@@ -30,7 +29,7 @@ const migrations = [
 export interface DatabaseOptions {
   /** SQLite file path; ignored when `url` is given. */
   storage: string;
-  /** Optional database URL (another dialect); SQLite is the default. */
+  /** A postgres:// URL: PostgreSQL instead of the SQLite file. */
   url?: string;
   synchronous?: 'NORMAL' | 'FULL';
   busyTimeoutMs?: number;
@@ -39,34 +38,24 @@ export interface DatabaseOptions {
 
 /**
  * The database: Sequelize with every connection set up alike, the migrations, and the one
- * way to write (`write`), which queues the transaction behind every other write.
+ * way to write (`write`). On SQLite a write waits its turn behind every other write (one
+ * writer); on PostgreSQL writes run side by side, SERIALIZABLE, and run again after a
+ * serialization failure (`server/db/postgres.ts`).
  */
 export class Database {
   readonly sequelize: Sequelize;
-  readonly queue = new WriteQueue();
+  readonly queue: WriteQueue;
   /** What the writes changed: recorded in each transaction, dispatched after its commit. */
   readonly changes = new ChangeFeed(this);
   readonly isSqlite: boolean;
 
   constructor(readonly options: DatabaseOptions) {
+    if (options.url && !/^postgres(ql)?:\/\//.test(options.url)) throw new Error('DATABASE_URL: only postgres:// URLs are supported (leave it unset for SQLite)');
     this.isSqlite = !options.url;
-    if (this.isSqlite) fs.mkdirSync(path.dirname(path.resolve(options.storage)), { recursive: true });
+    this.queue = new WriteQueue(this.isSqlite);
     this.sequelize = options.url
-      ? new Sequelize(options.url, { logging: false })
-      : new Sequelize({
-          dialect: 'sqlite',
-          storage: options.storage,
-          dialectModule: sqliteWithPragmas({
-            synchronous: options.synchronous ?? 'NORMAL',
-            busyTimeoutMs: options.busyTimeoutMs ?? 5000,
-          }),
-          logging: options.logging ? console.log : false,
-          pool: { max: 1, idle: 60_000 },
-        });
-    if (this.isSqlite) {
-      keepOneWriterConnection(this.sequelize);
-      beginAndCommitDirectly(this.sequelize);
-    }
+      ? postgresSequelize(options.url, { logging: options.logging })
+      : sqliteSequelize({ storage: options.storage, synchronous: options.synchronous ?? 'NORMAL', busyTimeoutMs: options.busyTimeoutMs ?? 5000, logging: options.logging });
     initModels(this.sequelize);
   }
 
@@ -82,21 +71,21 @@ export class Database {
   }
 
   /**
-   * Runs `work` in a write transaction once every earlier write has finished; what `work`
-   * recorded (`record(transaction, …)`, server/changes/) is written in the same transaction.
-   * Resolves only after the commit and after every follower took its changes (the search index,
-   * the caches), so a caller that answers 2xx afterwards never acknowledges a lost write and a
-   * read that follows sees it.
+   * Runs `work` in a write transaction (on SQLite once every earlier write has finished); what
+   * `work` recorded (`record(transaction, …)`, server/changes/) is written in the same
+   * transaction. Resolves only after the commit and after every follower took its changes (the
+   * search index, the caches), so a caller that answers 2xx afterwards never acknowledges a lost
+   * write and a read that follows sees it. On PostgreSQL `work` may run more than once (see
+   * `postgresWrite`).
    */
   async write<T>(work: (t: Transaction) => Promise<T>): Promise<T> {
     let feed: { dispatched?: Promise<void> } = {};
-    const value = await this.queue.run(() =>
-      this.sequelize.transaction(this.isSqlite ? { type: Transaction.TYPES.IMMEDIATE } : {}, async (transaction) => {
-        const outcome = await work(transaction);
-        feed = await this.changes.beforeCommit(transaction);
-        return outcome;
-      }),
-    );
+    const recorded = async (transaction: Transaction) => {
+      const outcome = await work(transaction);
+      feed = await this.changes.beforeCommit(transaction);
+      return outcome;
+    };
+    const value = await this.queue.run(() => (this.isSqlite ? sqliteWrite(this.sequelize, recorded) : postgresWrite(this.sequelize, recorded)));
     await feed.dispatched;
     return value;
   }
@@ -105,54 +94,4 @@ export class Database {
     await this.queue.drain();
     await this.sequelize.close();
   }
-}
-
-/**
- * Sequelize's SQLite dialect opens a new connection for every transaction and closes it at the
- * end: a file open, the PRAGMAs and a fresh parse of the schema, several milliseconds per write.
- * Writes here run one at a time (`Database.write`'s queue, the only place that opens a
- * transaction), so every transaction can use one connection kept open for the process's life.
- * Reads outside transactions keep Sequelize's default connection.
- */
-function keepOneWriterConnection(sequelize: Sequelize): void {
-  type Connection = { filename?: string };
-  const manager = sequelize.connectionManager as unknown as {
-    getConnection(options?: { uuid?: string }): Promise<Connection>;
-    releaseConnection(connection: Connection, force?: boolean): void;
-  };
-  const get = manager.getConnection.bind(manager);
-  const release = manager.releaseConnection.bind(manager);
-  let writer: Connection | undefined;
-  manager.getConnection = async (options = {}) => {
-    if (!options.uuid || options.uuid === 'default') return get(options);
-    writer = await get({ ...options, uuid: 'writer' });
-    return writer;
-  };
-  manager.releaseConnection = (connection, force) => {
-    if (connection === writer && !force) return;
-    release(connection, force);
-  };
-}
-
-/**
- * A transaction's BEGIN and COMMIT go straight to its SQLite connection instead of through
- * `sequelize.query`, whose work per statement (options copied, a stack trace taken, the answer
- * parsed) cost more than the statements themselves: an empty write transaction took 0.7–0.9 ms
- * of CPU through Sequelize, 0.15–0.25 ms sent directly (measured on the 100 000-result
- * database), and most submissions under load are a transaction of their own. Sequelize still
- * runs the transaction (its connection, afterCommit hooks, rollback); savepoints are left to it.
- */
-function beginAndCommitDirectly(sequelize: Sequelize): void {
-  type Connection = { exec(sql: string, callback: (err: Error | null) => void): void };
-  type Tx = Transaction & { parent?: Transaction; connection: Connection };
-  const queryInterface = sequelize.getQueryInterface() as unknown as {
-    queryGenerator: { startTransactionQuery(t: Transaction): string; commitTransactionQuery(t: Transaction): string };
-    startTransaction(t: Tx, options?: object): Promise<unknown>;
-    commitTransaction(t: Tx, options?: object): Promise<unknown>;
-  };
-  const exec = (connection: Connection, sql: string) => new Promise<void>((resolve, reject) => connection.exec(sql, (err) => (err ? reject(err) : resolve())));
-  const start = queryInterface.startTransaction.bind(queryInterface);
-  const commit = queryInterface.commitTransaction.bind(queryInterface);
-  queryInterface.startTransaction = (t, options) => (t.parent ? start(t, options) : exec(t.connection, queryInterface.queryGenerator.startTransactionQuery(t)));
-  queryInterface.commitTransaction = (t, options) => (t.parent ? commit(t, options) : exec(t.connection, queryInterface.queryGenerator.commitTransactionQuery(t)));
 }

@@ -37,12 +37,17 @@ export class GroupCommit<I, O> {
     if (this.queued || !this.waiting.length) return;
     this.queued = true;
     let batch: Waiting<I, O>[] = [];
+    let taken = false;
     this.db
       .write((transaction) => {
         // Taken at the turn, not before: everything that arrived while waiting goes in together.
-        batch = this.waiting.splice(0, this.maxBatch);
-        this.queued = false;
-        this.queue();
+        // (Once: on PostgreSQL a transaction that failed to serialize runs again, with the same batch.)
+        if (!taken) {
+          taken = true;
+          batch = this.waiting.splice(0, this.maxBatch);
+          this.queued = false;
+          this.queue();
+        }
         return this.work(
           batch.map((w) => w.item),
           transaction,

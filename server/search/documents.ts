@@ -5,6 +5,7 @@ import { Abrasive, Method, PAGE_TEXT_COLUMNS, Result, Steel, User } from '../mod
 import type { SearchDoc } from './search-index';
 import { allCellDocs } from '../aggregates/cell-search';
 import { abrasiveOwner, memberOwner, methodOwner, steelOwner, type SearchOwner } from './owners';
+import { dialectSql } from '../db/dialect';
 
 const label = (table: Record<string, string>, key: string) => table[key] ?? key;
 
@@ -160,8 +161,7 @@ export async function resultDocsOfPage(type: 'steel' | 'abrasive' | 'method', id
  * same) with only the columns a document needs (of the submission, only its notes), the pages it
  * names looked up from maps. Reading them through the model with full includes carried each
  * page's rich-text body into every row (measured at 100 000 results: 276 s that way, against a
- * few seconds). NOT INDEXED keeps SQLite on the primary key: through the status index, every
- * page re-read and re-sorted all the approved rows after it (1 s of 2 at 50 000).
+ * few seconds). The statement is each dialect's own (`server/db/dialect.ts`).
  */
 async function* approvedResultDocs(): AsyncGenerator<SearchDoc> {
   const [steels, abrasives, methods, users] = await Promise.all([
@@ -179,10 +179,10 @@ async function* approvedResultDocs(): AsyncGenerator<SearchDoc> {
   const once = (key: string, build: () => SearchOwner) => owners.get(key) ?? owners.set(key, build()).get(key)!;
   const batch = 5000;
   type Row = Pick<Result, 'id' | 'steelId' | 'abrasiveId' | 'authorId' | 'sharpnessMethodId' | 'material' | 'hrc' | 'perSideDeg' | 'gritGrade' | 'gritUm' | 'sharpnessMedianG'> & { notes: string | null };
+  const columns = ['id', 'steelId', 'abrasiveId', 'authorId', 'sharpnessMethodId', 'material', 'hrc', 'perSideDeg', 'gritGrade', 'gritUm', 'sharpnessMedianG'].map((c) => `"${c}"`).join(', ');
   const page = (after: number) =>
     Result.sequelize!.query<Row>(
-      `SELECT id, steelId, abrasiveId, authorId, sharpnessMethodId, material, hrc, perSideDeg, gritGrade, gritUm, sharpnessMedianG, json_extract(input, '$.notes') AS notes
-       FROM results NOT INDEXED WHERE status = 'approved' AND id > :after ORDER BY id LIMIT ${batch}`,
+      dialectSql(Result.sequelize!).approvedResultsPage(columns, batch),
       { type: QueryTypes.SELECT, replacements: { after } },
     );
   for (let next: Promise<Row[]> | null = page(0); next; ) {

@@ -503,13 +503,13 @@ describe('what the matrix implies', () => {
 
   it('no GET changes what is stored', async () => {
     const snapshot = async () => {
-      const [tables] = (await server.ctx.db.sequelize.query(
-        "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT IN ('sessions', 'api_tokens', 'migrations_applied') AND name NOT LIKE 'sqlite_%' ORDER BY name",
-      )) as [{ name: string }[], unknown];
+      // Through the query interface, so the same snapshot reads SQLite and PostgreSQL.
+      const qi = server.ctx.db.sequelize.getQueryInterface();
+      const tables = ((await qi.showAllTables()) as string[]).filter((name) => !['sessions', 'api_tokens', 'migrations_applied'].includes(name) && !name.startsWith('sqlite_')).sort();
       const out: Record<string, unknown> = {};
-      for (const { name } of tables) {
-        const [columns] = (await server.ctx.db.sequelize.query(`PRAGMA table_info("${name}")`)) as [{ name: string }[], unknown];
-        const stamp = columns.some((c) => c.name === 'updatedAt') ? ', max(updatedAt) AS updated' : '';
+      for (const name of tables) {
+        const columns = await qi.describeTable(name);
+        const stamp = 'updatedAt' in columns ? ', max("updatedAt") AS updated' : '';
         const [[row]] = (await server.ctx.db.sequelize.query(`SELECT count(*) AS n${stamp} FROM "${name}"`)) as [Record<string, unknown>[], unknown];
         out[name] = row;
       }

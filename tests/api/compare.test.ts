@@ -440,9 +440,9 @@ describe('npm run reaggregate', () => {
     const incremental = await snapshot();
     expect(incremental.length).toBeGreaterThan(0);
 
-    // The real command, in its own process, on the same database file.
+    // The real command, in its own process, on the same database (file, or PostgreSQL database).
     const { stdout } = await promisify(execFile)('npx', ['tsx', 'server/db/cli.ts', 'reaggregate'], {
-      env: { ...process.env, NODE_ENV: 'test', DATA_DIR: server.dataDir },
+      env: { ...process.env, NODE_ENV: 'test', DATA_DIR: server.dataDir, ...(server.ctx.env.DATABASE_URL && { DATABASE_URL: server.ctx.env.DATABASE_URL }) },
       timeout: 60_000,
     });
     expect(stdout).toMatch(/Rebuilt \d+ comparison cells/);

@@ -135,7 +135,7 @@ describe('e-mail', () => {
     const id = (await author.agent.post('/api/results').set('X-CSRF-Token', author.csrf).send(input([140, 141, 142])).expect(201)).body.id;
     await moderator.agent.post(`/api/results/${id}/review`).set('X-CSRF-Token', moderator.csrf).send({ decision: 'approve' }).expect(200);
 
-    const env = { ...process.env, NODE_ENV: 'test', DATA_DIR: server.dataDir, SMTP_PORT: String(server.smtpPort), PUBLIC_URL: server.url, LOG_LEVEL: 'silent' };
+    const env = { ...process.env, NODE_ENV: 'test', DATA_DIR: server.dataDir, ...(server.ctx.env.DATABASE_URL && { DATABASE_URL: server.ctx.env.DATABASE_URL }), SMTP_PORT: String(server.smtpPort), PUBLIC_URL: server.url, LOG_LEVEL: 'silent' };
     const first = await run('npm', ['run', '--silent', 'digest'], { env, cwd: process.cwd(), timeout: 60_000 });
     expect(first.stdout).toMatch(/Digest: \d+ followers, [1-9]\d* messages sent/);
     const mail = await waitForMail(address, /digest/);

@@ -52,6 +52,21 @@ describe('two moderators on the same item', () => {
     expect(refused.details.refusal).toMatch(/already decided/);
   });
 
+  it('of two decisions at the same moment, exactly one wins and the other is answered 409 (20 tries)', async () => {
+    // On PostgreSQL the two transactions run side by side (no write queue): the conditional
+    // update and SERIALIZABLE isolation must still let only one through.
+    const ids: number[] = [];
+    for (let i = 0; i < 20; i += 1) ids.push(await postPending([170 + i, 175, 180]));
+    const outcomes = await Promise.all(ids.map((id) => Promise.all([review(mod1, id, { decision: 'approve' }), review(mod2, id, { decision: 'approve' })])));
+    for (const [i, pair] of outcomes.entries()) expect(pair.map((r) => r.status).sort(), `result ${ids[i]}`).toEqual([200, 409]);
+    for (const id of ids) {
+      const trail = (await mod1.agent.get(`/api/results/${id}`).expect(200)).body.trail as { to: string }[];
+      expect(trail.filter((e) => e.to === 'approved'), `approvals of ${id}`).toHaveLength(1);
+    }
+    const approved = await Result.count({ where: { id: ids, status: 'approved' } });
+    expect(approved).toBe(20);
+  });
+
   it('keeps the audit log unchangeable and readable by moderators only', async () => {
     await member.agent.get('/api/audit').expect(403);
     await request(server.url).get('/api/audit').expect(401);

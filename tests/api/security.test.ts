@@ -9,11 +9,10 @@ import os from 'node:os';
 import path from 'node:path';
 import { Writable } from 'node:stream';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { inject } from 'vitest';
 import request from 'supertest';
 import express from 'express';
 import multer from 'multer';
-import { demoHandle, productionEnv, signIn, startTestServer, testRateLimits } from '../setup/test-server';
+import { copyBaseDatabase, demoHandle, productionEnv, signIn, startTestServer, testRateLimits } from '../setup/test-server';
 import { boot } from '../../server/boot';
 import { loadEnv } from '../../server/config/env';
 import { Database } from '../../server/db/database';
@@ -516,10 +515,9 @@ describe('rate limits (429 with Retry-After; per account, or per address for vis
 describe('graceful shutdown', () => {
   it('finishes the request under way, refuses new connections, then closes the database', async () => {
     const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-shutdown-'));
-    const file = path.join(dataDir, 'edgeledger.sqlite');
-    fs.copyFileSync(inject('baseDatabase'), file);
+    const database = await copyBaseDatabase(dataDir);
     try {
-      const env = loadEnv({ NODE_ENV: 'test', PORT: '0', OAUTH_PORT: '0', SMTP_PORT: '0', DATA_DIR: dataDir, SEED_DEMO: 'never', ...testRateLimits });
+      const env = loadEnv({ NODE_ENV: 'test', PORT: '0', OAUTH_PORT: '0', SMTP_PORT: '0', DATA_DIR: dataDir, SEED_DEMO: 'never', ...testRateLimits, ...database.env });
       const running = await boot(env, () => undefined);
       const member = await signIn(running.url, await demoHandle(running.url, 'member'));
       // Hold the write queue so the POST is provably under way when shutdown begins.
@@ -535,7 +533,7 @@ describe('graceful shutdown', () => {
       const res = await posting;
       expect(res.status).toBe(201);
       await stopping;
-      const db = new Database({ storage: file });
+      const db = new Database({ storage: path.join(dataDir, 'edgeledger.sqlite'), url: database.env.DATABASE_URL });
       try {
         const [[row]] = (await db.sequelize.query('SELECT status FROM results WHERE id = ?', { replacements: [res.body.id] })) as [{ status: string }[], unknown];
         expect(row).toEqual({ status: 'pending' });
@@ -543,6 +541,7 @@ describe('graceful shutdown', () => {
         await db.close();
       }
     } finally {
+      await database.drop();
       fs.rmSync(dataDir, { recursive: true, force: true });
     }
   });

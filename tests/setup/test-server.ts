@@ -3,6 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { inject } from 'vitest';
 import request from 'supertest';
+import pg from 'pg';
 import { loadEnv } from '../../server/config/env';
 import { boot, type Running } from '../../server/boot';
 
@@ -33,20 +34,60 @@ export const productionEnv: Record<string, string> = {
   S3_SECRET_KEY: 'tests-secret-key',
 };
 
+/** Runs one statement on the cluster's maintenance database (TEST_DATABASE=postgres). */
+export async function onCluster(clusterUrl: string, sql: string): Promise<void> {
+  const client = new pg.Client({ connectionString: `${clusterUrl}postgres` });
+  await client.connect();
+  try {
+    await client.query(sql);
+  } finally {
+    await client.end();
+  }
+}
+
+let copies = 0;
+
+/**
+ * A fresh copy of the migrated demo database for one server: on SQLite the base file copied into
+ * `dataDir`; with TEST_DATABASE=postgres a new database of the run's cluster made from the base
+ * (`CREATE DATABASE … TEMPLATE`), named in the returned environment (DATABASE_URL). `drop`
+ * removes it once the server has stopped.
+ */
+export async function copyBaseDatabase(dataDir: string): Promise<{ env: Record<string, string>; drop: () => Promise<void> }> {
+  const clusterUrl = inject('postgresUrl');
+  if (!clusterUrl) {
+    fs.copyFileSync(inject('baseDatabase'), path.join(dataDir, 'edgeledger.sqlite'));
+    return { env: {}, drop: async () => undefined };
+  }
+  const name = `edgeledger_${process.pid}_${(copies += 1)}`;
+  // Two copies begun at the same moment can meet on the template; the second one tries again.
+  for (let attempt = 1; ; attempt += 1) {
+    try {
+      await onCluster(clusterUrl, `CREATE DATABASE "${name}" TEMPLATE edgeledger_base`);
+      break;
+    } catch (err) {
+      if (attempt >= 20 || !/being accessed by other users/.test((err as Error).message)) throw err;
+      await new Promise((resolve) => setTimeout(resolve, 50 * attempt));
+    }
+  }
+  return { env: { DATABASE_URL: `${clusterUrl}${name}` }, drop: () => onCluster(clusterUrl, `DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`) };
+}
+
 /**
  * Starts the real server (with the real local OAuth2 provider and mail catcher) on free
  * loopback ports, over a fresh copy of the migrated demo database.
  */
 export async function startTestServer(envOverrides: Record<string, string> = {}): Promise<Running & { dataDir: string }> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-test-'));
-  fs.copyFileSync(inject('baseDatabase'), path.join(dataDir, 'edgeledger.sqlite'));
-  const env = loadEnv({ NODE_ENV: 'test', PORT: '0', OAUTH_PORT: '0', SMTP_PORT: '0', DATA_DIR: dataDir, SEED_DEMO: 'never', ...testRateLimits, ...envOverrides });
+  const database = await copyBaseDatabase(dataDir);
+  const env = loadEnv({ NODE_ENV: 'test', PORT: '0', OAUTH_PORT: '0', SMTP_PORT: '0', DATA_DIR: dataDir, SEED_DEMO: 'never', ...testRateLimits, ...database.env, ...envOverrides });
   const running = await boot(env, () => undefined);
   return {
     ...running,
     dataDir,
     stop: async () => {
       await running.stop();
+      await database.drop();
       fs.rmSync(dataDir, { recursive: true, force: true });
     },
   };

@@ -40,7 +40,7 @@ export async function up({ context: qi }: { context: QueryInterface }) {
 
   // Fill the new table from the approved results (a fresh database has none yet).
   const rows = await qi.sequelize.query<BandedMember>(
-    'SELECT sharpnessMethodId, steelId, material, gritPhi, gritUm, authorId, sharpnessMedianG, retentionCuts, hrc, perSideDeg FROM results WHERE status = :status',
+    'SELECT "sharpnessMethodId", "steelId", material, "gritPhi", "gritUm", "authorId", "sharpnessMedianG", "retentionCuts", hrc, "perSideDeg" FROM results WHERE status = :status',
     { replacements: { status: 'approved' }, type: QueryTypes.SELECT },
   );
   const now = new Date();

@@ -1,0 +1,53 @@
+import pg from 'pg';
+import { Sequelize, Transaction } from 'sequelize';
+import type { DialectSql } from './dialect';
+
+/**
+ * Everything the project says only to PostgreSQL: how its Sequelize is built (the `pg` driver,
+ * a pool), how a write transaction runs (SERIALIZABLE on a pooled connection, side by side with
+ * other writes, again when PostgreSQL reports a serialization failure or a deadlock) and the
+ * SQL only PostgreSQL reads.
+ */
+export function postgresSequelize(url: string, options: { logging?: boolean; poolMax?: number } = {}): Sequelize {
+  // COUNT and SUM over integers answer int8, which pg hands over as text (it can exceed 2^53);
+  // the counts here are row counts, far below that, and SQLite answers them as numbers.
+  pg.types.setTypeParser(pg.types.builtins.INT8, (value) => Number(value));
+  return new Sequelize(url, {
+    dialect: 'postgres',
+    dialectModule: pg,
+    logging: options.logging ? console.log : false,
+    pool: { max: options.poolMax ?? 10, idle: 30_000, acquire: 60_000 },
+  });
+}
+
+/** SQLSTATEs after which the same transaction, run again, can succeed. */
+const RETRYABLE = new Set(['40001', '40P01']);
+const MAX_ATTEMPTS = 12;
+
+function sqlState(err: unknown): string | undefined {
+  const e = err as { parent?: { code?: string }; original?: { code?: string }; code?: string } | null;
+  return e?.parent?.code ?? e?.original?.code ?? e?.code;
+}
+
+/**
+ * A write transaction on PostgreSQL: SERIALIZABLE, so transactions that ran side by side (in
+ * this process or another) commit as if one after the other, or one of them fails with a
+ * serialization failure and runs again from the start (`work` must not act outside the
+ * database before the commit; what follows a commit goes in `transaction.afterCommit`).
+ */
+export async function postgresWrite<T>(sequelize: Sequelize, work: (t: Transaction) => Promise<T>): Promise<T> {
+  for (let attempt = 1; ; attempt += 1) {
+    try {
+      return await sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.SERIALIZABLE }, work);
+    } catch (err) {
+      if (attempt >= MAX_ATTEMPTS || !RETRYABLE.has(sqlState(err) ?? '')) throw err;
+      // Back off a little, more after each failure, so the transactions that collided part.
+      await new Promise((resolve) => setTimeout(resolve, Math.random() * 5 * attempt));
+    }
+  }
+}
+
+export const postgresSql: DialectSql = {
+  // ->> answers a JSON value as text (an object as its JSON, JSON null as NULL), as SQLite's json_extract does.
+  approvedResultsPage: (columns, batch) => `SELECT ${columns}, input->>'notes' AS notes FROM results WHERE status = 'approved' AND id > :after ORDER BY id LIMIT ${batch}`,
+};
