@@ -6,6 +6,7 @@ import type { resultListQuerySchema } from '@shared/schemas/result';
 import { forbidden, notFound } from '../errors';
 import { Abrasive, Method, Result, ResultEvent, Steel, User } from '../models';
 import { resultIncludes } from '../search/documents';
+import { approvedResults } from '../read-models/approved-results';
 
 /** A result's pages, author and trail (each step with who took it): what presentResult shows. */
 export const withTrail = [...resultIncludes, { model: ResultEvent, as: 'events', include: [{ model: User, as: 'actor' }] }];
@@ -42,6 +43,14 @@ export async function listResults(query: z.infer<typeof resultListQuerySchema>, 
   if (steelId !== undefined) where.steelId = steelId;
   if (abrasiveId !== undefined) where.abrasiveId = abrasiveId;
   if (methodId !== undefined) where[Op.or as unknown as string] = [{ sharpnessMethodId: methodId }, { retentionMethodId: methodId }];
+  if (where.status === 'approved' && !author && methodId === undefined) {
+    // The public list (the home page's): the page's ids from the approved results held in
+    // memory, newest first, then those rows alone by primary key.
+    const { ids, total } = await approvedResults.newest(query.page, limits.pageSize, { steelId, abrasiveId });
+    const found = ids.length ? await Result.findAll({ where: { id: ids, status: 'approved' }, include: withTrail }) : [];
+    const byId = new Map(found.map((r) => [r.id, r]));
+    return { items: ids.map((id) => byId.get(id)).filter((r): r is Result => r !== undefined), page: query.page, pageSize: limits.pageSize, total };
+  }
   const { rows, count } = await Result.findAndCountAll({
     where,
     include: withTrail,

@@ -92,11 +92,63 @@ class Columns {
   }
 }
 
+/**
+ * The approved results newest first (posted time, then id, both descending: the order of the
+ * results list), with the steel and abrasive of each, so that any page of the list, whole or of
+ * one steel or abrasive, is found without a COUNT or an OFFSET.
+ */
+class Newest {
+  size = 0;
+  created = new Float64Array(0);
+  id = new Int32Array(0);
+  steel = new Int32Array(0);
+  abrasive = new Int32Array(0);
+
+  /** This list without the ids in `removed`, with `added` merged in: one pass over both. */
+  merged(removed: ReadonlySet<number>, added: Columns, rows: readonly number[]): Newest {
+    const order = [...rows].sort((a, b) => added.f.created[b] - added.f.created[a] || added.i.id[b] - added.i.id[a]);
+    const next = new Newest();
+    const capacity = this.size + order.length;
+    next.created = new Float64Array(capacity);
+    next.id = new Int32Array(capacity);
+    next.steel = new Int32Array(capacity);
+    next.abrasive = new Int32Array(capacity);
+    let i = 0;
+    let j = 0;
+    let n = 0;
+    while (i < this.size || j < order.length) {
+      if (i < this.size && removed.has(this.id[i])) {
+        i++;
+        continue;
+      }
+      const r = order[j];
+      const takeOld = j >= order.length || (i < this.size && (this.created[i] > added.f.created[r] || (this.created[i] === added.f.created[r] && this.id[i] > added.i.id[r])));
+      if (takeOld) {
+        next.created[n] = this.created[i];
+        next.id[n] = this.id[i];
+        next.steel[n] = this.steel[i];
+        next.abrasive[n] = this.abrasive[i];
+        i++;
+      } else {
+        next.created[n] = added.f.created[r];
+        next.id[n] = added.i.id[r];
+        next.steel[n] = added.i.steel[r];
+        next.abrasive[n] = added.i.abrasive[r];
+        j++;
+      }
+      n++;
+    }
+    next.size = n;
+    return next;
+  }
+}
+
 const cellKeyString = (k: CellKey) => `${k.methodId}|${k.steelId}|${k.material}|${k.gritPhi}`;
 
 /** The read model; one per process, like the database it follows (decision 001). */
 export class ApprovedResults {
   private cols = new Columns();
+  private newestFirst = new Newest();
   private materials: string[] = [];
   private materialNo = new Map<string, number>();
   private cellKeys: CellKey[] = [];
@@ -161,7 +213,9 @@ export class ApprovedResults {
       if (rows.length < 20_000) break;
       after = rows[rows.length - 1].id;
     }
+    const newest = new Newest().merged(new Set(), fresh, Array.from({ length: fresh.size }, (_, r) => r));
     this.cols = fresh;
+    this.newestFirst = newest;
   }
 
   private async replaceCells(keys: readonly CellKey[]): Promise<void> {
@@ -180,8 +234,37 @@ export class ApprovedResults {
     const changed = new Set(keys.map((k) => this.cellOf(k)));
     const ids = new Set(rows.map((r) => r.id));
     const { cell, id } = this.cols.i;
-    this.cols.compact((row) => !changed.has(cell[row]) && !ids.has(id[row]));
+    const removed = new Set<number>();
+    this.cols.compact((row) => {
+      const keep = !changed.has(cell[row]) && !ids.has(id[row]);
+      if (!keep) removed.add(id[row]);
+      return keep;
+    });
+    const first = this.cols.size;
     for (const r of rows) this.append(this.cols, r);
+    this.newestFirst = this.newestFirst.merged(removed, this.cols, Array.from({ length: rows.length }, (_, k) => first + k));
+  }
+
+  /**
+   * One page of the approved results, newest first (optionally of one steel or abrasive): their
+   * ids in order, and how many there are in all.
+   */
+  async newest(page: number, pageSize: number, only: { steelId?: number; abrasiveId?: number } = {}): Promise<{ ids: number[]; total: number }> {
+    await this.ready();
+    const list = this.newestFirst;
+    const start = (page - 1) * pageSize;
+    if (only.steelId === undefined && only.abrasiveId === undefined) {
+      return { ids: Array.from(list.id.subarray(Math.min(start, list.size), Math.min(start + pageSize, list.size))), total: list.size };
+    }
+    const ids: number[] = [];
+    let total = 0;
+    for (let k = 0; k < list.size; k++) {
+      if (only.steelId !== undefined && list.steel[k] !== only.steelId) continue;
+      if (only.abrasiveId !== undefined && list.abrasive[k] !== only.abrasiveId) continue;
+      if (total >= start && ids.length < pageSize) ids.push(list.id[k]);
+      total++;
+    }
+    return { ids, total };
   }
 
   private cellOf(k: CellKey): number {

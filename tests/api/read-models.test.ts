@@ -179,3 +179,46 @@ describe('the live filters answered from memory', () => {
     await expectSameAsSql(await combinations(0xc0ffee, 120));
   });
 });
+
+describe('the public results list answered from memory', () => {
+  /** The list as SQL gives it: approved results newest first, counted with COUNT and paged with OFFSET. */
+  async function listFromSql(page: number, where: Record<string, unknown> = {}) {
+    const { rows, count } = await Result.findAndCountAll({ where: { status: 'approved', ...where }, attributes: ['id'], order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: 25, offset: (page - 1) * 25 });
+    return { ids: rows.map((r) => r.id), total: count };
+  }
+  const listFromApi = async (qs: string) => {
+    const body = (await request(server.url).get(`/api/results?${qs}`).expect(200)).body as { items: { id: number }[]; total: number; page: number; pageSize: number };
+    expect(body.pageSize).toBe(25);
+    return { ids: body.items.map((r) => r.id), total: body.total };
+  };
+
+  it('gives the pages, totals and order of the SQL list, whole and by steel or abrasive, across writes', async () => {
+    const check = async () => {
+      const total = await Result.count({ where: { status: 'approved' } });
+      for (const page of [1, 2, 3, Math.ceil(total / 25), Math.ceil(total / 25) + 1]) {
+        expect(await listFromApi(`status=approved&page=${page}`), `page ${page}`).toEqual(await listFromSql(page));
+        expect(await listFromApi(`page=${page}`), `page ${page}`).toEqual(await listFromSql(page));
+      }
+      const steel = (await Steel.findOne({ where: { slug: 'aisi-d2' } }))!;
+      const abrasive = (await Abrasive.findOne({ where: { slug: 'diamond-resin-wheel-250-15um' } }))!;
+      for (const page of [1, 2]) {
+        expect(await listFromApi(`steel=aisi-d2&page=${page}`)).toEqual(await listFromSql(page, { steelId: steel.id }));
+        expect(await listFromApi(`abrasive=${abrasive.slug}&page=${page}`)).toEqual(await listFromSql(page, { abrasiveId: abrasive.id }));
+      }
+    };
+    await check();
+    const member = await signIn(server.url, await demoHandle(server.url, 'member'));
+    const mod = await signIn(server.url, await demoHandle(server.url, 'moderator'));
+    const input = {
+      steel: 'aisi-d2', hardness: { value: 60, scale: 'HRC' }, abrasive: 'diamond-resin-wheel-250-15um', grit: { standard: 'um', grade: '15 µm' },
+      edgeAngle: { perSideDeg: 17 }, sharpness: { method: 'push-cut-test-v2', readingsG: [170, 175, 172] },
+    };
+    const posted = await member.agent.post('/api/results').set('X-CSRF-Token', member.csrf).send(input).expect(201);
+    await mod.agent.post(`/api/results/${posted.body.id}/review`).set('X-CSRF-Token', mod.csrf).send({ decision: 'approve' }).expect(200);
+    expect((await listFromApi('status=approved')).ids[0]).toBe(posted.body.id);
+    await check();
+    await member.agent.post(`/api/results/${posted.body.id}/retract`).set('X-CSRF-Token', member.csrf).send({ reason: 'checking the list' }).expect(200);
+    expect((await listFromApi('status=approved')).ids).not.toContain(posted.body.id);
+    await check();
+  });
+});
