@@ -222,3 +222,31 @@ describe('the public results list answered from memory', () => {
     await check();
   });
 });
+
+describe('a page for signed-in people', () => {
+  it('is the visitor’s page with the person’s own allowed actions, and follows a protection at once', async () => {
+    const member = await signIn(server.url, await demoHandle(server.url, 'member'));
+    const mod = await signIn(server.url, await demoHandle(server.url, 'moderator'));
+    const slug = 'aisi-o1';
+    const read = async () => {
+      const visitor = (await request(server.url).get(`/api/steels/${slug}`).expect(200)).body;
+      const asMember = (await member.agent.get(`/api/steels/${slug}`).expect(200)).body;
+      const asModerator = (await mod.agent.get(`/api/steels/${slug}`).expect(200)).body;
+      const { can: visitorCan, ...shared } = visitor;
+      for (const page of [asMember, asModerator]) expect({ ...page, can: undefined }).toEqual({ ...shared, can: undefined });
+      return { visitorCan, memberCan: asMember.can, moderatorCan: asModerator.can, isProtected: visitor.isProtected };
+    };
+    // The rules of shared/permissions.ts: any member proposes an edit; moderators publish, revert, protect and merge.
+    expect(await read()).toEqual({
+      visitorCan: { edit: false, publish: false, revert: false, protect: false, merge: false },
+      memberCan: { edit: true, publish: false, revert: false, protect: false, merge: false },
+      moderatorCan: { edit: true, publish: true, revert: true, protect: true, merge: true },
+      isProtected: false,
+    });
+    await mod.agent.post(`/api/steels/${slug}/protect`).set('X-CSRF-Token', mod.csrf).send({ protected: true }).expect(200);
+    const after = await read();
+    expect(after.isProtected).toBe(true);
+    expect(after.memberCan.edit).toBe(false);
+    expect(after.moderatorCan.edit).toBe(true);
+  });
+});
