@@ -250,3 +250,28 @@ describe('a page for signed-in people', () => {
     expect(after.moderatorCan.edit).toBe(true);
   });
 });
+
+describe('the answer cache switch', () => {
+  it('keeps answers by default and none with ANSWER_CACHE=off, the answers alike; /api/health counts', async () => {
+    const stats = async (url: string) => (await request(url).get('/api/health').expect(200)).body.answerCache as { on: boolean; hits: number; misses: number };
+    const paths = ['/api/steels/aisi-d2', '/api/compare?method=push-cut-test-v2&hrcMin=60', '/api/abrasives'];
+    const on = await stats(server.url);
+    const kept: unknown[] = [];
+    for (const p of paths) kept.push((await request(server.url).get(p).expect(200)).body, (await request(server.url).get(p).expect(200)).body);
+    const onAfter = await stats(server.url);
+    expect(onAfter.on).toBe(true);
+    // The second asking of each is served from the kept answers.
+    expect(onAfter.hits - on.hits).toBeGreaterThanOrEqual(paths.length);
+
+    const off = await startTestServer({ ANSWER_CACHE: 'off' });
+    try {
+      const fresh: unknown[] = [];
+      for (const p of paths) fresh.push((await request(off.url).get(p).expect(200)).body, (await request(off.url).get(p).expect(200)).body);
+      const offAfter = await stats(off.url);
+      expect(offAfter).toEqual({ on: false, hits: 0, misses: 2 * paths.length });
+      expect(fresh).toEqual(kept);
+    } finally {
+      await off.stop();
+    }
+  });
+});
