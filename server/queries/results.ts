@@ -47,7 +47,13 @@ export async function listResults(query: z.infer<typeof resultListQuerySchema>, 
     // The public list (the home page's): the page's ids from the approved results held in
     // memory, newest first, then those rows alone by primary key.
     const { ids, total } = await approvedResults.newest(query.page, limits.pageSize, { steelId, abrasiveId });
-    const found = ids.length ? await Result.findAll({ where: { id: ids, status: 'approved' }, include: withTrail }) : [];
+    const found = ids.length ? await Result.findAll({ where: { id: ids, status: 'approved' }, include: resultIncludes }) : [];
+    // The trail only for those who see it (presentResult): the author and moderators.
+    const insiderOf = found.filter((r) => viewer && (viewer.id === r.authorId || atLeast(viewer.role, 'moderator')));
+    if (insiderOf.length) {
+      const events = await ResultEvent.findAll({ where: { resultId: insiderOf.map((r) => r.id) }, include: [{ model: User, as: 'actor' }] });
+      for (const r of insiderOf) r.events = events.filter((e) => e.resultId === r.id);
+    }
     const byId = new Map(found.map((r) => [r.id, r]));
     return { items: ids.map((id) => byId.get(id)).filter((r): r is Result => r !== undefined), page: query.page, pageSize: limits.pageSize, total };
   }
