@@ -47,7 +47,9 @@ export async function listResults(query: z.infer<typeof resultListQuerySchema>, 
     // The public list (the home page's): the page's ids from the approved results held in
     // memory, newest first, then those rows alone by primary key.
     const { ids, total } = await approvedResults.newest(query.page, limits.pageSize, { steelId, abrasiveId });
-    const found = ids.length ? await Result.findAll({ where: { id: ids, status: 'approved' }, include: resultIncludes }) : [];
+    // By primary key alone: with `status` in the where, SQLite took the status index and read
+    // every approved row (0.1 s at 100 000 results); a row retracted meanwhile is left out here.
+    const found = (ids.length ? await Result.findAll({ where: { id: ids }, include: resultIncludes }) : []).filter((r) => r.status === 'approved');
     // The trail only for those who see it (presentResult): the author and moderators.
     const insiderOf = found.filter((r) => viewer && (viewer.id === r.authorId || atLeast(viewer.role, 'moderator')));
     if (insiderOf.length) {
