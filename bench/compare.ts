@@ -28,6 +28,7 @@ import type { ResultInput } from '../shared/schemas/result';
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '../shared/vocabulary';
 import { buildServer, serverNodeFlags } from '../scripts/build-server';
 import { traffic, vocabulary } from './traffic';
+import { mulberry32 } from '../seed/data/results';
 
 const TOTAL_APPROVED = Number(process.env.BENCH_RESULTS ?? 100_000);
 const SEARCH_DOCS = Number(process.env.BENCH_SEARCH_DOCS ?? 50_000);
@@ -49,18 +50,7 @@ function percentile(values: number[], p: number): number {
   return s[lo] + (h - lo) * (s[Math.min(lo + 1, s.length - 1)] - s[lo]);
 }
 
-/** mulberry32, a small fixed-seed PRNG: the same invented data on every run. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-const rand = rng(0xbe4c4);
+const rand = mulberry32(0xbe4c4);
 const pick = <T>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
 
 // ---------------------------------------------------------------------------------------------

@@ -3,19 +3,10 @@
  * and method names, designations, materials, grits), so that no two are alike unless real
  * visitors would ask the same (a steel's page). Used by bench/load.ts and bench/compare.ts.
  */
+import { mulberry32 } from '../seed/data/results';
 
-/** mulberry32, a small fixed-seed PRNG: the same traffic on every run. */
-export function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-export const rand = rng(0x10ad);
+/** The same traffic on every run. */
+export const rand = mulberry32(0x10ad);
 const pick = <T>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
 const some = <T>(list: readonly T[], most: number) => [...new Set(Array.from({ length: 1 + Math.floor(rand() * most) }, () => pick(list)))];
 const between = (lo: number, hi: number, step: number) => Math.round((lo + rand() * (hi - lo)) / step) * step;

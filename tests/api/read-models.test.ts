@@ -11,6 +11,7 @@ import { approvedResults } from '../../server/read-models/approved-results';
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '../../shared/vocabulary';
 import type { BandedMember } from '../../shared/aggregate';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
+import { mulberry32 } from '../../seed/data/results';
 
 /**
  * The comparison's live filters (hardness, angle, dates, bond, publishers) are answered from the
@@ -27,17 +28,6 @@ afterAll(async () => {
   await server?.stop();
 });
 
-/** mulberry32, a small fixed-seed PRNG: the same combinations on every run. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** The view's rows as the results table gives them through SQL. */
 async function rowsFromSql(query: CompareQuery) {
@@ -56,7 +46,7 @@ async function rowsFromMemory(query: CompareQuery) {
 
 /** Random filter combinations over the pages and dates the database holds; every one has a live filter. */
 async function combinations(seed: number, count: number): Promise<CompareQuery[]> {
-  const rand = rng(seed);
+  const rand = mulberry32(seed);
   const pick = <T>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
   const some = <T>(list: readonly T[], most: number) => [...new Set(Array.from({ length: 1 + Math.floor(rand() * most) }, () => pick(list)))];
   const methods = (await Method.findAll({ attributes: ['slug'] })).map((m) => m.slug);
@@ -150,7 +140,7 @@ describe('the live filters answered from memory', () => {
   });
 
   it('give the same rows as the SQL path on 3 000 generated results, for 120 filter combinations', async () => {
-    const rand = rng(0xda7a);
+    const rand = mulberry32(0xda7a);
     const pick = <T>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
     const [steels, abrasives, methods, authors] = await Promise.all([Steel.findAll(), Abrasive.findAll(), Method.findAll(), User.findAll({ where: { banned: false } })]);
     // Retention methods name the medium a cut count is made in; sharpness methods do not.
