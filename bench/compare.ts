@@ -27,6 +27,8 @@ import { compareQuerySchema } from '../shared/schemas/compare';
 import type { ResultInput } from '../shared/schemas/result';
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '../shared/vocabulary';
 import { buildServer, serverNodeFlags } from '../scripts/build-server';
+import { traffic, vocabulary } from './traffic';
+import { mulberry32 } from '../seed/data/results';
 
 const TOTAL_APPROVED = Number(process.env.BENCH_RESULTS ?? 100_000);
 const SEARCH_DOCS = Number(process.env.BENCH_SEARCH_DOCS ?? 50_000);
@@ -48,18 +50,7 @@ function percentile(values: number[], p: number): number {
   return s[lo] + (h - lo) * (s[Math.min(lo + 1, s.length - 1)] - s[lo]);
 }
 
-/** mulberry32, a small fixed-seed PRNG: the same invented data on every run. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-const rand = rng(0xbe4c4);
+const rand = mulberry32(0xbe4c4);
 const pick = <T>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
 
 // ---------------------------------------------------------------------------------------------
@@ -271,24 +262,12 @@ async function startServer(dataDir: string): Promise<{ child: ChildProcess; read
   });
 }
 
-async function timeGets(url: string, runs: number, check?: (body: unknown) => void) {
-  const out: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const s = performance.now();
-    const res = await fetch(url);
-    const body = await res.json();
-    out.push(performance.now() - s);
-    if (!res.ok) throw new Error(`${url}: ${res.status} ${JSON.stringify(body).slice(0, 300)}`);
-    if (i === 0) check?.(body);
-  }
-  return { p50: ms(percentile(out, 0.5)), p95: ms(percentile(out, 0.95)), max: ms(Math.max(...out)) };
-}
+type Autocannon = (opts: Record<string, unknown>) => Promise<{ requests: { average: number }; latency: { p50: number; p99: number }; non2xx: number; errors: number }>;
 
-type Autocannon = (opts: { url: string; connections: number; duration: number }) => Promise<{ requests: { average: number }; latency: { p50: number; p99: number }; non2xx: number; errors: number }>;
-
-async function load(url: string): Promise<{ reqPerSec: number; p50: number; p99: number }> {
+/** 10 connections for 5 s on `url`, or on paths from `next()` there, each request its own. */
+async function load(url: string, next?: () => string): Promise<{ reqPerSec: number; p50: number; p99: number }> {
   const autocannon = (await import('autocannon')).default as unknown as Autocannon;
-  const r = await autocannon({ url, connections: 10, duration: 5 });
+  const r = await autocannon({ url, connections: 10, duration: 5, ...(next ? { requests: [{ setupRequest: (req: { path: string }) => Object.assign(req, { path: next() }) }] } : {}) });
   if (r.non2xx || r.errors) throw new Error(`${url}: ${r.non2xx} non-2xx, ${r.errors} errors under load`);
   return { reqPerSec: Math.round(r.requests.average), p50: r.latency.p50, p99: r.latency.p99 };
 }
@@ -308,14 +287,10 @@ async function signIn(url: string, handle: string) {
 // Search at about 50 000 documents
 // ---------------------------------------------------------------------------------------------
 
-const SEARCH_QUERIES = [
-  'd2', 'aisi d2', '1.2379', 'x153crmov12', 'cbn', 'd2 cbn', 'd2 cbn 62 µm', '52100 diamond fine', 'diamond 15 µm', 'stainless',
-  'vitrified wheel', 'push cut', 'bench steel 12', 'fennick', 'jis 6000', 'ceramic alumina', 'strop', 'o1 aluminium', 'm2 cbn', 'silicon carbide',
-  'hardened', 'retention', 'bench abrasive 20', 'skd11', 'diamond electroplated', 'natural stone', 'medium', 'extra fine', '440c', 'little tern',
-];
-
+/** Unique search queries asked, each once: built from the data's own words, some misspelt or cut short (bench/traffic.ts). */
+const SEARCH_QUERY_COUNT = Number(process.env.BENCH_SEARCH_QUERIES ?? 200);
 /** Other queries, asked before the measured ones to warm the process up (see searchPhase). */
-const SEARCH_WARM_UP = ['o1', 'a2', 'stone', 'wheel', 'ceramic', 'jis', 'bench', 'silicon', 'alumina', 'vitrified', 'natural', 'fine', 'coarse', 'tempered', 'suj2', 'little', 'resin', 'paper', 'steel 5', 'abrasive 3'];
+const SEARCH_WARM_UP = 20;
 
 async function searchPhase() {
   // A copy of the full database with only as many results left approved as make ~50 000 documents.
@@ -339,6 +314,12 @@ async function searchPhase() {
   await db.sequelize.query('PRAGMA wal_checkpoint(TRUNCATE)');
   await db.close();
 
+  const { ready, ask } = await startServer(dirA);
+  // The queries, from the words of the pages the server holds; each asked once below.
+  const words = traffic(await vocabulary(ready.url), []);
+  const queryOf = () => new URL(words.search().path, ready.url).searchParams.get('q')!;
+  const warmUp = Array.from({ length: SEARCH_WARM_UP }, queryOf);
+  const queries = Array.from({ length: SEARCH_QUERY_COUNT }, queryOf);
   const fts = new sqlite3.Database(':memory:');
   const run = (sql: string, params: unknown[] = []) => new Promise<void>((resolve, reject) => fts.run(sql, params, (err) => (err ? reject(err) : resolve())));
   const all = (sql: string, params: unknown[] = []) => new Promise<unknown[]>((resolve, reject) => fts.all(sql, params, (err, rows) => (err ? reject(err) : resolve(rows))));
@@ -347,8 +328,8 @@ async function searchPhase() {
   for (const d of docs) await run('INSERT INTO docs VALUES (?, ?, ?, ?, ?)', [d.key, d.type, d.title, d.names, d.body]);
   await run('COMMIT');
   const ftsTimes: number[] = [];
-  for (let round = 0; round < 5; round++) {
-    for (const q of SEARCH_QUERIES) {
+  {
+    for (const q of queries) {
       // Every word must match; the last word as a prefix, as in the app.
       const words = q.toLowerCase().split(/\s+/).filter(Boolean);
       const match = words.map((w, i) => `"${w.replace(/"/g, '""')}"${i === words.length - 1 ? '*' : ''}`).join(' AND ');
@@ -362,7 +343,6 @@ async function searchPhase() {
   figures.ftsP50Ms = ms(percentile(ftsTimes, 0.5));
   figures.ftsP95Ms = ms(percentile(ftsTimes, 0.95));
 
-  const { ready, ask } = await startServer(dirA);
   figures.searchDocuments = ready.searchDocuments;
   figures.indexReadyMs = Math.round(ready.indexMs);
   figures.searchBootMs = Math.round(ready.bootMs);
@@ -370,43 +350,36 @@ async function searchPhase() {
   // code (measured: 15–40 ms each, one blocking the loop for 40–56 ms); the figures below are of
   // a warmed process, after other queries, as a server that has been up a minute would be.
   const coldStart: number[] = [];
-  for (const q of SEARCH_WARM_UP) {
+  for (const q of warmUp) {
     const s = performance.now();
     await (await fetch(`${ready.url}/api/search?q=${encodeURIComponent(q)}`)).text();
     coldStart.push(performance.now() - s);
   }
   figures.searchFirstRequestMs = ms(coldStart[0]);
   await ask('reset-loop');
+  // Each query asked once, one at a time: no answer is ever kept for a later asking.
   const times: number[] = [];
-  // Round 1 asks each query for the first time; rounds 2–5 repeat them, and the search route
-  // answers those from its kept answers (cleared by any change to the index).
-  const firstRound: number[] = [];
   const hitsOf: Record<string, number> = {};
   const slowest: Record<string, number> = {};
-  for (let round = 0; round < 5; round++) {
-    for (const q of SEARCH_QUERIES) {
-      const s = performance.now();
-      const res = await fetch(`${ready.url}/api/search?q=${encodeURIComponent(q)}`);
-      const body = (await res.json()) as { facets: Record<string, number> };
-      times.push(performance.now() - s);
-      if (round === 0) firstRound.push(performance.now() - s);
-      slowest[q] = Math.max(slowest[q] ?? 0, performance.now() - s);
-      if (!res.ok) throw new Error(`search ${q}: ${res.status}`);
-      hitsOf[q] = Object.values(body.facets).reduce((a, b) => a + b, 0);
-    }
+  for (const q of queries) {
+    const s = performance.now();
+    const res = await fetch(`${ready.url}/api/search?q=${encodeURIComponent(q)}`);
+    const body = (await res.json()) as { facets: Record<string, number> };
+    times.push(performance.now() - s);
+    slowest[q] = performance.now() - s;
+    if (!res.ok) throw new Error(`search ${q}: ${res.status}`);
+    hitsOf[q] = Object.values(body.facets).reduce((a, b) => a + b, 0);
   }
   const loop = await ask<{ loopMaxMs: number; rssMb: number }>('stats');
   figures.searchP50Ms = ms(percentile(times, 0.5));
   figures.searchP95Ms = ms(percentile(times, 0.95));
-  figures.searchUncachedP50Ms = ms(percentile(firstRound, 0.5));
-  figures.searchUncachedP95Ms = ms(percentile(firstRound, 0.95));
   figures.searchMaxMs = ms(Math.max(...times));
   figures.searchLoopMaxMs = ms(loop.loopMaxMs);
   figures.searchRssMb = Math.round(loop.rssMb);
   const heaviest = Object.entries(hitsOf).sort((a, b) => b[1] - a[1])[0];
   say(
-    `search at ${ready.searchDocuments} documents (HTTP, ${times.length} requests): p50 ${figures.searchP50Ms} ms, p95 ${figures.searchP95Ms} ms, max ${figures.searchMaxMs} ms; ` +
-      `each query's first asking (no cached answer) p50 ${figures.searchUncachedP50Ms} ms, p95 ${figures.searchUncachedP95Ms} ms; first request after start ${figures.searchFirstRequestMs} ms; ` +
+    `search at ${ready.searchDocuments} documents (HTTP, ${times.length} unique queries, one at a time): p50 ${figures.searchP50Ms} ms, p95 ${figures.searchP95Ms} ms, max ${figures.searchMaxMs} ms; ` +
+      `first request after start ${figures.searchFirstRequestMs} ms; ` +
       `event loop max delay ${figures.searchLoopMaxMs} ms; index ready ${figures.indexReadyMs} ms (boot ${figures.searchBootMs} ms); ` +
       `FTS5 same docs and queries p50 ${figures.ftsP50Ms} ms, p95 ${figures.ftsP95Ms} ms; most hits: "${heaviest[0]}" ${heaviest[1]}; slowest: ` +
       Object.entries(slowest).sort((x, y) => y[1] - x[1]).slice(0, 4).map(([q, t]) => `"${q}" ${ms(t)} ms`).join(', '),
@@ -431,35 +404,41 @@ async function comparePhase() {
   figures.compareCellsInDefaultView = first.total;
 
   await ask('reset-loop');
-  const views: [string, string][] = [
-    ['compare', ''], // the page's first view: the busiest method, first 100 cells
-    ['compareAll', '?pageSize=5000'], // every cell of the method (the pivot)
-    ['compareSteels', '?steel=aisi-d2,aisi-52100,bench-steel-20&material=cbn,diamond'],
-    ['compareCategoryBand', '?category=stainless&umMin=4&umMax=64&sort=-median'],
-    ['compareHalfPhi', '?step=0.5&sort=ranked'],
-    ['compareLiveHardness', '?hrcMin=58&hrcMax=61'],
-    ['compareLivePublisher', '?publisher=1&steel=aisi-d2'],
+  // Views as people ask them, every one different (bench/traffic.ts), one at a time.
+  const t = traffic(await vocabulary(ready.url), []);
+  const kinds: [string, () => { path: string }, number][] = [
+    ['compareVaried', () => t.compare(), 150],
+    ['compareLive', () => t.compareLive(), 80],
+    ['homeList', () => t.list(), 80],
   ];
-  for (const [name, qs] of views) {
-    const t = await timeGets(`${base}${qs}`, name.startsWith('compareLive') ? 40 : 200);
-    figures[`${name}P50Ms`] = t.p50;
-    figures[`${name}P95Ms`] = t.p95;
-    say(`${name.padEnd(22)} ${qs.padEnd(62)} p50 ${t.p50} ms, p95 ${t.p95} ms, max ${t.max} ms`);
+  for (const [name, next, runs] of kinds) {
+    const out: number[] = [];
+    for (let i = 0; i < runs; i++) {
+      const url = `${ready.url}${next().path}`;
+      const s = performance.now();
+      const res = await fetch(url);
+      await res.arrayBuffer();
+      out.push(performance.now() - s);
+      if (!res.ok) throw new Error(`${url}: ${res.status}`);
+    }
+    figures[`${name}P50Ms`] = ms(percentile(out, 0.5));
+    figures[`${name}P95Ms`] = ms(percentile(out, 0.95));
+    say(`${name.padEnd(16)} ${runs} different requests: p50 ${figures[`${name}P50Ms`]} ms, p95 ${figures[`${name}P95Ms`]} ms, max ${ms(Math.max(...out))} ms`);
   }
   const sequentialLoop = await ask<{ loopMaxMs: number }>('stats');
   figures.compareLoopMaxMs = ms(sequentialLoop.loopMaxMs);
 
-  const loaded = await load(base);
+  const loaded = await load(ready.url, () => t.compare().path);
   figures.compareReqPerSec = loaded.reqPerSec;
   figures.compareLoadP99Ms = loaded.p99;
-  const loadedFiltered = await load(`${base}?steel=aisi-d2,aisi-52100&material=cbn,diamond`);
-  figures.compareFilteredReqPerSec = loadedFiltered.reqPerSec;
+  const loadedFiltered = await load(ready.url, () => t.compareLive().path);
+  figures.compareLiveReqPerSec = loadedFiltered.reqPerSec;
   const hello = await load(`${ready.helloUrl}/hello`);
   figures.helloReqPerSec = hello.reqPerSec;
   // The app's own middleware (session, passport, helmet, limits, CSRF) around a trivial handler.
   const health = await load(`${ready.url}/api/health`);
   figures.healthReqPerSec = health.reqPerSec;
-  say(`10 connections, 5 s each: compare ${loaded.reqPerSec} req/s (p99 ${loaded.p99} ms), filtered compare ${loadedFiltered.reqPerSec} req/s, Express hello-world ${hello.reqPerSec} req/s, the app's /api/health ${health.reqPerSec} req/s`);
+  say(`10 connections, 5 s each, every request different: compare ${loaded.reqPerSec} req/s (p99 ${loaded.p99} ms), with live filters ${loadedFiltered.reqPerSec} req/s (p99 ${loadedFiltered.p99} ms), Express hello-world ${hello.reqPerSec} req/s, the app's /api/health ${health.reqPerSec} req/s`);
 
   // Approval to visible: a moderator approves a pending result; time until the table shows it.
   const v2Pending = await (async () => {
@@ -523,7 +502,7 @@ try {
   if (phases.includes('sql')) await sqlYardsticks();
   if (phases.includes('search')) await searchPhase();
   if (phases.includes('compare')) await comparePhase();
-  figures.compareP95OverSqlGroupBy = ms((figures.compareP95Ms as number) / (figures.sqlGroupByMs as number));
+  figures.compareP95OverSqlGroupBy = ms((figures.compareVariedP95Ms as number) / (figures.sqlGroupByMs as number));
   figures.compareReqPerSecOverHello = ms((figures.compareReqPerSec as number) / (figures.helloReqPerSec as number));
   figures.searchP95OverFts = ms((figures.searchP95Ms as number) / (figures.ftsP95Ms as number));
   figures.benchSeconds = Math.round((performance.now() - benchStart) / 1000);

@@ -1,24 +1,28 @@
 /**
- * `npm run bench:load`: the production server under a mixed load, beside an Express
- * hello-world route measured in the same run.
+ * `npm run bench:load`: the production server under varied traffic, every request different,
+ * beside an Express hello-world route measured in the same run.
  *
- * 1. Builds a temporary database: the demo data's pages and members, then 100 000 approved
- *    results (copies of the demo's invented results, spread over its members and dates),
- *    inserted in bulk through Sequelize in a few transactions, and the comparison cells.
- * 2. Starts the server in production mode on loopback, bundled as `npm start` runs it,
- *    and, separately, a bare Express app answering "hello".
- * 3. With autocannon at 10 connections: the mix (70 % reads of pages and comparisons, 20 %
- *    search, 10 % result submissions by signed-in members) for 5 s to warm up; then three
- *    rounds of hello-world for 5 s and the mix for 10 s (30 s of mix in all), taking turns so
- *    that both are measured in the same moments of a shared machine; the mix again at half its
- *    saturated rate, for its p99; then 16 concurrent submitters
- *    (16 sessions) for 10 s; and each read of the mix alone for 3 s, to name the slow ones.
- * 4. Stops the server and counts the stored results: every submission answered 201 must be
- *    there. Prints a summary, and one JSON line last.
+ * 1. Builds a database (unless BENCH_KEEP names a folder that has one): the demo data's pages
+ *    and members, then BENCH_RESULTS (default 100 000) approved results (copies of the demo's
+ *    invented results, spread over its members and dates) and the comparison cells.
+ *    BENCH_PHASES=data builds it and stops.
+ * 2. Starts the server in production mode on loopback, bundled as `npm start` runs it, first
+ *    with the answer cache on, then again with ANSWER_CACHE=off; and a bare Express hello-world.
+ * 3. For each, one phase at a time, 10 connections (search: one at a time), hello-world for 3 s
+ *    right before each phase: the comparison with varied precomputed filters (method, steels,
+ *    category, material, size range, band step, sort, page); with live filters (hardness, angle,
+ *    dates, bond, publishers) as well; the home list's pages; steel and abrasive pages as
+ *    visitors and as signed-in members; unique searches built from the data's own words, some
+ *    with typos or cut short; and the mix: 70 % reads of those kinds (30 % of readers signed
+ *    in), 20 % unique searches, 10 % varied result submissions. Each phase reports its rate,
+ *    p50/p95/p99 (from every response), the answer cache's hit ratio over the phase (from
+ *    /api/health), and the p99 wait of a health check sent every 100 ms during it.
+ * 4. Counts the stored results (every submission answered 201 must be there), prints a table,
+ *    and one JSON line last.
  *
- * BENCH_RESULTS (default 100000) and BENCH_SECONDS (default 30) change the size and the mix's
- * duration; BENCH_KEEP=1 keeps the temporary folder (database and server log). Ports 3701–3705 on 127.0.0.1. Figures describe this machine at this moment; they
- * are never assertions.
+ * BENCH_RESULTS (default 100000), BENCH_SECONDS (per phase, default 8), BENCH_KEEP=<dir> (build
+ * or reuse the database there and keep it). Ports 3701–3706 on 127.0.0.1. Figures describe this
+ * machine at this moment; they are never assertions.
  */
 import fs from 'node:fs';
 import os from 'node:os';
@@ -31,17 +35,22 @@ import { loadDemoData } from '../seed/load';
 import { Result, ResultEvent, User } from '../server/models';
 import { rebuildAllCells } from '../server/aggregates/comparison-cells';
 import { buildServer, serverNodeFlags } from '../scripts/build-server';
+import { LocalOAuthProvider } from '../server/auth/local-provider';
+import { rand, traffic, vocabulary, type Req } from './traffic';
 
 const TOTAL = Number(process.env.BENCH_RESULTS ?? 100_000);
-const MIX_SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
-const PORTS = { http: 3701, oauth: 3702, smtp: 3703, s3: 3704, hello: 3705 };
+const PHASE_SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
+const PHASES = (process.env.BENCH_PHASES ?? 'data,load').split(',');
+// The server with the answer cache off listens on its own port: the first one's may still be closing.
+const PORTS = { http: 3701, oauth: 3702, smtp: 3703, s3: 3704, hello: 3705, httpCacheOff: 3706 };
 const HOST = '127.0.0.1';
-const base = `http://${HOST}:${PORTS.http}`;
+let base = `http://${HOST}:${PORTS.http}`;
 const started = performance.now();
 const seconds = () => Math.round((performance.now() - started) / 100) / 10;
 const say = (line: string) => console.log(`[${seconds()} s] ${line}`);
 
-const root = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-load-'));
+const root = process.env.BENCH_KEEP ? path.resolve(process.env.BENCH_KEEP) : fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-load-'));
+fs.mkdirSync(root, { recursive: true });
 const file = path.join(root, 'edgeledger.sqlite');
 const children: ChildProcess[] = [];
 process.on('exit', () => {
@@ -98,6 +107,16 @@ async function buildDatabase() {
   return { cells };
 }
 
+/** The OAuth subject of the first member, whom the bench's provider signs in. */
+function firstMemberSubject(): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const db = new sqlite3.Database(file, sqlite3.OPEN_READONLY, (err) => {
+      if (err) return reject(err);
+      db.get("SELECT oauthSubject FROM users WHERE role = 'member' AND banned = 0 ORDER BY id LIMIT 1", (e, row: { oauthSubject: string }) => db.close(() => (e ? reject(e) : resolve(row.oauthSubject))));
+    });
+  });
+}
+
 function countResults(): Promise<number> {
   return new Promise((resolve, reject) => {
     const db = new sqlite3.Database(file, sqlite3.OPEN_READONLY, (err) => {
@@ -125,20 +144,32 @@ async function waitFor(url: string, timeoutMs: number) {
   }
 }
 
-function startServer(bundle: string): ChildProcess {
-  const log = fs.openSync(path.join(root, 'server.log'), 'w');
+function startServer(bundle: string, answerCache: 'on' | 'off', oauthUrl: string, port: number): ChildProcess {
+  const log = fs.openSync(path.join(root, 'server.log'), 'a');
   const proc = spawn(process.execPath, [...serverNodeFlags(), bundle], {
     env: {
       ...process.env,
+      // Production as deployed: every hosted setting given (production refuses the local stand-ins).
+      // The "hosted" OAuth2 provider is the local one, run by this bench; mail and photos are
+      // never reached by this traffic.
       NODE_ENV: 'production',
       SESSION_SECRET: 'bench-only-secret-not-for-any-deployment',
-      HOST,
-      PORT: String(PORTS.http),
-      OAUTH_PORT: String(PORTS.oauth),
+      PUBLIC_URL: 'https://bench.edgeledger.example',
+      OAUTH_AUTHORIZE_URL: `${oauthUrl}/authorize`,
+      OAUTH_TOKEN_URL: `${oauthUrl}/token`,
+      OAUTH_USERINFO_URL: `${oauthUrl}/userinfo`,
+      OAUTH_CLIENT_ID: 'bench-client',
+      OAUTH_CLIENT_SECRET: 'bench-client-secret',
+      SMTP_HOST: HOST,
       SMTP_PORT: String(PORTS.smtp),
-      S3_PORT: String(PORTS.s3),
+      S3_ENDPOINT: `http://${HOST}:${PORTS.s3}`,
+      S3_ACCESS_KEY: 'bench-access-key',
+      S3_SECRET_KEY: 'bench-secret-key',
+      HOST,
+      PORT: String(port),
       DATA_DIR: root,
       SEED_DEMO: 'never',
+      ANSWER_CACHE: answerCache,
       LOG_LEVEL: 'info',
       // The load comes from one address through one "proxy" (X-Forwarded-Proto: https below,
       // so that the Secure session cookie is issued): limits raised, as for a trusted load test.
@@ -182,76 +213,103 @@ async function signIn(): Promise<{ cookie: string; csrf: string }> {
 }
 
 // ---------------------------------------------------------------------------------------------
-// Load
+// Traffic: every request built afresh from the data's own vocabulary
 // ---------------------------------------------------------------------------------------------
 
-const submission = JSON.stringify({
-  steel: 'aisi-d2',
-  hardness: { value: 61, scale: 'HRC' },
-  abrasive: 'cbn-electroplated-wheel-250-b126',
-  edgeAngle: { perSideDeg: 15 },
-  sharpness: { method: 'push-cut-test-v2', readingsG: [180, 175, 190, 170, 185] },
-  retention: { method: 'card-cut-retention-v1', cuts: 240 },
-  notes: { type: 'doc', content: [{ type: 'paragraph', content: [{ type: 'text', text: 'Load-bench submission: ' }, { type: 'text', text: 'invented', marks: [{ type: 'bold' }] }] }] },
-});
+// ---------------------------------------------------------------------------------------------
+// Measuring
+// ---------------------------------------------------------------------------------------------
 
-function writeRequest(s: { cookie: string; csrf: string }) {
-  return {
-    method: 'POST' as const,
-    path: '/api/results',
-    headers: { 'content-type': 'application/json', cookie: s.cookie, 'x-csrf-token': s.csrf, 'x-forwarded-proto': 'https' },
-    body: submission,
-  };
-}
-
-/** Ten requests, cycled by every connection: 7 reads of pages and comparisons, 2 searches, 1 write. */
-function mix(s: { cookie: string; csrf: string }) {
-  const get = (p: string) => ({ method: 'GET' as const, path: p });
-  return [
-    get('/api/steels/aisi-d2'),
-    get('/api/compare?method=push-cut-test-v2'),
-    get('/api/abrasives/cbn-electroplated-wheel-250-b126'),
-    get('/api/search?q=d2'),
-    get('/api/compare?method=push-cut-test-v2&steel=aisi-d2'),
-    get('/api/methods/push-cut-test-v2'),
-    get('/api/compare?method=card-cut-retention-v1&material=cbn'),
-    get('/api/search?q=cbn%20wheel'),
-    get('/api/steels'),
-    writeRequest(s),
-  ];
+function percentile(values: number[], p: number): number {
+  if (!values.length) return NaN;
+  const s = [...values].sort((a, b) => a - b);
+  const h = (s.length - 1) * p;
+  const lo = Math.floor(h);
+  return Math.round((s[lo] + (h - lo) * (s[Math.min(lo + 1, s.length - 1)] - s[lo])) * 10) / 10;
 }
 
 interface Run {
   rps: number;
   p50: number;
+  p95: number;
   p99: number;
   errors: number;
-  non2xx: number;
-  created: number;
-  total: number;
   statusCodes: Record<string, number>;
 }
 
-async function drive(options: Record<string, unknown>): Promise<Run> {
-  const r = (await autocannon({ connections: 10, ...options } as never)) as unknown as {
-    requests: { average: number; total: number };
-    latency: { p50: number; p99: number };
-    errors: number;
-    timeouts: number;
-    non2xx: number;
-    statusCodeStats: Record<string, { count: number }>;
-  };
-  const statusCodes = Object.fromEntries(Object.entries(r.statusCodeStats).map(([k, v]) => [k, v.count]));
+/** Drives `url` with autocannon; each request from `next()` when given; every response's time kept. */
+async function drive(url: string, seconds: number, connections: number, next?: () => Req): Promise<Run> {
+  const times: number[] = [];
+  const statusCodes: Record<string, number> = {};
+  const options: Record<string, unknown> = { url, connections, duration: seconds };
+  if (next) options.requests = [{ setupRequest: (req: Req) => Object.assign(req, next()) }];
+  const instance = autocannon(options);
+  instance.on('response', (_client: unknown, status: number, _bytes: number, ms: number) => {
+    times.push(ms);
+    statusCodes[status] = (statusCodes[status] ?? 0) + 1;
+  });
+  const r = (await instance) as { errors: number; timeouts: number; duration: number };
+  return { rps: Math.round(times.length / seconds), p50: percentile(times, 0.5), p95: percentile(times, 0.95), p99: percentile(times, 0.99), errors: r.errors + r.timeouts, statusCodes };
+}
+
+/** Sends a health check every 100 ms until `stop`; their waits, ms. */
+function probeHealth(): { stop: () => Promise<number[]> } {
+  const waits: number[] = [];
+  let running = true;
+  const loop = (async () => {
+    while (running) {
+      const t = performance.now();
+      await fetch(`${base}/api/health`).then((r) => r.arrayBuffer());
+      waits.push(performance.now() - t);
+      await new Promise((r) => setTimeout(r, 100));
+    }
+  })();
   return {
-    rps: Math.round(r.requests.average),
-    p50: r.latency.p50,
-    p99: r.latency.p99,
-    errors: r.errors + r.timeouts,
-    non2xx: r.non2xx,
-    created: statusCodes['201'] ?? 0,
-    total: r.requests.total,
-    statusCodes,
+    stop: async () => {
+      running = false;
+      await loop;
+      return waits;
+    },
   };
+}
+
+const cacheStats = async () => ((await (await fetch(`${base}/api/health`)).json()) as { answerCache: { hits: number; misses: number } }).answerCache;
+
+interface Figure extends Run {
+  phase: string;
+  cache: 'on' | 'off';
+  hello: number;
+  ofHello: number;
+  hitRatio: number | null;
+  healthP99: number;
+  created: number;
+}
+
+async function phase(name: string, cache: 'on' | 'off', next: () => Req, connections = 10): Promise<Figure> {
+  const hello = await drive(`http://${HOST}:${PORTS.hello}/`, 3, connections);
+  const before = await cacheStats();
+  const probe = probeHealth();
+  const run = await drive(base, PHASE_SECONDS, connections, next);
+  const waits = await probe.stop();
+  const after = await cacheStats();
+  const hits = after.hits - before.hits;
+  const asked = hits + after.misses - before.misses;
+  const f: Figure = {
+    phase: name,
+    cache,
+    ...run,
+    hello: hello.rps,
+    ofHello: Math.round((run.rps / hello.rps) * 1000) / 10,
+    hitRatio: asked ? Math.round((hits / asked) * 1000) / 10 : null,
+    healthP99: percentile(waits, 0.99),
+    created: run.statusCodes['201'] ?? 0,
+  };
+  const bad = Object.entries(run.statusCodes).filter(([c]) => !['200', '201', '301'].includes(c));
+  say(
+    `  ${name.padEnd(22)} cache ${cache.padEnd(3)}: ${String(f.rps).padStart(5)} req/s (${f.ofHello} % of hello-world ${f.hello}), p50 ${f.p50} ms, p95 ${f.p95} ms, p99 ${f.p99} ms; ` +
+      `answer cache hits ${f.hitRatio ?? '–'} %; health p99 ${f.healthP99} ms${bad.length ? `; other answers ${JSON.stringify(Object.fromEntries(bad))}` : ''}${run.errors ? `; errors ${run.errors}` : ''}`,
+  );
+  return f;
 }
 
 function rssMb(pid: number): number {
@@ -261,120 +319,74 @@ function rssMb(pid: number): number {
 
 // ---------------------------------------------------------------------------------------------
 
-say(`Building a database of ${TOTAL} approved results in ${root} …`);
-const built = await buildDatabase();
+if (!fs.existsSync(file)) {
+  say(`Building a database of ${TOTAL} approved results in ${root} …`);
+  const built = await buildDatabase();
+  say(`Database ready: ${built.cells} comparison cells.`);
+} else say(`Reusing the database in ${root}.`);
+if (!PHASES.includes('load')) process.exit(0);
 const resultsBefore = await countResults();
-say(`Database ready: ${resultsBefore} results, ${built.cells} comparison cells.`);
 
+const provider = new LocalOAuthProvider(((subject) => () => subject)(await firstMemberSubject()));
+const oauthUrl = await provider.start(PORTS.oauth);
 const hello = startHello();
 await waitFor(`http://${HOST}:${PORTS.hello}/`, 10_000);
-const server = startServer(await buildServer());
-const bootStart = performance.now();
-await Promise.race([
-  waitFor(`${base}/api/health`, 420_000),
-  new Promise((_, reject) => server.once('exit', (code) => reject(new Error(`the server exited (${code}):\n${fs.readFileSync(path.join(root, 'server.log'), 'utf8').slice(-3000)}`)))),
-]).catch((err) => {
-  console.error(String(err));
-  console.error(fs.readFileSync(path.join(root, 'server.log'), 'utf8').slice(-3000));
-  process.exit(1);
-});
-const bootS = Math.round((performance.now() - bootStart) / 100) / 10;
-say(`Production server ready in ${bootS} s (pid ${server.pid}).`);
-
-const sessions = await Promise.all(Array.from({ length: 16 }, () => signIn()));
-
-// The mix first warms up (the JIT, the kept answers and the pages' caches fill), uncounted.
-// Then hello-world and the mix take turns, so that both meet the machine in the same state
-// (on this shared 2-core machine hello-world alone moved between 4 500 and 8 000 req/s within
-// an hour): ROUNDS rounds of hello-world for 5 s and the mix for MIX_SECONDS / ROUNDS.
-say('Mix warm-up, 10 connections, 5 s (not counted) …');
-const warmUp = await drive({ url: base, duration: 5, requests: mix(sessions[0]) });
-const ROUNDS = 3;
-const helloRounds: Run[] = [];
-const mixRounds: Run[] = [];
-for (let round = 1; round <= ROUNDS; round += 1) {
-  const h = await drive({ url: `http://${HOST}:${PORTS.hello}/`, duration: 5 });
-  const m = await drive({ url: base, duration: Math.round(MIX_SECONDS / ROUNDS), requests: mix(sessions[0]) });
-  helloRounds.push(h);
-  mixRounds.push(m);
-  say(`  round ${round}: hello-world ${h.rps} req/s; mix ${m.rps} req/s (${Math.round((m.rps / h.rps) * 1000) / 10} %), p50 ${m.p50} ms, p99 ${m.p99} ms, errors ${m.errors}, non-2xx ${m.non2xx}`);
+const bundle = await buildServer();
+const figures: Figure[] = [];
+const servers: { cache: 'on' | 'off'; bootS: number; rssMb: number }[] = [];
+for (const cache of ['on', 'off'] as const) {
+  const port = cache === 'on' ? PORTS.http : PORTS.httpCacheOff;
+  base = `http://${HOST}:${port}`;
+  const server = startServer(bundle, cache, oauthUrl, port);
+  const bootStart = performance.now();
+  await Promise.race([
+    waitFor(`${base}/api/health`, 420_000),
+    new Promise((_, reject) => server.once('exit', (code) => reject(new Error(`the server exited (${code})`)))),
+  ]).catch((err) => {
+    console.error(String(err));
+    console.error(fs.readFileSync(path.join(root, 'server.log'), 'utf8').slice(-3000));
+    process.exit(1);
+  });
+  const bootS = Math.round((performance.now() - bootStart) / 100) / 10;
+  say(`Production server (answer cache ${cache}) ready in ${bootS} s (pid ${server.pid}, RSS ${rssMb(server.pid!)} MB).`);
+  const sessions = await Promise.all(Array.from({ length: 16 }, () => signIn()));
+  const t = traffic(await vocabulary(base), sessions);
+  // Warm-up (the JIT, the pages' caches), uncounted.
+  await drive(base, 3, 10, t.mixed);
+  figures.push(await phase('compare (precomputed)', cache, () => t.compare()));
+  figures.push(await phase('compare (live filters)', cache, () => t.compareLive()));
+  figures.push(await phase('home list pages', cache, () => t.list()));
+  figures.push(await phase('pages, visitors', cache, () => (rand() < 0.5 ? t.steel() : t.abrasive())));
+  figures.push(await phase('pages, members', cache, () => (rand() < 0.5 ? t.steel(true) : t.abrasive(true))));
+  figures.push(await phase('unique search, 1 conn', cache, t.search, 1));
+  figures.push(await phase('mix 70/20/10', cache, t.mixed));
+  servers.push({ cache, bootS, rssMb: rssMb(server.pid!) });
+  server.kill('SIGTERM');
+  await new Promise((resolve) => server.once('exit', resolve));
 }
-/** The rounds as one run: requests per second over all of them, the worst p50/p99, every error. */
-function together(runs: Run[]): Run {
-  const statusCodes: Record<string, number> = {};
-  for (const r of runs) for (const [code, n] of Object.entries(r.statusCodes)) statusCodes[code] = (statusCodes[code] ?? 0) + n;
-  return {
-    rps: Math.round(runs.reduce((n, r) => n + r.rps, 0) / runs.length),
-    p50: Math.max(...runs.map((r) => r.p50)),
-    p99: Math.max(...runs.map((r) => r.p99)),
-    errors: runs.reduce((n, r) => n + r.errors, 0),
-    non2xx: runs.reduce((n, r) => n + r.non2xx, 0),
-    created: runs.reduce((n, r) => n + r.created, 0),
-    total: runs.reduce((n, r) => n + r.total, 0),
-    statusCodes,
-  };
-}
-const helloRun = together(helloRounds);
-const mixRun = together([...mixRounds]);
-mixRun.created += warmUp.created;
-mixRun.errors += warmUp.errors;
-mixRun.non2xx += warmUp.non2xx;
-for (const [code, n] of Object.entries(warmUp.statusCodes)) mixRun.statusCodes[code] = (mixRun.statusCodes[code] ?? 0) + n;
-say(`  hello-world ${helloRun.rps} req/s; mix ${mixRun.rps} req/s (${Math.round((mixRun.rps / helloRun.rps) * 1000) / 10} % of hello-world), worst p99 ${mixRun.p99} ms, errors ${mixRun.errors}, non-2xx ${mixRun.non2xx}`);
-
-const halfRate = Math.max(1, Math.floor(mixRun.rps / 2));
-say(`Mix at half its saturated rate (${halfRate} req/s), 20 s …`);
-const halfRun = await drive({ url: base, duration: 20, requests: mix(sessions[1]), overallRate: halfRate });
-say(`  ${halfRun.rps} req/s, p50 ${halfRun.p50} ms, p99 ${halfRun.p99} ms, errors ${halfRun.errors}, non-2xx ${halfRun.non2xx}`);
-
-// Each request of the mix alone, so a slow one can be named.
-say('Each request of the mix alone, 10 connections, 3 s each …');
-const perRequest: Record<string, { rps: number; p50: number; p99: number }> = {};
-for (const r of mix(sessions[2]).slice(0, -1)) {
-  const run = await drive({ url: base, duration: 3, requests: [r] });
-  perRequest[r.path] = { rps: run.rps, p50: run.p50, p99: run.p99 };
-  say(`  ${r.path}: ${run.rps} req/s, p50 ${run.p50} ms, p99 ${run.p99} ms`);
-}
-
-say('Submissions: 16 concurrent submitters (16 sessions), 10 s …');
-let next = 0;
-const submitRun = await drive({
-  url: base,
-  connections: 16,
-  duration: 10,
-  requests: [writeRequest(sessions[0])],
-  setupClient: (client: { setRequests: (r: unknown[]) => void }) => client.setRequests([writeRequest(sessions[next++ % sessions.length])]),
-});
-say(`  ${submitRun.rps} results/s, p50 ${submitRun.p50} ms, p99 ${submitRun.p99} ms, errors ${submitRun.errors}, non-2xx ${submitRun.non2xx}`);
-
-const rss = rssMb(server.pid!);
-const health = (await (await fetch(`${base}/api/health`)).json()) as { searchDocuments: number };
-server.kill('SIGTERM');
-await new Promise((resolve) => server.once('exit', resolve));
 hello.kill('SIGTERM');
+await provider.stop();
+
 const resultsAfter = await countResults();
-const acknowledged = mixRun.created + halfRun.created + submitRun.created;
+const acknowledged = figures.reduce((n, f) => n + f.created, 0);
 const stored = resultsAfter - resultsBefore;
-// A write still in flight when autocannon stops is stored but never answered: stored may exceed
-// acknowledged; only the reverse would be a lost write.
+// A write in flight when a phase stops is stored but never answered: stored may exceed
+// acknowledged (warm-ups write too); only the reverse would be a lost write.
 const lost = Math.max(0, acknowledged - stored);
-const serverErrors = [mixRun, halfRun, submitRun].reduce((n, r) => n + Object.entries(r.statusCodes).filter(([c]) => Number(c) >= 500).reduce((a, [, v]) => a + v, 0), 0);
-say(`Writes acknowledged ${acknowledged}, stored ${stored} (in flight at the end: ${stored - acknowledged + lost}): lost ${lost}; 5xx answers ${serverErrors}.`);
-say(`Server RSS at the end: ${rss} MB; search documents ${health.searchDocuments}. Bench took ${seconds()} s.`);
+const serverErrors = figures.reduce((n, f) => n + Object.entries(f.statusCodes).filter(([c]) => Number(c) >= 500).reduce((a, [, x]) => a + x, 0), 0);
+const by = (name: string, cache: 'on' | 'off') => figures.find((f) => f.phase === name && f.cache === cache)!;
+const members = (cache: 'on' | 'off') => Math.round((by('pages, members', cache).rps / by('pages, visitors', cache).rps) * 1000) / 10;
+say(`Members' pages at ${members('on')} % of visitors' throughput (cache on), ${members('off')} % (cache off).`);
+say(`Writes acknowledged ${acknowledged}, stored ${stored}: lost ${lost}; 5xx answers ${serverErrors}. Server RSS at the end: ${servers.map((s) => `${s.rssMb} MB (cache ${s.cache})`).join(', ')}. Bench took ${seconds()} s.`);
 
 console.log(
   JSON.stringify({
     results: resultsBefore,
-    bootS,
-    hello: { rps: helloRun.rps, p50: helloRun.p50, p99: helloRun.p99 },
-    mix: { rps: mixRun.rps, p50: mixRun.p50, p99: mixRun.p99, errors: mixRun.errors, non2xx: mixRun.non2xx, ofHello: Math.round((mixRun.rps / helloRun.rps) * 1000) / 1000 },
-    rounds: mixRounds.map((m, i) => ({ hello: helloRounds[i].rps, mix: m.rps, ofHello: Math.round((m.rps / helloRounds[i].rps) * 1000) / 1000 })),
-    halfRate: { target: halfRate, rps: halfRun.rps, p50: halfRun.p50, p99: halfRun.p99, errors: halfRun.errors, non2xx: halfRun.non2xx },
-    perRequest,
-    submit16: { perS: submitRun.rps, p50: submitRun.p50, p99: submitRun.p99, errors: submitRun.errors, non2xx: submitRun.non2xx },
+    phaseSeconds: PHASE_SECONDS,
+    servers,
+    figures: figures.map(({ statusCodes: _s, ...f }) => f),
+    membersOfVisitors: { on: members('on'), off: members('off') },
     writes: { acknowledged, stored, lost, serverErrors },
-    rssMb: rss,
-    searchDocuments: health.searchDocuments,
     seconds: seconds(),
   }),
 );

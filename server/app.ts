@@ -76,7 +76,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use(requestLog());
   const cookieName = sessionCookieName(ctx.env.isProduction);
   // A visitor's read with a kept answer ends here: no session, body parsing or routing.
-  const answers = new AnswerCache();
+  const answers = new AnswerCache({ enabled: ctx.env.ANSWER_CACHE === 'on' });
   app.use(answers.serveVisitors((req) => !needsSession(req, cookieName) && !req.headers.authorization));
   app.use(express.json({ limit: '256kb' }));
 

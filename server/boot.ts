@@ -7,6 +7,7 @@ import { Database } from './db/database';
 import { SearchIndex } from './search/search-index';
 import { allSearchDocs } from './search/documents';
 import { searchFollowsChanges } from './search/follow-changes';
+import { approvedResults } from './read-models/approved-results';
 import { Mailer } from './mail/mailer';
 import { MailCatcher } from './mail/mail-catcher';
 import { LocalS3 } from './storage/local-s3';
@@ -76,6 +77,9 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
   const started = Date.now();
   await search.rebuild(allSearchDocs());
   const indexMs = Date.now() - started;
+  // The comparison's live filters scan the approved results in memory: built before listening.
+  approvedResults.reset();
+  await approvedResults.ready();
 
   const mailer = new Mailer({ host: env.SMTP_HOST ?? '127.0.0.1', port: smtpPort, user: env.SMTP_USER, password: env.SMTP_PASSWORD, from: env.MAIL_FROM, local: !env.SMTP_HOST });
   const ctx: AppContext = {

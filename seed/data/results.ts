@@ -32,7 +32,7 @@ export const RESULT_COUNT = 300;
 export const RESULT_SEED = 0x2f6b_1e09;
 
 /** mulberry32: a tiny, well-known 32-bit PRNG; good enough for demo data, never for security. */
-function mulberry32(seed: number): () => number {
+export function mulberry32(seed: number): () => number {
   let a = seed >>> 0;
   return () => {
     a = (a + 0x6d2b79f5) >>> 0;

@@ -33,6 +33,8 @@ const envSchema = z.object({
   /** Port of the local S3 fake; 0 picks a free one (only this process talks to it). */
   S3_PORT: port.default(0),
   SEED_DEMO: z.enum(['auto', 'never']).default('auto'),
+  /** `off`: no read answer is kept (the bench measures the real paths with it). */
+  ANSWER_CACHE: z.enum(['on', 'off']).default('on'),
   // Unset: 'silent' under NODE_ENV=test, 'info' otherwise (see loadEnv).
   LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).optional(),
   /** Number of reverse proxies in front of the server whose X-Forwarded-* headers are trusted; 0: none. */

@@ -44,6 +44,20 @@ function send(res: Response, answer: Answer): void {
  */
 export class AnswerCache {
   private readonly groups: Group[] = [];
+  /** Reads a kept answer could have served: served from it, and answered by the route. */
+  private hits = 0;
+  private misses = 0;
+  private readonly enabled: boolean;
+
+  /** `enabled: false` (ANSWER_CACHE=off) keeps nothing: every read runs its route. */
+  constructor(options: { enabled?: boolean } = {}) {
+    this.enabled = options.enabled ?? true;
+  }
+
+  /** Whether answers are kept, and how many reads were served from them (hits) or not (misses) since start. */
+  stats(): { on: boolean; hits: number; misses: number } {
+    return { on: this.enabled, hits: this.hits, misses: this.misses };
+  }
 
   /**
    * Route middleware: keeps this route's answers until a commit changes what its row `kept` of
@@ -62,8 +76,13 @@ export class AnswerCache {
     const keepOrServe: RequestHandler = (req, res, next) => {
       if (req.method !== 'GET' || (!options.forEveryone && actorOf(req))) return next();
       const key = req.originalUrl;
-      const hit = answers.get(key);
-      if (hit !== undefined) return send(res, hit);
+      const hit = this.enabled ? answers.get(key) : undefined;
+      if (hit !== undefined) {
+        this.hits += 1;
+        return send(res, hit);
+      }
+      this.misses += 1;
+      if (!this.enabled) return next();
       const mark = answers.mark();
       const sendAnswer = res.send.bind(res);
       // res.json ends here too, with its text and a JSON content type.
@@ -89,10 +108,11 @@ export class AnswerCache {
    */
   serveVisitors(isVisitor: (req: Request) => boolean): RequestHandler {
     return (req: Request, res: Response, next: NextFunction) => {
-      if (req.method !== 'GET' || !isVisitor(req)) return next();
+      if (!this.enabled || req.method !== 'GET' || !isVisitor(req)) return next();
       for (const { answers, guard } of this.groups) {
         const hit = answers.get(req.originalUrl);
         if (hit === undefined) continue;
+        this.hits += 1;
         if (!guard) return send(res, hit);
         return guarded(guard, req, res, next, () => send(res, hit));
       }

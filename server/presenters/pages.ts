@@ -16,7 +16,7 @@ export interface PageExtras {
 }
 
 /** What the viewer may do with a page, so the client shows only the controls the server would accept. */
-function pageActions(page: PageModel, viewer: Actor | null | undefined) {
+export function pageActions(page: Pick<PageModel, 'isProtected' | 'mergedIntoId'>, viewer: Actor | null | undefined) {
   const subject = { isProtected: page.isProtected };
   return {
     edit: can(viewer ?? null, 'edit:page', subject) && !page.mergedIntoId,

@@ -1,20 +1,21 @@
 import { Op, type WhereOptions } from 'sequelize';
-import type { BandedMember } from '@shared/aggregate';
 import { LIVE_FILTER_KEYS, type CompareFilters } from '@shared/schemas/compare';
 import { bandInfo, cellId, FEW_RESULTS, type CompareRow } from '@shared/compare-view';
 import { shrunkMedian } from '@shared/compare-shrinkage';
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '@shared/vocabulary';
 import { badRequest } from '../errors';
 import { Result, User } from '../models';
-import { cellsOf, memberAttributes, type CellRecord } from '../aggregates/comparison-cells';
+import type { CellRecord } from '../aggregates/comparison-cells';
 import { methodCells, resultsPerMethod } from '../aggregates/cell-cache';
 import { lookups, type Lookups, type MethodInfo } from './compare-lookups';
+import { approvedResults, type ResultFilter } from '../read-models/approved-results';
 
 /**
  * The comparison view: which method, which cells, from where. Filters that the precomputed
  * cells can answer (steels, steel category, abrasive material, grit band range, band step) are
  * applied to the cached cells; the others (bond, hardness, angle, publisher-only, dates) need
- * each result, so those views are aggregated from the matching results, by the same code.
+ * each result, so those views are aggregated from the matching results held in memory
+ * (server/read-models/approved-results.ts), by the same code.
  */
 
 /** A resolved view: the method, the filters as ids, and whether it must be computed from results. */
@@ -113,32 +114,35 @@ export async function resultWhere(view: ResolvedView): Promise<WhereOptions<Resu
   return where as WhereOptions<Result>;
 }
 
-/** The approved results of one steel that a view's `where` (resultWhere) picks, as cell members. */
-async function steelMembers(where: WhereOptions<Result>, steelId: number): Promise<BandedMember[]> {
-  return (await Result.findAll({ where: { ...where, steelId } as WhereOptions<Result>, attributes: [...memberAttributes], raw: true })) as unknown as BandedMember[];
+/** The view as a scan of the approved results held in memory (the same selection as `resultWhere`). */
+export async function resultFilter(view: ResolvedView): Promise<ResultFilter> {
+  const f = view.filters;
+  const bonds = f.bond ? new Set<string>(f.bond) : null;
+  return {
+    methodId: view.method.id,
+    steelIds: view.steelIds,
+    materials: view.materials,
+    gritPhiAbove: f.umMax !== undefined ? Math.log2(1000 / f.umMax) - 1 - 1e-9 : undefined,
+    gritPhiBelow: f.umMin !== undefined ? Math.log2(1000 / f.umMin) + 1e-9 : undefined,
+    hrcMin: f.hrcMin,
+    hrcMax: f.hrcMax,
+    angleMin: f.angleMin,
+    angleMax: f.angleMax,
+    createdFrom: f.postedFrom ? Date.parse(`${f.postedFrom}T00:00:00Z`) : undefined,
+    createdBefore: f.postedTo ? Date.parse(`${f.postedTo}T00:00:00Z`) + DAY_MS : undefined,
+    abrasiveIds: bonds ? new Set([...view.look.abrasives.values()].filter((a) => bonds.has(a.bond)).map((a) => a.id)) : null,
+    publishers: f.publisher === true,
+  };
 }
 
 /** The view's cells, as rows, with where they came from and the method's overall median. */
 export async function viewRows(view: ResolvedView): Promise<{ rows: CompareRow[]; source: 'cells' | 'results'; overallMedianG: number | null; methodResults: number }> {
   const cached = await methodCells(view.method.id, view.step);
-  let cells: CellRecord[];
-  let source: 'cells' | 'results';
-  if (view.liveKeys.length === 0) {
-    cells = cached.cells.filter((c) => cellMatches(view, c));
-    source = 'cells';
-  } else {
-    // One steel at a time, other requests running in between: read at once, the ~80 000
-    // members of a hardness-filtered view held the event loop for about 0.4 s (100 000 results).
-    const where = await resultWhere(view);
-    const steels = [...new Set(cached.cells.map((c) => c.steelId))].filter((id) => !view.steelIds || view.steelIds.has(id));
-    cells = [];
-    for (const steelId of steels) {
-      for (const c of cellsOf(await steelMembers(where, steelId), [view.step])) if (cellMatches(view, c)) cells.push(c);
-    }
-    source = 'results';
-  }
+  // Filters the cells cannot answer: the view's cells from the approved results held in memory.
+  const live = view.liveKeys.length > 0;
+  const cells = (live ? await approvedResults.cells(await resultFilter(view), view.step) : cached.cells).filter((c) => cellMatches(view, c));
   const overall = cached.overallMedianG;
-  return { rows: cells.map((c) => presentCell(view, c, overall)), source, overallMedianG: overall, methodResults: cached.results };
+  return { rows: cells.map((c) => presentCell(view, c, overall)), source: live ? 'results' : 'cells', overallMedianG: overall, methodResults: cached.results };
 }
 
 const r2 = (x: number) => Math.round(x * 100) / 100;

@@ -39,7 +39,7 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
   router.use(csrfProtection);
 
   router.get('/health', validate({ query: emptyQuerySchema }), (_req, res) => {
-    res.json({ ok: true, searchDocuments: ctx.search.size, pendingWrites: ctx.db.queue.size });
+    res.json({ ok: true, searchDocuments: ctx.search.size, pendingWrites: ctx.db.queue.size, answerCache: answers.stats() });
   });
 
   router.get('/session', validate({ query: emptyQuerySchema }), (req, res) => {

@@ -27,6 +27,7 @@ import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import type { AnswerCache } from '../../../middleware/answer-cache';
 import { forbidden, notFound } from '../../../errors';
+import { keptUntil } from '../../../queries/kept-until';
 import { Method, PAGE_TEXT_COLUMNS, PageRevision, type Abrasive, type Steel } from '../../../models';
 import {
   approvedCounts,
@@ -49,6 +50,7 @@ import {
   presentAbrasiveSummary,
   presentMethod,
   presentMethodSummary,
+  pageActions,
   presentPageEvent,
   presentRevision,
   presentRevisionSummary,
@@ -94,6 +96,23 @@ async function presentPage(type: PageType, page: PageModel, viewer: Actor | null
   return presentMethod(page as Method, new Map(methods.map((m) => [m.id, m.slug])), { ...extras, versions: versionsOf(page as Method, methods) });
 }
 
+/**
+ * A page's answer apart from what the viewer may do: the JSON of everything else (its closing
+ * brace left off) and what the allowed actions depend on; or where a merged page now lives.
+ */
+type SharedPage = { moved: PageModel } | { head: string; subject: Pick<PageModel, 'isProtected' | 'mergedIntoId'> };
+
+async function sharedPage(type: PageType, slug: string): Promise<SharedPage> {
+  const page = await findPageOfType(type, slug);
+  const survivor = await survivorOf(type, page);
+  if (survivor) return { moved: survivor };
+  const { can: _visitors, ...rest } = await presentPage(type, page, null);
+  return { head: JSON.stringify(rest).slice(0, -1), subject: { isProtected: page.isProtected, mergedIntoId: page.mergedIntoId } };
+}
+
+/** The whole answer for `viewer`: the shared part, then their allowed actions (`can`, last). */
+const withActions = (shared: Extract<SharedPage, { head: string }>, viewer: Actor | null) => `${shared.head},"can":${JSON.stringify(pageActions(shared.subject, viewer))}}`;
+
 /** Sends a refused stale save: 409 with the current revision, the conflicting fields and a suggested merge. */
 async function sendStale(res: Response, outcome: Extract<ReviseOutcome, { outcome: 'stale' }>, viewer: Actor) {
   const linkExists = await linkCheckerFor([outcome.current.body]);
@@ -120,6 +139,8 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
   const router = Router();
   // A visitor's page or list answer depends on the pages and the approved results' figures only.
   const forVisitors = answers.keep('pages');
+  // A page's answer but for the viewer's actions, computed once for everyone (signed in or not).
+  const sharedPages = keptUntil<string, Promise<SharedPage>>('pages', { max: 2_000 });
 
   router.get('/steels', forVisitors, validate({ query: steelListQuerySchema }), async (req, res) => {
     const q = req.valid.query as z.infer<typeof steelListQuerySchema>;
@@ -159,9 +180,10 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
     const section = PAGE_SECTIONS[type];
 
     router.get(`/${section}/:slug`, forVisitors, validate({ params: slugParams }), async (req, res) => {
-      const page = await findPageOfType(type, (req.valid.params as { slug: string }).slug);
-      const survivor = await survivorOf(type, page);
-      if (survivor) {
+      const slug = (req.valid.params as { slug: string }).slug;
+      const shared = await sharedPages.share(`${type}:${slug}`, () => sharedPage(type, slug));
+      if ('moved' in shared) {
+        const survivor = shared.moved;
         res
           .status(301)
           .set('Cache-Control', 'no-store')
@@ -169,7 +191,7 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
           .json({ redirectTo: survivor.slug, mergedInto: { slug: survivor.slug, name: survivor.name } });
         return;
       }
-      res.json(await presentPage(type, page, actorOf(req)));
+      res.type('application/json').send(withActions(shared, actorOf(req)));
     });
 
     router.put(`/${section}/:slug`, requireUser, validate({ params: slugParams, body: pageEditSchemas[type] }), async (req, res) => {

@@ -1,0 +1,381 @@
+import { Op } from 'sequelize';
+import { bandStartOf, cellColumns, type BandedMember } from '@shared/aggregate';
+import { Result, User } from '../models';
+import { keptUntil } from '../queries/kept-until';
+import { memberAttributes, type CellKey, type CellRecord } from '../aggregates/comparison-cells';
+import { changedCells } from '../aggregates/cell-cache';
+import { follow } from '../changes';
+
+/** The cells a commit changed, or all of them after a rebuild. */
+type CellChange = { keys: CellKey[] } | { all: true };
+
+/**
+ * The approved results' filterable columns as typed arrays in memory: what the comparison's
+ * live filters (hardness, angle, dates, bond, publishers) need, so that a view filtered by them
+ * is a scan of a few MB rather than a read of result rows (decision 017). Built once at
+ * start-up, then kept current by `apply` after each commit that changed approved results: the
+ * whole-φ cells a commit named are read again (through the covering index of 0008) and their
+ * rows replaced. A read waits for the updates under way, so an answer never predates a commit
+ * that was acknowledged before it was asked.
+ */
+
+/** The attributes read per approved result. */
+const ATTRIBUTES = ['id', ...memberAttributes, 'abrasiveId', 'createdAt'] as const;
+type Row = BandedMember & { id: number; abrasiveId: number; createdAt: Date | string };
+
+/** What one scan selects; each field left undefined selects every row. */
+export interface ResultFilter {
+  methodId: number;
+  steelIds?: ReadonlySet<number> | null;
+  materials?: ReadonlySet<string> | null;
+  /** Whole φ band strictly inside (gritPhiAbove, gritPhiBelow). */
+  gritPhiAbove?: number;
+  gritPhiBelow?: number;
+  hrcMin?: number;
+  hrcMax?: number;
+  angleMin?: number;
+  angleMax?: number;
+  /** Posted at or after / before these instants, ms since the epoch. */
+  createdFrom?: number;
+  createdBefore?: number;
+  abrasiveIds?: ReadonlySet<number> | null;
+  /** Only results by verified publishers. */
+  publishers?: boolean;
+}
+
+const toMs = (d: Date | string): number => {
+  if (d instanceof Date) return d.getTime();
+  // SQLite keeps Sequelize's "YYYY-MM-DD HH:MM:SS.SSS +00:00".
+  const iso = /^\d{4}-\d{2}-\d{2} /.test(d) ? d.replace(' ', 'T').replace(/ ([+-]\d{2}:\d{2})$/, '$1') : d;
+  return Date.parse(iso);
+};
+
+const FLOAT_COLUMNS = ['gritUm', 'medianG', 'retention', 'hrc', 'angle', 'created'] as const;
+const INT_COLUMNS = ['id', 'method', 'steel', 'material', 'gritPhi', 'half', 'author', 'abrasive', 'cell'] as const;
+type FloatColumn = (typeof FLOAT_COLUMNS)[number];
+type IntColumn = (typeof INT_COLUMNS)[number];
+
+/** The columns; `retention` is NaN where a result reports none; `cell` numbers the whole-φ cell key; `half` is 0 or 1, the half band inside it. */
+class Columns {
+  size = 0;
+  f = {} as Record<FloatColumn, Float64Array>;
+  i = {} as Record<IntColumn, Int32Array>;
+  constructor(capacity = 1024) {
+    for (const c of FLOAT_COLUMNS) this.f[c] = new Float64Array(capacity);
+    for (const c of INT_COLUMNS) this.i[c] = new Int32Array(capacity);
+  }
+  get capacity() {
+    return this.i.id.length;
+  }
+  grow(min: number): void {
+    if (min <= this.capacity) return;
+    const capacity = Math.max(min, this.capacity * 2);
+    for (const c of FLOAT_COLUMNS) {
+      const next = new Float64Array(capacity);
+      next.set(this.f[c].subarray(0, this.size));
+      this.f[c] = next;
+    }
+    for (const c of INT_COLUMNS) {
+      const next = new Int32Array(capacity);
+      next.set(this.i[c].subarray(0, this.size));
+      this.i[c] = next;
+    }
+  }
+  /** Keeps only the rows `keep` accepts, in order. */
+  compact(keep: (row: number) => boolean): void {
+    let to = 0;
+    for (let from = 0; from < this.size; from++) {
+      if (!keep(from)) continue;
+      if (to !== from) {
+        for (const c of FLOAT_COLUMNS) this.f[c][to] = this.f[c][from];
+        for (const c of INT_COLUMNS) this.i[c][to] = this.i[c][from];
+      }
+      to++;
+    }
+    this.size = to;
+  }
+}
+
+/**
+ * The approved results newest first (posted time, then id, both descending: the order of the
+ * results list), with the steel and abrasive of each, so that any page of the list, whole or of
+ * one steel or abrasive, is found without a COUNT or an OFFSET.
+ */
+class Newest {
+  size = 0;
+  created = new Float64Array(0);
+  id = new Int32Array(0);
+  steel = new Int32Array(0);
+  abrasive = new Int32Array(0);
+
+  /** This list without the ids in `removed`, with `added` merged in: one pass over both. */
+  merged(removed: ReadonlySet<number>, added: Columns, rows: readonly number[]): Newest {
+    const order = [...rows].sort((a, b) => added.f.created[b] - added.f.created[a] || added.i.id[b] - added.i.id[a]);
+    const next = new Newest();
+    const capacity = this.size + order.length;
+    next.created = new Float64Array(capacity);
+    next.id = new Int32Array(capacity);
+    next.steel = new Int32Array(capacity);
+    next.abrasive = new Int32Array(capacity);
+    let i = 0;
+    let j = 0;
+    let n = 0;
+    while (i < this.size || j < order.length) {
+      if (i < this.size && removed.has(this.id[i])) {
+        i++;
+        continue;
+      }
+      const r = order[j];
+      const takeOld = j >= order.length || (i < this.size && (this.created[i] > added.f.created[r] || (this.created[i] === added.f.created[r] && this.id[i] > added.i.id[r])));
+      if (takeOld) {
+        next.created[n] = this.created[i];
+        next.id[n] = this.id[i];
+        next.steel[n] = this.steel[i];
+        next.abrasive[n] = this.abrasive[i];
+        i++;
+      } else {
+        next.created[n] = added.f.created[r];
+        next.id[n] = added.i.id[r];
+        next.steel[n] = added.i.steel[r];
+        next.abrasive[n] = added.i.abrasive[r];
+        j++;
+      }
+      n++;
+    }
+    next.size = n;
+    return next;
+  }
+}
+
+const cellKeyString = (k: CellKey) => `${k.methodId}|${k.steelId}|${k.material}|${k.gritPhi}`;
+
+/** The read model; one per process, like the database it follows (decision 001). */
+export class ApprovedResults {
+  private cols = new Columns();
+  private newestFirst = new Newest();
+  private materials: string[] = [];
+  private materialNo = new Map<string, number>();
+  private cellKeys: CellKey[] = [];
+  private cellNo = new Map<string, number>();
+  /** The build and every update after it, in order: a read waits for this. */
+  private settled: Promise<void> | null = null;
+  private readonly publisherIds = keptUntil<'publishers', Promise<Set<number>>>('accounts');
+
+  /** How many approved results it holds (after the updates under way). */
+  async size(): Promise<number> {
+    await this.ready();
+    return this.cols.size;
+  }
+
+  /** Builds the columns (at start-up) unless built; resolves once every update so far is in. */
+  ready(): Promise<void> {
+    if (!this.settled) this.follow(this.rebuild());
+    return this.settled!;
+  }
+
+  /** Makes `next` the update that reads wait for; one that fails leaves the model to be built again. */
+  private follow(next: Promise<void>): void {
+    const settled = next.catch((err) => {
+      if (this.settled === settled) this.settled = null;
+      throw err;
+    });
+    this.settled = settled;
+  }
+
+  /** Forgets everything; the next read builds again (the bench's cold reads; a new database in one process). */
+  reset(): void {
+    this.settled = null;
+  }
+
+  /**
+   * After a commit that changed approved results: the named whole-φ cells are read again and
+   * their rows replaced (every row after a rebuild). The one call a write's followers make.
+   */
+  apply(change: CellChange): void {
+    if (!this.settled) return; // not built yet: the build will read the change
+    const previous = this.settled.catch(() => undefined);
+    if ('all' in change) return this.follow(previous.then(() => this.rebuild()));
+    const keys = change.keys;
+    this.follow(
+      previous
+        .then(() => this.replaceCells(keys))
+        .catch((err) => {
+          console.error('approved results: an update failed; building again', err);
+          return this.rebuild();
+        }),
+    );
+  }
+
+  private async rebuild(): Promise<void> {
+    // Built aside and swapped in whole, so a read never sees half of it.
+    const fresh = new Columns(this.cols.capacity);
+    // In slices of the id order, so the heap holds one slice of row objects at a time.
+    let after = 0;
+    for (;;) {
+      const rows = (await Result.findAll({ where: { status: 'approved', id: { [Op.gt]: after } }, attributes: [...ATTRIBUTES], order: [['id', 'ASC']], limit: 20_000, raw: true })) as unknown as Row[];
+      for (const r of rows) this.append(fresh, r);
+      if (rows.length < 20_000) break;
+      after = rows[rows.length - 1].id;
+    }
+    const newest = new Newest().merged(new Set(), fresh, Array.from({ length: fresh.size }, (_, r) => r));
+    this.cols = fresh;
+    this.newestFirst = newest;
+  }
+
+  private async replaceCells(keys: readonly CellKey[]): Promise<void> {
+    if (!keys.length) return;
+    const rows: Row[] = [];
+    for (let i = 0; i < keys.length; i += 200) {
+      const some = keys.slice(i, i + 200);
+      rows.push(
+        ...((await Result.findAll({
+          where: { status: 'approved', [Op.or]: some.map((k) => ({ sharpnessMethodId: k.methodId, steelId: k.steelId, material: k.material, gritPhi: k.gritPhi })) },
+          attributes: [...ATTRIBUTES],
+          raw: true,
+        })) as unknown as Row[]),
+      );
+    }
+    const changed = new Set(keys.map((k) => this.cellOf(k)));
+    const ids = new Set(rows.map((r) => r.id));
+    const { cell, id } = this.cols.i;
+    const removed = new Set<number>();
+    this.cols.compact((row) => {
+      const keep = !changed.has(cell[row]) && !ids.has(id[row]);
+      if (!keep) removed.add(id[row]);
+      return keep;
+    });
+    const first = this.cols.size;
+    for (const r of rows) this.append(this.cols, r);
+    this.newestFirst = this.newestFirst.merged(removed, this.cols, Array.from({ length: rows.length }, (_, k) => first + k));
+  }
+
+  /**
+   * One page of the approved results, newest first (optionally of one steel or abrasive): their
+   * ids in order, and how many there are in all.
+   */
+  async newest(page: number, pageSize: number, only: { steelId?: number; abrasiveId?: number } = {}): Promise<{ ids: number[]; total: number }> {
+    await this.ready();
+    const list = this.newestFirst;
+    const start = (page - 1) * pageSize;
+    if (only.steelId === undefined && only.abrasiveId === undefined) {
+      return { ids: Array.from(list.id.subarray(Math.min(start, list.size), Math.min(start + pageSize, list.size))), total: list.size };
+    }
+    const ids: number[] = [];
+    let total = 0;
+    for (let k = 0; k < list.size; k++) {
+      if (only.steelId !== undefined && list.steel[k] !== only.steelId) continue;
+      if (only.abrasiveId !== undefined && list.abrasive[k] !== only.abrasiveId) continue;
+      if (total >= start && ids.length < pageSize) ids.push(list.id[k]);
+      total++;
+    }
+    return { ids, total };
+  }
+
+  private cellOf(k: CellKey): number {
+    const s = cellKeyString(k);
+    let no = this.cellNo.get(s);
+    if (no === undefined) {
+      no = this.cellKeys.length;
+      this.cellKeys.push({ methodId: k.methodId, steelId: k.steelId, material: k.material, gritPhi: k.gritPhi });
+      this.cellNo.set(s, no);
+    }
+    return no;
+  }
+
+  private materialOf(m: string): number {
+    let no = this.materialNo.get(m);
+    if (no === undefined) {
+      no = this.materials.length;
+      this.materials.push(m);
+      this.materialNo.set(m, no);
+    }
+    return no;
+  }
+
+  private append(c: Columns, r: Row): void {
+    c.grow(c.size + 1);
+    const at = c.size++;
+    c.i.id[at] = r.id;
+    c.i.method[at] = r.sharpnessMethodId;
+    c.i.steel[at] = r.steelId;
+    c.i.material[at] = this.materialOf(r.material);
+    c.i.gritPhi[at] = r.gritPhi;
+    c.i.half[at] = bandStartOf(r, 0.5) - 2 * r.gritPhi;
+    c.i.author[at] = r.authorId;
+    c.i.abrasive[at] = r.abrasiveId;
+    c.i.cell[at] = this.cellOf({ methodId: r.sharpnessMethodId, steelId: r.steelId, material: r.material, gritPhi: r.gritPhi });
+    c.f.gritUm[at] = r.gritUm;
+    c.f.medianG[at] = r.sharpnessMedianG;
+    c.f.retention[at] = r.retentionCuts ?? NaN;
+    c.f.hrc[at] = r.hrc;
+    c.f.angle[at] = r.perSideDeg;
+    c.f.created[at] = toMs(r.createdAt);
+  }
+
+  /** The ids of the accounts that are verified publishers (kept until an account changes). */
+  private publishers(): Promise<Set<number>> {
+    return this.publisherIds.share('publishers', async () => new Set((await User.findAll({ where: { role: 'publisher' }, attributes: ['id'], raw: true })).map((u) => u.id)));
+  }
+
+  /**
+   * The cells (figures as the comparison_cells table stores them) of the results that `filter`
+   * selects, grouped by `step`, computed by the same code as the stored cells.
+   */
+  async cells(filter: ResultFilter, step: 1 | 0.5): Promise<CellRecord[]> {
+    const publishers = filter.publishers ? await this.publishers() : null;
+    await this.ready();
+    const c = this.cols;
+    const { method, steel, material, gritPhi, half, author, abrasive, cell } = c.i;
+    const { gritUm, medianG, retention, hrc, angle, created } = c.f;
+    const materials = filter.materials ? new Set([...filter.materials].map((m) => this.materialNo.get(m) ?? -1)) : null;
+    const above = filter.gritPhiAbove ?? -Infinity;
+    const below = filter.gritPhiBelow ?? Infinity;
+    const hrcMin = filter.hrcMin ?? -Infinity;
+    const hrcMax = filter.hrcMax ?? Infinity;
+    const angleMin = filter.angleMin ?? -Infinity;
+    const angleMax = filter.angleMax ?? Infinity;
+    const from = filter.createdFrom ?? -Infinity;
+    const before = filter.createdBefore ?? Infinity;
+    // Rows by cell: a cell (whole φ, or each half band in it) number maps to its rows.
+    const groups = new Map<number, number[]>();
+    for (let r = 0; r < c.size; r++) {
+      if (method[r] !== filter.methodId) continue;
+      if (filter.steelIds && !filter.steelIds.has(steel[r])) continue;
+      if (materials && !materials.has(material[r])) continue;
+      if (!(gritPhi[r] > above && gritPhi[r] < below)) continue;
+      if (!(hrc[r] >= hrcMin && hrc[r] <= hrcMax)) continue;
+      if (!(angle[r] >= angleMin && angle[r] <= angleMax)) continue;
+      if (!(created[r] >= from && created[r] < before)) continue;
+      if (filter.abrasiveIds && !filter.abrasiveIds.has(abrasive[r])) continue;
+      if (publishers && !publishers.has(author[r])) continue;
+      const g = step === 1 ? cell[r] : 2 * cell[r] + half[r];
+      const list = groups.get(g);
+      if (list) list.push(r);
+      else groups.set(g, [r]);
+    }
+    const out: CellRecord[] = [];
+    for (const [g, rows] of groups) {
+      const key = this.cellKeys[step === 1 ? g : g >> 1];
+      const bandStart = step === 1 ? 2 * key.gritPhi : 2 * key.gritPhi + (g & 1);
+      const members = rows.map((r) => ({
+        authorId: author[r],
+        sharpnessMedianG: medianG[r],
+        retentionCuts: Number.isNaN(retention[r]) ? null : retention[r],
+        hrc: hrc[r],
+        perSideDeg: angle[r],
+        gritUm: gritUm[r],
+      }));
+      out.push({ methodId: key.methodId, steelId: key.steelId, material: key.material, bandWidth: step === 1 ? 2 : 1, bandStart, ...cellColumns(members) });
+    }
+    return out;
+  }
+}
+
+/** The process's read model of approved results. */
+export const approvedResults = new ApprovedResults();
+
+// The one place it follows writes: every commit that changed comparison cells, through the feed.
+follow(['cells'], (batch) => {
+  const changed = changedCells(batch);
+  approvedResults.apply(changed === 'all' ? { all: true } : { keys: changed });
+});
