@@ -59,3 +59,13 @@ export const STATUS_LABELS = {
   rejected: 'Declined',
   retracted: 'Withdrawn by author',
 } as const;
+
+/** A result revision's state, in words. */
+export const REVISION_STATUS_LABELS = {
+  applied: 'Applied',
+  pending: 'Awaiting review',
+  approved: 'Published',
+  returned: 'Changes asked',
+  rejected: 'Declined',
+  superseded: 'Replaced by a newer correction',
+} as const;

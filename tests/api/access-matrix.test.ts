@@ -158,6 +158,24 @@ const matrix: Row[] = [
     expect: moderators(200),
   },
   { route: 'GET /api/review-desk', expect: moderators(200) },
+  // Edit and resubmit, drafts, corrections (issue 17): only the author edits; a pending result is hidden from other members.
+  { route: 'POST /api/results/drafts', request: () => ({ body: goodResult() }), expect: signedIn(201) },
+  {
+    route: 'PUT /api/results/:id',
+    request: async (fx, caller) => ({ url: `/api/results/${await fx.ownPending(caller)}`, body: goodResult() }),
+    expect: signedIn(200),
+  },
+  {
+    route: 'PUT /api/results/:id/draft',
+    request: async (fx, caller) => ({ url: `/api/results/${await fx.ownDraft(caller)}/draft`, body: goodResult() }),
+    expect: signedIn(200),
+  },
+  { route: 'GET /api/results/:id/revisions', request: (fx) => ({ url: `/api/results/${fx.approvedResultId}/revisions` }), expect: everyone(200) },
+  {
+    route: 'POST /api/results/:id/revisions/:rev/review',
+    request: async (fx) => ({ url: `/api/results/${await fx.pendingCorrection()}/revisions/2/review`, body: { decision: 'approve' } }),
+    expect: moderators(200),
+  },
 
   // Reference pages
   { route: 'GET /api/steels', expect: everyone(200) },
@@ -318,6 +336,12 @@ interface Fixtures {
   approvedResultId: number;
   /** A new pending result by a member who is none of the callers. */
   pendingResult(): Promise<number>;
+  /** A pending result of the caller's own (or one by another member, for callers who cannot post). */
+  ownPending(caller: Caller): Promise<number>;
+  /** A draft of the caller's own (likewise). */
+  ownDraft(caller: Caller): Promise<number>;
+  /** A published result of a member who is none of the callers, with a correction (revision 2) waiting. */
+  pendingCorrection(): Promise<number>;
   /** A wheel of the caller's own (or id 1 for callers who cannot have one). */
   ownWheel(caller: Caller): Promise<number>;
   /** A new publisher application, pending, by a member who is none of the callers. */
@@ -447,6 +471,22 @@ beforeAll(async () => {
     async pendingResult() {
       const res = await poster.agent.post('/api/results').set('X-CSRF-Token', poster.csrf).send(goodResult()).expect(201);
       return res.body.id as number;
+    },
+    async ownPending(caller) {
+      if (caller === 'visitor' || caller === 'banned' || caller === 'revoked') return fixtures.pendingResult();
+      const s = sessions[caller];
+      return (await s.agent.post('/api/results').set('X-CSRF-Token', s.csrf).send(goodResult()).expect(201)).body.id as number;
+    },
+    async ownDraft(caller) {
+      const s = caller === 'visitor' || caller === 'banned' || caller === 'revoked' ? poster : sessions[caller];
+      return (await s.agent.post('/api/results/drafts').set('X-CSRF-Token', s.csrf).send(goodResult()).expect(201)).body.id as number;
+    },
+    async pendingCorrection() {
+      const id = await fixtures.pendingResult();
+      const admin = sessions.admin;
+      await admin.agent.post(`/api/results/${id}/review`).set('X-CSRF-Token', admin.csrf).send({ decision: 'approve' }).expect(200);
+      await poster.agent.put(`/api/results/${id}`).set('X-CSRF-Token', poster.csrf).send({ ...goodResult(), heatTreatment: 'Access matrix correction' }).expect(202);
+      return id;
     },
     async ownWheel(caller) {
       if (caller === 'visitor' || caller === 'banned' || caller === 'revoked') return 1;
