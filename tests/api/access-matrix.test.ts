@@ -24,7 +24,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import type { Express } from 'express';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
-import { Abrasive, Flag, Method as MethodModel, PageRevision, Photo, PublisherApplication, Steel, User } from '../../server/models';
+import { Abrasive, Flag, Method as MethodModel, PageRevision, Photo, PublisherApplication, Result, Steel, User } from '../../server/models';
 import { revisePage } from '../../server/commands/revise-page';
 import { unsubscribeQuery } from '../../server/mail/unsubscribe';
 
@@ -560,6 +560,28 @@ describe('what the matrix implies', () => {
       for (const caller of ['visitor', 'member', 'admin'] as const) await call(row, caller);
     }
     expect(await snapshot()).toEqual(before);
+  });
+
+  it('every write refuses query parameters it does not know, and stores nothing', async () => {
+    const writes = matrix.filter((r) => methodOf(r) !== 'GET' && !r.endsSession);
+    const accepted: string[] = [];
+    for (const row of writes) {
+      const spec = (await row.request?.(fixtures, 'admin')) ?? {};
+      const url = spec.url ?? pathOf(row);
+      const res = await sessions.admin.agent[methodOf(row).toLowerCase() as 'post'](`${url}${url.includes('?') ? '&' : '?'}unknownParam=1`)
+        .set('X-CSRF-Token', sessions.admin.csrf)
+        .send((spec.body ?? {}) as object);
+      const named = (res.body?.issues as { path: string }[] | undefined)?.some((i) => i.path === 'unknownParam');
+      if (res.status !== 400 || (!named && row.route !== 'POST /api/me/unsubscribe')) accepted.push(`${row.route}: ${res.status}`);
+    }
+    expect(accepted).toEqual([]);
+  });
+
+  it('POST /api/results?dryRun=1 is refused and stores no result', async () => {
+    const before = await Result.count();
+    const res = await sessions.member.agent.post('/api/results?dryRun=1').set('X-CSRF-Token', sessions.member.csrf).send(goodResult()).expect(400);
+    expect(res.body.issues).toEqual([{ path: 'dryRun', message: 'unknown field: not accepted here' }]);
+    expect(await Result.count()).toBe(before);
   });
 
   it('every write with a JSON body refuses fields it does not know (no mass assignment)', async () => {
