@@ -323,6 +323,15 @@ const matrix: Row[] = [
     expect: { ...signedIn(403), member: 404, publisher: 404 },
   },
 
+  // Admin user management (issue 17)
+  { route: 'GET /api/admin/users', request: () => ({ url: '/api/admin/users?q=a' }), expect: admins(200) },
+  {
+    route: 'PATCH /api/admin/users/:handle',
+    request: async (fx) => ({ url: `/api/admin/users/${await fx.freshMember()}`, body: { banned: true, reason: 'Access matrix.' } }),
+    expect: admins(200),
+    extraFieldsAllowed: 'role and banned are this route’s own fields; other unknown fields are refused (tests/api/admin-users.test.ts)',
+  },
+
   // Development helpers
   { route: 'GET /api/dev/mail', expect: admins(200) },
 
@@ -342,6 +351,8 @@ interface Fixtures {
   ownDraft(caller: Caller): Promise<number>;
   /** A published result of a member who is none of the callers, with a correction (revision 2) waiting. */
   pendingCorrection(): Promise<number>;
+  /** A new member account, none of the callers. */
+  freshMember(): Promise<string>;
   /** A wheel of the caller's own (or id 1 for callers who cannot have one). */
   ownWheel(caller: Caller): Promise<number>;
   /** A new publisher application, pending, by a member who is none of the callers. */
@@ -471,6 +482,11 @@ beforeAll(async () => {
     async pendingResult() {
       const res = await poster.agent.post('/api/results').set('X-CSRF-Token', poster.csrf).send(goodResult()).expect(201);
       return res.body.id as number;
+    },
+    async freshMember() {
+      const n = ++wikiCounter;
+      await server.ctx.db.write((transaction) => User.create({ handle: `matrix-member-${n}`, displayName: `Matrix member ${n}`, email: null, role: 'member', oauthSubject: `matrix-${n}`, bio: null }, { transaction }));
+      return `matrix-member-${n}`;
     },
     async ownPending(caller) {
       if (caller === 'visitor' || caller === 'banned' || caller === 'revoked') return fixtures.pendingResult();
