@@ -105,6 +105,12 @@ export interface ResultRevision {
   changes: ResultFieldChange[];
 }
 
+/** A correction of a published result, waiting on the review desk. */
+export interface DeskCorrection extends ResultRevision {
+  kind: 'result-revision';
+  result: Result;
+}
+
 /** What PUT /api/results/:id answers: the result as it now stands and the revision it made. */
 export interface ResultEdit {
   outcome: 'updated' | 'proposed';
