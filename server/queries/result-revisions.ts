@@ -1,4 +1,4 @@
-import { atLeast, type Actor } from '@shared/permissions';
+import { atLeast, can, type Actor } from '@shared/permissions';
 import { Result, ResultRevision, User } from '../models';
 import { presentResult, presentResultRevision } from '../presenters/result';
 import { findResult, withTrail } from './results';
@@ -38,6 +38,13 @@ export async function pendingResultRevisions(viewer: Actor) {
   return revisions.flatMap((revision) => {
     const result = byId.get(revision.resultId);
     if (!result) return [];
-    return [{ kind: 'result-revision' as const, ...presentResultRevision(revision, { number: null, input: result.input }), result: presentResult(result, viewer) }];
+    return [
+      {
+        kind: 'result-revision' as const,
+        ...presentResultRevision(revision, { number: null, input: result.input }),
+        result: presentResult(result, viewer),
+        can: { review: can(viewer, 'review:result', { authorId: revision.authorId, status: revision.status }) },
+      },
+    ];
   });
 }

@@ -109,6 +109,7 @@ export interface ResultRevision {
 export interface DeskCorrection extends ResultRevision {
   kind: 'result-revision';
   result: Result;
+  can: { review: boolean };
 }
 
 /** What PUT /api/results/:id answers: the result as it now stands and the revision it made. */

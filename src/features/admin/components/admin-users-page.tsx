@@ -129,7 +129,7 @@ function Accounts() {
           </p>
           <ul className="divide-y divide-rule rounded-md border border-rule bg-panel">
             {users.data.items.map((u) => (
-              <Account key={`${u.handle}:${u.role}:${u.banned}`} user={u} self={u.handle === me?.handle} />
+              <Account key={u.handle} user={u} self={u.handle === me?.handle} />
             ))}
           </ul>
         </>

@@ -28,7 +28,7 @@ export function DeskCorrections({ items, onDecided }: { items: DeskCorrection[];
               Version {c.number} by @{c.author?.handle ?? 'unknown'}, {formatDateTime(c.createdAt)}. The published version stays in the comparison until you approve.
             </p>
             <ResultChanges changes={c.changes} caption="Changes against the published version" />
-            {c.result.can.review ? (
+            {c.can.review ? (
               <ReviewDecisionForm
                 key={`${c.result.id}:${c.number}`}
                 result={c.result}
