@@ -27,16 +27,8 @@ interface Account {
   role: string;
 }
 
-async function signInAs(handle: string, returnTo: string) {
-  await page.waitForLoadState('networkidle');
-  await page.goto(`${base}/auth/signin?as=${encodeURIComponent(handle)}&returnTo=${encodeURIComponent(returnTo)}`);
-  await page.waitForURL(new RegExp(`${returnTo.replace(/[?]/g, '\\?')}$`));
-}
-
-async function signOut() {
-  await page.getByRole('button', { name: 'Sign out' }).click();
-  await page.getByRole('banner').getByRole('link', { name: 'Sign in' }).waitFor();
-}
+const signInAs = (handle: string, returnTo: string) => app.signInAs(handle, returnTo);
+const signOut = () => app.signOut();
 
 /** Full-page screenshots at the desktop and phone sizes, when asked for. */
 async function screenshot(name: string) {

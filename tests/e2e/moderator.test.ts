@@ -34,16 +34,8 @@ interface Account {
   displayName?: string;
 }
 
-async function signInAs(handle: string, returnTo: string) {
-  await page.waitForLoadState('networkidle');
-  await page.goto(`${base}/auth/signin?as=${encodeURIComponent(handle)}&returnTo=${encodeURIComponent(returnTo)}`);
-  await page.waitForURL(new RegExp(`${returnTo.replace(/[?]/g, '\\?')}$`));
-}
-
-async function signOut() {
-  await page.getByRole('button', { name: 'Sign out' }).click();
-  await page.getByRole('banner').getByRole('link', { name: 'Sign in' }).waitFor();
-}
+const signInAs = (handle: string, returnTo: string) => app.signInAs(handle, returnTo);
+const signOut = () => app.signOut();
 
 /** Makes a token on one's own page and reads it off the screen. */
 async function makeToken(name: string): Promise<string> {
