@@ -327,9 +327,12 @@ export function csvCell(value: CsvValue): string {
   return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }
 
-/** Rows → CSV text with CRLF line ends (RFC 4180), every text cell neutralised. */
-export function toCsv(rows: CsvValue[][]): string {
-  return rows.map((r) => r.map(csvCell).join(',')).join('\r\n') + '\r\n';
+/**
+ * Rows → CSV text, every text cell neutralised; CRLF line ends by default (RFC 4180), LF for a
+ * file people open and extend in a text editor (the import template).
+ */
+export function toCsv(rows: CsvValue[][], eol: '\r\n' | '\n' = '\r\n'): string {
+  return rows.map((r) => r.map(csvCell).join(',')).join(eol) + eol;
 }
 
 /** The downloadable error report of an import: one line per problem. */

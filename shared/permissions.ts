@@ -17,6 +17,8 @@ export type Action =
   | 'review:result'
   | 'read:review-desk'
   | 'retract:result'
+  | 'edit:result'
+  | 'manage:users'
   | 'read:dev-mail'
   | 'edit:page'
   | 'publish:page'
@@ -78,6 +80,10 @@ export function can(actor: Actor | null, action: Action, subject?: ResultSubject
       return true;
     case 'retract:result':
       return subject?.authorId === actor.id && subject.status === 'approved';
+    case 'edit:result':
+      // The author edits a result not yet decided, or one sent back; a published one is corrected
+      // through a revision a moderator approves. Rejected and withdrawn results stay as they are.
+      return subject?.authorId === actor.id && ['draft', 'pending', 'returned', 'approved'].includes(subject.status ?? '');
     case 'review:result':
       return atLeast(actor.role, 'moderator') && subject?.authorId !== actor.id;
     case 'read:review-desk':
@@ -101,6 +107,7 @@ export function can(actor: Actor | null, action: Action, subject?: ResultSubject
       return actor.role === 'member';
     case 'decide:publisher-application':
     case 'manage:site-settings':
+    case 'manage:users':
       return actor.role === 'admin';
     case 'import:results':
     case 'manage:tokens':

@@ -59,3 +59,31 @@ export const STATUS_LABELS = {
   rejected: 'Declined',
   retracted: 'Withdrawn by author',
 } as const;
+
+/** A result revision's state, in words. */
+export const REVISION_STATUS_LABELS = {
+  applied: 'Applied',
+  pending: 'Awaiting review',
+  approved: 'Published',
+  returned: 'Changes asked',
+  rejected: 'Declined',
+  superseded: 'Replaced by a newer correction',
+} as const;
+
+/** Audit-log actions in words (server/commands record them as codes). */
+export const AUDIT_ACTION_LABELS: Record<string, string> = {
+  'result.approve': 'approved result',
+  'result.return': 'returned result to its author',
+  'result.reject': 'rejected result',
+  'result-revision.approve': 'approved a correction of result',
+  'result-revision.return': 'returned a correction of result',
+  'result-revision.reject': 'rejected a correction of result',
+  'flag.uphold': 'upheld flag',
+  'flag.dismiss': 'dismissed flag',
+  'publisher-application.approve': 'approved the publisher application',
+  'publisher-application.decline': 'declined the publisher application',
+  'site-settings.update': 'changed a site setting',
+  'user.role': 'changed the role of',
+  'user.ban': 'banned',
+  'user.unban': 'lifted the ban on',
+};

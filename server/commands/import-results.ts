@@ -10,6 +10,7 @@ import type { AppContext } from '../context';
 import { badRequest, forbidden, HttpError } from '../errors';
 import { Abrasive, ImportBatch, ImportBatchResult, Method, Result, ResultEvent, Steel } from '../models';
 import { loadPageLookup } from '../queries/page-lookup';
+import { nearestName } from '@shared/nearest';
 import { siteSettings } from '../queries/site-settings';
 import { resultRow, type ResultReferences } from './submit-result';
 import { insertRows } from '../db/insert-rows';
@@ -64,7 +65,8 @@ export interface CheckedImport {
  * single post, collecting every problem by spreadsheet row (header = row 1) and column.
  */
 export async function checkImport(bytes: Buffer): Promise<CheckedImport> {
-  const text = decodeCsv(bytes);
+  // Any line ending (LF, CRLF, CR, or a mix of them, as editors leave when rows are added): one kind for the parser.
+  const text = decodeCsv(bytes).replace(/\r\n?/g, '\n');
   const parsed = Papa.parse<string[]>(text, { delimiter: delimiterOf(text), skipEmptyLines: false });
   const records = parsed.data;
   if (!records.length || records[0].every((c) => !c.trim())) throw fileError('The file has no header row.');
@@ -92,6 +94,7 @@ export async function checkImport(bytes: Buffer): Promise<CheckedImport> {
   const steelBySlug = new Map(steels.map((s) => [s.slug, s]));
   const abrasiveBySlug = new Map(abrasives.map((a) => [a.slug, a]));
   const methodBySlug = new Map(methods.map((m) => [m.slug, m]));
+  const known = { steel: [...steelBySlug.keys()], abrasive: [...abrasiveBySlug.keys()], method: [...methodBySlug.keys()] };
   const headerWidth = records[0].length;
   const valid: ValidRow[] = [];
 
@@ -106,12 +109,17 @@ export async function checkImport(bytes: Buffer): Promise<CheckedImport> {
       if (i !== undefined) byColumn[column] = cells[i] ?? '';
     }
     const mapped = rowToResultInput(byColumn, lookup);
-    for (const issue of mapped.issues) rowErrors.push({ row, ...issue });
-    if (!rowErrors.length) {
-      const checked = resultInputSchema.safeParse(mapped.input);
-      if (!checked.success) {
-        for (const issue of checked.error.issues) rowErrors.push({ row, column: columnOfPath(issue.path), message: issue.message });
-      } else {
+    for (const issue of mapped.issues) rowErrors.push({ row, column: issue.column, message: withSuggestion(issue, byColumn, known) });
+    // Every problem of the row at once: the schema's too, except on columns already reported.
+    const checked = resultInputSchema.safeParse(mapped.input);
+    if (!checked.success) {
+      const reported = new Set(rowErrors.map((e) => e.column));
+      for (const issue of checked.error.issues) {
+        const column = columnOfPath(issue.path);
+        if (!reported.has(column) && !(mapped.issues.length && issue.code === 'invalid_type' && issue.input === undefined)) rowErrors.push({ row, column, message: issue.message });
+      }
+    }
+    if (!rowErrors.length && checked.success) {
         const input = checked.data;
         const refs: ResultReferences = {
           steel: steelBySlug.get(input.steel)!,
@@ -141,13 +149,23 @@ export async function checkImport(bytes: Buffer): Promise<CheckedImport> {
           const column = err.field ? columnOfPath(err.field.split('.')) : input.grit ? 'grit' : 'abrasive';
           rowErrors.push({ row, column, message: err.message });
         }
-      }
     }
     errors.push(...rowErrors);
   }
   report.valid = valid.length;
   errors.sort((a, b) => a.row - b.row);
   return { report, valid };
+}
+
+const SUGGESTED: Partial<Record<string, 'steel' | 'abrasive' | 'method'>> = { steel: 'steel', abrasive: 'abrasive', sharpness_method: 'method', retention_method: 'method' };
+
+/** An unknown page's message, with the nearest slug when one is a typo away ("did you mean"). */
+function withSuggestion(issue: { column: string; message: string }, cells: Partial<Record<ImportColumn, string>>, known: Record<'steel' | 'abrasive' | 'method', string[]>): string {
+  const kind = SUGGESTED[issue.column];
+  const typed = (cells[issue.column as ImportColumn] ?? '').trim();
+  if (!kind || !typed || !/^no .* page/.test(issue.message)) return issue.message;
+  const nearest = nearestName(typed, known[kind]);
+  return nearest ? `${issue.message}; did you mean "${nearest}"?` : issue.message;
 }
 
 /** A refused import: 400 with the dry run's report, so the client shows the same list. */

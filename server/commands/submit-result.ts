@@ -22,7 +22,7 @@ function pageRef<T extends typeof Steel | typeof Abrasive | typeof Method>(model
 }
 
 /** Looks up the pages a result refers to by slug; every unknown slug is a field issue. */
-async function resolveReferences(input: ResultInput): Promise<ResultReferences> {
+export async function resolveReferences(input: ResultInput): Promise<ResultReferences> {
   const [steel, abrasive, sharpnessMethod, retentionMethod] = await Promise.all([
     pageRef(Steel, input.steel),
     pageRef(Abrasive, input.abrasive),

@@ -13,6 +13,7 @@ import * as m0007 from './migrations/0007-result-page-indexes';
 import * as m0008 from './migrations/0008-result-members-index';
 import * as m0009 from './migrations/0009-changes';
 import { ChangeFeed } from '../changes/feed';
+import * as m0010 from './migrations/0010-result-revisions';
 
 /** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
 const migrations = [
@@ -24,6 +25,7 @@ const migrations = [
   { name: '0007-result-page-indexes', module: m0007 },
   { name: '0008-result-members-index', module: m0008 },
   { name: '0009-changes', module: m0009 },
+  { name: '0010-result-revisions', module: m0010 },
 ];
 
 export interface DatabaseOptions {

@@ -19,7 +19,8 @@ const LAST_USED_RESOLUTION_MS = 60_000;
 /**
  * `Authorization: Bearer <token>` authenticates the request as the token's publisher, with the
  * same rules as their session, instead of any session cookie. An unknown or revoked token is
- * refused with 401; a suspended account, or one that is no longer a publisher, with 403.
+ * refused with 401, as is any token of a banned account (a ban ends its tokens); an account that
+ * is no longer a publisher gets 403.
  * Such requests need no CSRF token: a browser never attaches this header by itself.
  */
 export function bearerToken(ctx: AppContext): RequestHandler {
@@ -39,7 +40,7 @@ export function bearerToken(ctx: AppContext): RequestHandler {
     if (!token || token.revokedAt) throw unauthorizedToken('This API token is unknown or was revoked.');
     const user = await User.findByPk(token.userId);
     if (!user) throw unauthorizedToken('This API token is unknown or was revoked.');
-    if (user.banned) throw forbidden('This account is suspended.');
+    if (user.banned) throw unauthorizedToken('This account is suspended; its API tokens no longer work.');
     if (!atLeast(user.role, 'publisher')) throw forbidden('API tokens work for publishers only.');
     req.user = user;
     req.authenticatedBy = 'token';

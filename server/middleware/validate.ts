@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
+import { emptyQuerySchema } from '@shared/schemas/common';
 import { badRequest, type FieldIssue } from '../errors';
 
 declare module 'express-serve-static-core' {
@@ -21,15 +22,19 @@ export function fieldIssues(error: z.ZodError, part: 'body' | 'query' | 'params'
   );
 }
 
+const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
 /**
  * Validates the request's body, query and params with the given zod schemas; a failure is a
- * 400 naming every bad field. Handlers read the parsed values from `req.valid`.
+ * 400 naming every bad field. Handlers read the parsed values from `req.valid`. A write whose
+ * route declares no query takes none: `POST /api/results?dryRun=1` is refused whole (400,
+ * nothing stored) rather than stored with the parameter ignored.
  */
 export function validate(schemas: { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType }): RequestHandler {
   return (req, _res, next) => {
     req.valid ??= {};
     for (const part of ['params', 'query', 'body'] as const) {
-      const schema = schemas[part];
+      const schema = part === 'query' && !schemas.query && !READS.has(req.method) && !req.valid.query ? emptyQuerySchema : schemas[part];
       if (!schema) continue;
       const parsed = schema.safeParse(req[part] ?? (part === 'body' ? undefined : {}));
       if (!parsed.success) {

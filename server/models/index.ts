@@ -1,7 +1,7 @@
 import type { Model, ModelStatic, Sequelize } from 'sequelize';
 import { User } from './user';
 import { Abrasive, Method, PageRevision, Steel } from './reference-pages';
-import { ComparisonCell, Result, ResultEvent } from './result';
+import { ComparisonCell, Result, ResultEvent, ResultRevision } from './result';
 import { PageEvent } from './page-event';
 import { ChangeRow } from '../changes/change-row';
 import { pageRowsOf, pagesOf, recordWritesOf, resultsOf, resultTrailOf, rowsOf, settingsOf } from '../changes/model-writes';
@@ -10,7 +10,7 @@ import { ApiToken, AuditEntry, Flag, Follow, ImportBatch, ImportBatchResult, Not
 
 /** Initialises every model on `sequelize` and declares their associations. */
 export function initModels(sequelize: Sequelize) {
-  for (const m of [User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement]) m.initModel(sequelize);
+  for (const m of [User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ResultRevision, ComparisonCell, Wheel, WheelMeasurement]) m.initModel(sequelize);
   Result.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   Result.belongsTo(Steel, { as: 'steel', foreignKey: 'steelId' });
   Result.belongsTo(Abrasive, { as: 'abrasive', foreignKey: 'abrasiveId' });
@@ -18,6 +18,10 @@ export function initModels(sequelize: Sequelize) {
   Result.belongsTo(Method, { as: 'retentionMethod', foreignKey: 'retentionMethodId' });
   Result.hasMany(ResultEvent, { as: 'events', foreignKey: 'resultId' });
   ResultEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
+  Result.hasMany(ResultRevision, { as: 'revisions', foreignKey: 'resultId' });
+  ResultRevision.belongsTo(Result, { as: 'result', foreignKey: 'resultId' });
+  ResultRevision.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  ResultRevision.belongsTo(User, { as: 'reviewer', foreignKey: 'reviewedById' });
   PageRevision.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   PageRevision.belongsTo(User, { as: 'reviewer', foreignKey: 'reviewedById' });
   PageEvent.initModel(sequelize);
@@ -37,7 +41,7 @@ export function initModels(sequelize: Sequelize) {
   for (const [model, describe] of recorded) recordWritesOf(model, describe);
 }
 
-export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement };
+export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ResultRevision, ComparisonCell, Wheel, WheelMeasurement };
 export { PublisherApplication, ApiToken, ImportBatch, ImportBatchResult, Photo, Flag, AuditEntry, Follow, NotificationSetting, SiteSetting };
 export { PageEvent };
 

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
-import type { ResultInput, ResultStatus } from '@shared/schemas/result';
+import type { ResultInput, ResultRevisionStatus, ResultStatus } from '@shared/schemas/result';
 import type { User } from './user';
 import type { Abrasive, Method, Steel } from './reference-pages';
 
@@ -93,6 +93,46 @@ export class ResultEvent extends Model<InferAttributes<ResultEvent>, InferCreati
         createdAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'result_events', updatedAt: false },
+    );
+  }
+}
+
+/**
+ * One version of a result's input, numbered per result (migration 0010). Applied at once to a
+ * result not yet published; for a published one, `pending` until a moderator decides.
+ */
+export class ResultRevision extends Model<InferAttributes<ResultRevision>, InferCreationAttributes<ResultRevision>> {
+  declare id: CreationOptional<number>;
+  declare resultId: number;
+  declare number: number;
+  declare authorId: number;
+  declare input: ResultInput;
+  declare status: ResultRevisionStatus;
+  declare reviewedById: number | null;
+  declare note: string | null;
+  declare reviewedAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare author?: NonAttribute<User>;
+  declare reviewer?: NonAttribute<User>;
+  declare result?: NonAttribute<Result>;
+
+  static initModel(sequelize: Sequelize) {
+    ResultRevision.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        resultId: { type: DataTypes.INTEGER, allowNull: false },
+        number: { type: DataTypes.INTEGER, allowNull: false },
+        authorId: { type: DataTypes.INTEGER, allowNull: false },
+        input: { type: DataTypes.JSON, allowNull: false },
+        status: { type: DataTypes.STRING(20), allowNull: false },
+        reviewedById: { type: DataTypes.INTEGER, allowNull: true },
+        note: { type: DataTypes.TEXT, allowNull: true },
+        reviewedAt: { type: DataTypes.DATE, allowNull: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'result_revisions' },
     );
   }
 }

@@ -1,7 +1,9 @@
 import { atLeast, can, type Actor } from '@shared/permissions';
 import { bandOfPhi } from '@shared/derive-result';
-import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
-import type { Result } from '../models';
+import { ABRASIVE_MATERIALS, REVISION_STATUS_LABELS } from '@shared/vocabulary';
+import { resultChanges } from '@shared/result-diff';
+import type { ResultInput } from '@shared/schemas/result';
+import type { Result, ResultRevision } from '../models';
 import { presentAccount } from './user';
 
 const round = (x: number, digits = 2) => Math.round(x * 10 ** digits) / 10 ** digits;
@@ -14,7 +16,9 @@ export function presentResult(result: Result, viewer: Actor | null) {
   const input = result.input;
   const insider = !!viewer && (viewer.id === result.authorId || atLeast(viewer.role, 'moderator'));
   const events = [...(result.events ?? [])].sort((a, b) => a.id - b.id);
-  const decision = [...events].reverse().find((e) => e.fromStatus === 'pending' && e.toStatus !== 'pending');
+  // The last decision, unless the result went back on the desk after it (edited and resubmitted).
+  const lastDecision = events.findLastIndex((e) => e.fromStatus === 'pending' && e.toStatus !== 'pending');
+  const decision = lastDecision >= 0 && !events.slice(lastDecision + 1).some((e) => e.toStatus === 'pending') ? events[lastDecision] : undefined;
   return {
     id: result.id,
     status: result.status,
@@ -57,7 +61,29 @@ export function presentResult(result: Result, viewer: Actor | null) {
     can: {
       review: can(viewer, 'review:result', { authorId: result.authorId, status: result.status }) && result.status === 'pending',
       retract: can(viewer, 'retract:result', { authorId: result.authorId, status: result.status }),
+      edit: can(viewer, 'edit:result', { authorId: result.authorId, status: result.status }),
     },
   };
 }
 export type PresentedResult = ReturnType<typeof presentResult>;
+
+/**
+ * One revision of a result: its number and state, who wrote and who decided it, what was
+ * entered, and the changes against the version it replaces (`replaces`, null for the first).
+ */
+export function presentResultRevision(revision: ResultRevision, replaces: ResultRevision | { number: null; input: ResultInput } | null) {
+  return {
+    number: revision.number,
+    status: revision.status,
+    statusLabel: REVISION_STATUS_LABELS[revision.status],
+    createdAt: revision.createdAt,
+    author: revision.author ? { handle: revision.author.handle } : null,
+    reviewedBy: revision.reviewer ? { handle: revision.reviewer.handle } : null,
+    reviewedAt: revision.reviewedAt,
+    note: revision.note,
+    input: revision.input,
+    replaces: replaces?.number ?? null,
+    changes: replaces ? resultChanges(replaces.input, revision.input) : [],
+  };
+}
+export type PresentedResultRevision = ReturnType<typeof presentResultRevision>;

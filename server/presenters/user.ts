@@ -4,3 +4,8 @@ import type { User } from '../models';
 export function presentAccount(user: User) {
   return { handle: user.handle, displayName: user.displayName, role: user.role };
 }
+
+/** An account as the admins' screen shows it: its public face, its standing and when it joined. */
+export function presentManagedAccount(user: User, counts: { published: number; returned: number; pending: number }) {
+  return { ...presentAccount(user), banned: user.banned, createdAt: user.createdAt, ...counts };
+}

@@ -30,6 +30,14 @@ export const edgeAngleSchema = z.union([
 export const RESULT_STATUSES = ['draft', 'pending', 'approved', 'returned', 'rejected', 'retracted'] as const;
 export type ResultStatus = (typeof RESULT_STATUSES)[number];
 
+/**
+ * A result revision's state: `applied` at once (an edit before publication), or, for a
+ * correction of a published result, `pending` until a moderator approves, returns or rejects
+ * it; a newer correction `supersedes` one still waiting.
+ */
+export const RESULT_REVISION_STATUSES = ['applied', 'pending', 'approved', 'returned', 'rejected', 'superseded'] as const;
+export type ResultRevisionStatus = (typeof RESULT_REVISION_STATUSES)[number];
+
 /** What a member posts as one measured edge (POST /api/results and the new-result form). */
 export const resultInputSchema = z
   .object({

@@ -41,6 +41,7 @@ export const paths = {
   },
   newResult: { path: '/results/new', getHref: () => '/results/new' },
   result: { path: '/results/:id', getHref: (id: number | string) => `/results/${encodeURIComponent(String(id))}` },
+  editResult: { path: '/results/:id/edit', getHref: (id: number | string) => `/results/${encodeURIComponent(String(id))}/edit` },
   myResults: { path: '/me', getHref: () => '/me' },
   reviewDesk: {
     path: '/review',
@@ -78,6 +79,7 @@ export const paths = {
   unsubscribe: { path: '/unsubscribe', getHref: () => '/unsubscribe' },
   audit: { path: '/audit', getHref: () => '/audit' },
   publisherApplications: { path: '/admin/publishers', getHref: () => '/admin/publishers' },
+  adminUsers: { path: '/admin/members', getHref: (q?: string) => withQuery('/admin/members', { q }) },
   devMail: { path: '/dev/mail', getHref: () => '/dev/mail' },
   /** Server routes: reached by a full-page navigation, never by the client router. */
   auth: {

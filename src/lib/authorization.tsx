@@ -10,7 +10,7 @@ import { actorOf, useSession } from '@/lib/auth';
  * Shows its children to a signed-in person (holding `action`, if given); otherwise explains
  * why the page is closed and offers to sign in.
  */
-export function SignInRequired({ children, action, what }: { children: ReactNode; action?: Action; what: string }) {
+export function SignInRequired({ children, action, what, who = 'moderators' }: { children: ReactNode; action?: Action; what: string; who?: string }) {
   const session = useSession();
   const location = useLocation();
   if (session.isPending) return <Loading label="Checking who is signed in…" />;
@@ -30,11 +30,8 @@ export function SignInRequired({ children, action, what }: { children: ReactNode
   if (action && !can(actorOf(user), action)) {
     return (
       <div role="alert" className="rounded-md border border-rule bg-panel px-5 py-6">
-        <p className="font-serif text-lg">This page is for moderators.</p>
-        <p className="mt-1 text-muted">
-          You are signed in as {user.displayName} ({user.role}). Moderators keep the data trustworthy by reviewing new
-          results here.
-        </p>
+        <p className="font-serif text-lg">This page is for {who}.</p>
+        <p className="mt-1 text-muted">You are signed in as {user.displayName} ({user.role}).</p>
       </div>
     );
   }

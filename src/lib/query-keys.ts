@@ -12,7 +12,9 @@ export const queryKeys = {
     all: ['results'] as const,
     list: (filters: ResultFilters & { status?: string; author?: string }) => ['results', 'list', filters] as const,
     detail: (id: number) => ['results', 'detail', id] as const,
+    revisions: (id: number) => ['results', 'revisions', id] as const,
   },
+  adminUsers: (q: string) => ['admin-users', q] as const,
   reviewDesk: ['review-desk'] as const,
   wheels: ['wheels'] as const,
   /** Publishing and curation (issue 6). */

@@ -80,7 +80,43 @@ export interface Result {
   /** The last decision; `decision` may be the verb sent or the state it led to ("approved"). */
   review: { decision: string; note: string | null; at: string; by: { handle: string } | null } | null;
   trail: TrailEntry[];
-  can: { review: boolean; retract: boolean };
+  can: { review: boolean; retract: boolean; edit: boolean };
+}
+
+/** One changed field of a result revision against the version it replaces. */
+export interface ResultFieldChange {
+  path: string;
+  label: string;
+  before: string | null;
+  after: string | null;
+}
+
+/** One revision of a result (GET /api/results/:id/revisions). */
+export interface ResultRevision {
+  number: number;
+  status: 'applied' | 'pending' | 'approved' | 'returned' | 'rejected' | 'superseded';
+  statusLabel: string;
+  createdAt: string;
+  author: { handle: string } | null;
+  reviewedBy: { handle: string } | null;
+  reviewedAt: string | null;
+  note: string | null;
+  replaces: number | null;
+  changes: ResultFieldChange[];
+}
+
+/** A correction of a published result, waiting on the review desk. */
+export interface DeskCorrection extends ResultRevision {
+  kind: 'result-revision';
+  result: Result;
+  can: { review: boolean };
+}
+
+/** What PUT /api/results/:id answers: the result as it now stands and the revision it made. */
+export interface ResultEdit {
+  outcome: 'updated' | 'proposed';
+  result: Result;
+  revision: ResultRevision;
 }
 
 export interface Page<T> {

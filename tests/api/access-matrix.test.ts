@@ -24,7 +24,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import type { Express } from 'express';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
-import { Abrasive, Flag, Method as MethodModel, PageRevision, Photo, PublisherApplication, Steel, User } from '../../server/models';
+import { Abrasive, Flag, Method as MethodModel, PageRevision, Photo, PublisherApplication, Result, Steel, User } from '../../server/models';
 import { revisePage } from '../../server/commands/revise-page';
 import { unsubscribeQuery } from '../../server/mail/unsubscribe';
 
@@ -158,6 +158,24 @@ const matrix: Row[] = [
     expect: moderators(200),
   },
   { route: 'GET /api/review-desk', expect: moderators(200) },
+  // Edit and resubmit, drafts, corrections (issue 17): only the author edits; a pending result is hidden from other members.
+  { route: 'POST /api/results/drafts', request: () => ({ body: goodResult() }), expect: signedIn(201) },
+  {
+    route: 'PUT /api/results/:id',
+    request: async (fx, caller) => ({ url: `/api/results/${await fx.ownPending(caller)}`, body: goodResult() }),
+    expect: signedIn(200),
+  },
+  {
+    route: 'PUT /api/results/:id/draft',
+    request: async (fx, caller) => ({ url: `/api/results/${await fx.ownDraft(caller)}/draft`, body: goodResult() }),
+    expect: signedIn(200),
+  },
+  { route: 'GET /api/results/:id/revisions', request: (fx) => ({ url: `/api/results/${fx.approvedResultId}/revisions` }), expect: everyone(200) },
+  {
+    route: 'POST /api/results/:id/revisions/:rev/review',
+    request: async (fx) => ({ url: `/api/results/${await fx.pendingCorrection()}/revisions/2/review`, body: { decision: 'approve' } }),
+    expect: moderators(200),
+  },
 
   // Reference pages
   { route: 'GET /api/steels', expect: everyone(200) },
@@ -305,6 +323,15 @@ const matrix: Row[] = [
     expect: { ...signedIn(403), member: 404, publisher: 404 },
   },
 
+  // Admin user management (issue 17)
+  { route: 'GET /api/admin/users', request: () => ({ url: '/api/admin/users?q=a' }), expect: admins(200) },
+  {
+    route: 'PATCH /api/admin/users/:handle',
+    request: async (fx) => ({ url: `/api/admin/users/${await fx.freshMember()}`, body: { banned: true, reason: 'Access matrix.' } }),
+    expect: admins(200),
+    extraFieldsAllowed: 'role and banned are this route’s own fields; other unknown fields are refused (tests/api/admin-users.test.ts)',
+  },
+
   // Development helpers
   { route: 'GET /api/dev/mail', expect: admins(200) },
 
@@ -318,6 +345,14 @@ interface Fixtures {
   approvedResultId: number;
   /** A new pending result by a member who is none of the callers. */
   pendingResult(): Promise<number>;
+  /** A pending result of the caller's own (or one by another member, for callers who cannot post). */
+  ownPending(caller: Caller): Promise<number>;
+  /** A draft of the caller's own (likewise). */
+  ownDraft(caller: Caller): Promise<number>;
+  /** A published result of a member who is none of the callers, with a correction (revision 2) waiting. */
+  pendingCorrection(): Promise<number>;
+  /** A new member account, none of the callers. */
+  freshMember(): Promise<string>;
   /** A wheel of the caller's own (or id 1 for callers who cannot have one). */
   ownWheel(caller: Caller): Promise<number>;
   /** A new publisher application, pending, by a member who is none of the callers. */
@@ -448,6 +483,27 @@ beforeAll(async () => {
       const res = await poster.agent.post('/api/results').set('X-CSRF-Token', poster.csrf).send(goodResult()).expect(201);
       return res.body.id as number;
     },
+    async freshMember() {
+      const n = ++wikiCounter;
+      await server.ctx.db.write((transaction) => User.create({ handle: `matrix-member-${n}`, displayName: `Matrix member ${n}`, email: null, role: 'member', oauthSubject: `matrix-${n}`, bio: null }, { transaction }));
+      return `matrix-member-${n}`;
+    },
+    async ownPending(caller) {
+      if (caller === 'visitor' || caller === 'banned' || caller === 'revoked') return fixtures.pendingResult();
+      const s = sessions[caller];
+      return (await s.agent.post('/api/results').set('X-CSRF-Token', s.csrf).send(goodResult()).expect(201)).body.id as number;
+    },
+    async ownDraft(caller) {
+      const s = caller === 'visitor' || caller === 'banned' || caller === 'revoked' ? poster : sessions[caller];
+      return (await s.agent.post('/api/results/drafts').set('X-CSRF-Token', s.csrf).send(goodResult()).expect(201)).body.id as number;
+    },
+    async pendingCorrection() {
+      const id = await fixtures.pendingResult();
+      const admin = sessions.admin;
+      await admin.agent.post(`/api/results/${id}/review`).set('X-CSRF-Token', admin.csrf).send({ decision: 'approve' }).expect(200);
+      await poster.agent.put(`/api/results/${id}`).set('X-CSRF-Token', poster.csrf).send({ ...goodResult(), heatTreatment: 'Access matrix correction' }).expect(202);
+      return id;
+    },
     async ownWheel(caller) {
       if (caller === 'visitor' || caller === 'banned' || caller === 'revoked') return 1;
       if (!wheels.has(caller)) {
@@ -520,6 +576,28 @@ describe('what the matrix implies', () => {
       for (const caller of ['visitor', 'member', 'admin'] as const) await call(row, caller);
     }
     expect(await snapshot()).toEqual(before);
+  });
+
+  it('every write refuses query parameters it does not know, and stores nothing', async () => {
+    const writes = matrix.filter((r) => methodOf(r) !== 'GET' && !r.endsSession);
+    const accepted: string[] = [];
+    for (const row of writes) {
+      const spec = (await row.request?.(fixtures, 'admin')) ?? {};
+      const url = spec.url ?? pathOf(row);
+      const res = await sessions.admin.agent[methodOf(row).toLowerCase() as 'post'](`${url}${url.includes('?') ? '&' : '?'}unknownParam=1`)
+        .set('X-CSRF-Token', sessions.admin.csrf)
+        .send((spec.body ?? {}) as object);
+      const named = (res.body?.issues as { path: string }[] | undefined)?.some((i) => i.path === 'unknownParam');
+      if (res.status !== 400 || (!named && row.route !== 'POST /api/me/unsubscribe')) accepted.push(`${row.route}: ${res.status}`);
+    }
+    expect(accepted).toEqual([]);
+  });
+
+  it('POST /api/results?dryRun=1 is refused and stores no result', async () => {
+    const before = await Result.count();
+    const res = await sessions.member.agent.post('/api/results?dryRun=1').set('X-CSRF-Token', sessions.member.csrf).send(goodResult()).expect(400);
+    expect(res.body.issues).toEqual([{ path: 'dryRun', message: 'unknown field: not accepted here' }]);
+    expect(await Result.count()).toBe(before);
   });
 
   it('every write with a JSON body refuses fields it does not know (no mass assignment)', async () => {

@@ -206,3 +206,39 @@ describe('POST /api/import/results', () => {
     await admin.agent.put('/api/publishers/settings').set('X-CSRF-Token', admin.csrf).send({ trustPublisherImports: false }).expect(200);
   });
 });
+
+describe('an import report that says everything (issue 17)', () => {
+  it('serves the template with LF line ends only', async () => {
+    const res = await request(server.url).get('/api/import/template.csv').expect(200);
+    expect(res.text).not.toContain('\r');
+    expect(res.text.endsWith('\n')).toBe(true);
+  });
+
+  it('reads LF, CRLF, CR, a mix of them and a byte-order mark alike', async () => {
+    const lines = csvOf([goodRow(0), goodRow(1), goodRow(2)]).trimEnd().split('\r\n');
+    const files = {
+      lf: lines.join('\n') + '\n',
+      crlf: lines.join('\r\n') + '\r\n',
+      mixed: `${lines[0]}\r\n${lines[1]}\n${lines[2]}\r\n${lines[3]}\n`,
+      bomMixed: `\uFEFF${lines[0]}\r\n${lines[1]}\r\n${lines[2]}\n${lines[3]}`,
+    };
+    for (const [name, text] of Object.entries(files)) {
+      const dry = await post(text, '?dryRun=1').expect(200);
+      expect({ name, rows: dry.body.rows, valid: dry.body.valid, errors: dry.body.errors }).toEqual({ name, rows: 3, valid: 3, errors: [] });
+    }
+  });
+
+  it('reports every bad field of a row, with the nearest slug for a steel, abrasive or method one typo away', async () => {
+    const bad = { ...goodRow(0), steel: 'aisi-d3x', hardness: 'sixty', abrasive: 'cbn-electroplated-wheel-250-b12', sharpness_method: 'push-cut-tset-v2', angle_per_side_deg: '75' };
+    const dry = await post(csvOf([bad]), '?dryRun=1').expect(200);
+    const byColumn = Object.fromEntries((dry.body.errors as { column: string; message: string }[]).map((e) => [e.column, e.message]));
+    expect(Object.keys(byColumn).sort()).toEqual(['abrasive', 'angle_per_side_deg', 'hardness', 'sharpness_method', 'steel']);
+    expect(byColumn.steel).toMatch(/did you mean "aisi-d2"/);
+    expect(byColumn.abrasive).toMatch(/did you mean "cbn-electroplated-wheel-250-b126"/);
+    // A swap of two neighbouring letters counts as one edit (Damerau–Levenshtein).
+    expect(byColumn.sharpness_method).toMatch(/did you mean "push-cut-test-v2"/);
+    // Nothing near: no suggestion.
+    const far = await post(csvOf([{ ...goodRow(0), steel: 'quite-unknown-steel' }]), '?dryRun=1').expect(200);
+    expect(far.body.errors[0].message).not.toMatch(/did you mean/);
+  });
+});

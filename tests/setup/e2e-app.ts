@@ -27,6 +27,10 @@ export interface E2eApp {
   base: string;
   context: BrowserContext;
   page: Page;
+  /** Signs `handle` in through the OAuth2 round trip and waits to land on `returnTo`. */
+  signInAs: (handle: string, returnTo: string) => Promise<void>;
+  /** Signs out with the header's button and waits for its "Sign in" link. */
+  signOut: () => Promise<void>;
   /** Everything the server printed so far, for failure messages. */
   output: () => string;
   stop: () => Promise<void>;
@@ -89,5 +93,15 @@ export async function startE2eApp(name: string, ports: [number, number], viewpor
     }
     for (const dir of [profileDir, dataDir]) fs.rmSync(dir, { recursive: true, force: true });
   };
-  return { base: `http://127.0.0.1:${port}`, context, page, output: () => output, stop };
+  const base = `http://127.0.0.1:${port}`;
+  const signInAs = async (handle: string, returnTo: string) => {
+    await page.waitForLoadState('networkidle');
+    await page.goto(`${base}/auth/signin?as=${encodeURIComponent(handle)}&returnTo=${encodeURIComponent(returnTo)}`);
+    await page.waitForURL(new RegExp(`${returnTo.replace(/[?]/g, '\\?')}$`));
+  };
+  const signOut = async () => {
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.getByRole('banner').getByRole('link', { name: 'Sign in' }).waitFor();
+  };
+  return { base, context, page, signInAs, signOut, output: () => output, stop };
 }

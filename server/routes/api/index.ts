@@ -21,6 +21,7 @@ import { auditRouter } from './audit';
 import { profilesRouter } from './profiles';
 import { meRouter } from './me';
 import { devRouter } from './dev';
+import { adminRouter } from './admin';
 import type { MailCatcher } from '../../mail/mail-catcher';
 import { emptyQuerySchema } from '@shared/schemas/common';
 import type { AnswerCache } from '../../middleware/answer-cache';
@@ -69,6 +70,7 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
   router.use(auditRouter());
   router.use(profilesRouter());
   router.use(meRouter(ctx));
+  router.use(adminRouter(ctx));
   router.use(devRouter(ctx, mailCatcher));
 
   router.use(() => {

@@ -36,7 +36,7 @@ export function authRouter(ctx: AppContext, auth: passport.PassportStatic): Rout
     });
   });
 
-  router.post('/signout', csrfProtection, (req, res, next) => {
+  router.post('/signout', csrfProtection, validate({}), (req, res, next) => {
     req.logout((err) => {
       if (err) return next(err);
       req.session.destroy((destroyErr) => {

@@ -23,6 +23,7 @@ function NewResultForm() {
       abrasives={abrasives.data.items}
       methods={methods.data.items}
       onCreated={(result) => navigate(paths.result.getHref(result.id))}
+      onDraftCreated={(result) => navigate(paths.editResult.getHref(result.id), { state: { draftSaved: true } })}
       findDuplicates={checkDuplicates}
     />
   );

@@ -1,4 +1,4 @@
-import { useParams } from 'react-router-dom';
+import { useLocation, useParams } from 'react-router-dom';
 import { PageTitle } from '@/components/ui/page-title';
 import { ErrorState, Loading } from '@/components/ui/states';
 import { formatDegrees, formatGrams, formatNumber } from '@/lib/format';
@@ -9,6 +9,8 @@ import { ReviewDecisionForm } from '@/features/results/components/review-decisio
 import { ResultPhotos } from '@/features/photos/components/result-photos';
 import { RetractForm } from '@/features/me/components/retract-form';
 import { FlagForm } from '@/features/curation/components/flag-form';
+import { EditResultAction } from '@/features/results/components/edit-result-action';
+import { ResultRevisions } from '@/features/results/components/result-revisions';
 
 /** One result: everything entered and derived, its notes, state, review note and trail. */
 export default function ResultRoute() {
@@ -16,6 +18,7 @@ export default function ResultRoute() {
   const resultId = Number(id);
   const result = useResult(resultId);
   const methods = useMethods();
+  const edited = (useLocation().state as { edited?: 'updated' | 'proposed'; revision?: number } | null) ?? null;
   const methodNames = Object.fromEntries((methods.data?.items ?? []).map((m) => [m.slug, m.name]));
 
   if (!Number.isInteger(resultId) || resultId <= 0) {
@@ -32,7 +35,16 @@ export default function ResultRoute() {
       >
         {r.steelName} on {r.abrasiveName}
       </PageTitle>
+      <p role="status" aria-live="polite" className="empty:hidden rounded-md border-l-4 border-accent bg-accent-soft px-4 py-3">
+        {edited?.edited === 'proposed'
+          ? `Correction sent as version ${edited.revision}. The published version below stays until a moderator approves it.`
+          : edited?.edited === 'updated'
+            ? `Saved as version ${edited.revision}. The result is back on the review desk.`
+            : ''}
+      </p>
+      <EditResultAction result={r} />
       <ResultDetail result={r} methodNames={methodNames} />
+      <ResultRevisions result={r} />
       <ResultPhotos resultId={r.id} />
       <RetractForm result={r} />
       {r.status === 'approved' ? <FlagForm subjectType="result" subject={r.id} what="this result" /> : null}

@@ -1,4 +1,4 @@
-import { useEffect, useRef } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { useCan } from '@/lib/auth';
@@ -12,7 +12,10 @@ import { useReviewDesk } from '@/features/results/api/get-review-desk';
 import { useMethods } from '@/features/methods/api/get-methods';
 import { ResultDetail } from '@/features/results/components/result-detail';
 import { ReviewDecisionForm } from '@/features/results/components/review-decision-form';
+import { DeskCorrections } from '@/features/results/components/desk-corrections';
 import type { Result } from '@/types/api';
+
+const DECIDED: Record<string, string> = { approve: 'approved', return: 'returned to its author', reject: 'rejected' };
 
 function Queue() {
   const [deskParams] = useSearchParams();
@@ -22,6 +25,7 @@ function Queue() {
   const [params, setParams] = useSearchParams();
   const openId = Number(params.get('open') ?? '');
   const headingRef = useRef<HTMLHeadingElement>(null);
+  const [confirmation, setConfirmation] = useState<{ text: string; next: number | null } | null>(null);
   const open = desk.data?.items.find((r) => r.id === openId) ?? null;
 
   useEffect(() => {
@@ -33,12 +37,30 @@ function Queue() {
 
   const items = desk.data.items;
   const close = () => setParams(withOpen(params, null), { replace: true });
-  const decided = (r: Result) => {
-    const next = items.find((i) => i.id !== r.id);
-    setParams(withOpen(params, next ? next.id : null), { replace: true });
+  // After a decision: say so in the live region, and offer the next item rather than jumping to it.
+  const decided = (r: Result, decision: string, what = `Result ${r.id}`) => {
+    const next = items.find((i) => i.id !== r.id) ?? null;
+    setConfirmation({ text: `${what} ${DECIDED[decision] ?? decision}. Saved.`, next: next?.id ?? null });
+    setParams(withOpen(params, null), { replace: true });
   };
 
   return (
+    <div className="flex flex-col gap-6">
+    <div role="status" aria-live="polite" className="empty:hidden">
+      {confirmation ? (
+        <p className="flex flex-wrap items-center gap-x-3 gap-y-1 rounded-md border-l-4 border-accent bg-accent-soft px-4 py-3">
+          <span>{confirmation.text}</span>
+          {confirmation.next !== null ? (
+            <Link to={`${paths.reviewDesk.getHref()}?${withOpen(params, confirmation.next)}`} onClick={() => setConfirmation(null)}>
+              Open the next result (#{confirmation.next})
+            </Link>
+          ) : (
+            <span className="text-muted">Nothing else is waiting.</span>
+          )}
+        </p>
+      ) : null}
+    </div>
+    <DeskCorrections items={desk.data.resultRevisions ?? []} onDecided={decided} />
     <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
       <section aria-labelledby="queue">
         <h2 id="queue" className="mb-2 text-xl font-semibold">
@@ -101,6 +123,28 @@ function Queue() {
         )}
       </section>
     </div>
+    </div>
+  );
+}
+
+/** The desk's keyboard shortcuts, listed where they are used. */
+function Shortcuts() {
+  return (
+    <section aria-labelledby="shortcuts" className="text-sm text-muted">
+      <h2 id="shortcuts" className="mb-1 font-sans text-base font-semibold text-ink">
+        Keyboard shortcuts
+      </h2>
+      <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5">
+        <dt><kbd>Alt</kbd>+<kbd>A</kbd></dt>
+        <dd>Approve (inside a decision form)</dd>
+        <dt><kbd>Alt</kbd>+<kbd>R</kbd></dt>
+        <dd>Return with the note</dd>
+        <dt><kbd>Alt</kbd>+<kbd>J</kbd></dt>
+        <dd>Reject with the note</dd>
+        <dt><kbd>Tab</kbd></dt>
+        <dd>After a decision, the confirmation offers the next result</dd>
+      </dl>
+    </section>
   );
 }
 
@@ -115,8 +159,10 @@ export default function ReviewDeskRoute() {
       <SignInRequired what="open the review desk" action="read:review-desk">
         {mayReview ? <DeskFilters /> : null}
         {mayReview ? <DeskImportsAndFlags /> : null}
-        {mayReview ? <Queue /> : null}
+        {/* Page edits first: an opened edit's diff shows at the top, not below a long queue. */}
         {mayReview ? <DeskRevisions /> : null}
+        {mayReview ? <Queue /> : null}
+        {mayReview ? <Shortcuts /> : null}
       </SignInRequired>
     </div>
   );

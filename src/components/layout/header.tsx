@@ -26,6 +26,18 @@ export function Header() {
   const session = useSession();
   const user = session.data?.user ?? null;
   const mayReview = useCan('read:review-desk');
+  const mayAdmin = useCan('manage:users');
+  // Every moderator and admin screen, for those who may use it, in a second row of its own.
+  const staffItems = [
+    ...(mayReview ? [{ to: paths.reviewDesk.getHref(), label: 'Review desk' }, { to: paths.audit.getHref(), label: 'Audit log' }] : []),
+    ...(mayAdmin
+      ? [
+          { to: paths.adminUsers.getHref(), label: 'Members' },
+          { to: paths.publisherApplications.getHref(), label: 'Publisher applications' },
+          { to: paths.devMail.getHref(), label: 'Outgoing mail' },
+        ]
+      : []),
+  ];
   // Staff may import too, but reach it from their page; the header stays one line for them.
   const mayImport = useCan('import:results') && user?.role === 'publisher';
   const location = useLocation();
@@ -66,13 +78,6 @@ export function Header() {
                   </NavLink>
                 </li>
               ))}
-              {mayReview ? (
-                <li>
-                  <NavLink to={paths.reviewDesk.getHref()} className={navClass}>
-                    Review desk
-                  </NavLink>
-                </li>
-              ) : null}
               {mayImport ? (
                 <li>
                   <NavLink to={paths.importResults.getHref()} className={navClass}>
@@ -109,6 +114,20 @@ export function Header() {
           </div>
         </div>
       </div>
+      {staffItems.length ? (
+        <nav aria-label="Staff" className="border-t border-rule bg-paper">
+          <ul className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-1 gap-y-0.5 px-4 py-1 text-sm">
+            <li className="pr-1 text-muted">{mayAdmin ? 'Admin:' : 'Moderation:'}</li>
+            {staffItems.map((item) => (
+              <li key={item.to}>
+                <NavLink to={item.to} className={navClass}>
+                  {item.label}
+                </NavLink>
+              </li>
+            ))}
+          </ul>
+        </nav>
+      ) : null}
       {signOut.isError ? (
         <p role="alert" className="bg-danger-soft px-4 py-2 text-center text-danger">
           Signing out failed. Try again.

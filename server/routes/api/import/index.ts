@@ -15,8 +15,9 @@ import { emptyQuerySchema } from '@shared/schemas/common';
 export function importRouter(ctx: AppContext): Router {
   const router = Router();
 
+  // LF line ends: rows added in an editor that writes LF then match the rest of the file.
   router.get('/import/template.csv', validate({ query: emptyQuerySchema }), (_req, res) => {
-    res.type('text/csv; charset=utf-8').attachment('edgeledger-import-template.csv').send(toCsv(templateRows()));
+    res.type('text/csv; charset=utf-8').attachment('edgeledger-import-template.csv').send(toCsv(templateRows(), '\n'));
   });
 
   router.post(

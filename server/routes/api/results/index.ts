@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type Request, type Response } from 'express';
 import { z } from 'zod';
 import { resultInputSchema, resultListQuerySchema, reviewInputSchema, type ResultInput, type ReviewInput } from '@shared/schemas/result';
 import type { AppContext } from '../../../context';
@@ -10,7 +10,11 @@ import { can } from '@shared/permissions';
 import { submitResult } from '../../../commands/submit-result';
 import { reviewResult } from '../../../commands/review-result';
 import { findResult, listResults } from '../../../queries/results';
-import { presentResult } from '../../../presenters/result';
+import { presentResult, presentResultRevision } from '../../../presenters/result';
+import { editResult, saveDraft } from '../../../commands/edit-result';
+import { reviewResultRevision } from '../../../commands/review-result-revision';
+import { pendingResultRevisions, resultRevisions } from '../../../queries/result-revisions';
+import { emptyQuerySchema } from '@shared/schemas/common';
 import { reviewDeskRevisions } from '../../../queries/pages';
 import { bulkApproveSchema, retractInputSchema, reviewDeskQuerySchema, type ReviewDeskQuery } from '@shared/schemas/publishing';
 import { deskResultItems, openFlags, pendingImports } from '../../../queries/review-desk';
@@ -18,6 +22,7 @@ import { bulkApproveResults } from '../../../commands/bulk-approve-results';
 import { retractResult } from '../../../commands/retract-result';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
+const revisionParams = z.object({ id: z.coerce.number().int().positive(), rev: z.coerce.number().int().positive() }).strict();
 
 /** Results: post, list, read, review; and the review desk's queue. */
 export function resultsRouter(ctx: AppContext): Router {
@@ -26,6 +31,37 @@ export function resultsRouter(ctx: AppContext): Router {
   router.post('/results', requireUser, validate({ body: resultInputSchema }), async (req, res) => {
     const author = req.user as User;
     res.status(201).json(presentResult(await submitResult(ctx, author, req.valid.body as ResultInput), actorOf(req)));
+  });
+
+  router.post('/results/drafts', requireUser, validate({ body: resultInputSchema }), async (req, res) => {
+    res.status(201).json(presentResult(await saveDraft(ctx, req.user as User, req.valid.body as ResultInput), actorOf(req)));
+  });
+
+  // The author's edit: applied at once (200) before publication, a pending correction (202) after.
+  const edit = (keepDraft: boolean) => async (req: Request, res: Response) => {
+    const actor = actorOf(req)!;
+    const { id } = req.valid.params as z.infer<typeof idParams>;
+    const done = await editResult(ctx, actor, id, req.valid.body as ResultInput, { keepDraft });
+    res.status(done.outcome === 'proposed' ? 202 : 200).json({
+      outcome: done.outcome,
+      result: presentResult(done.result, actor),
+      revision: presentResultRevision(done.revision, { number: null, input: done.previous }),
+    });
+  };
+  router.put('/results/:id', requireUser, validate({ params: idParams, body: resultInputSchema }), edit(false));
+  router.put('/results/:id/draft', requireUser, validate({ params: idParams, body: resultInputSchema }), edit(true));
+
+  router.get('/results/:id/revisions', validate({ params: idParams, query: emptyQuerySchema }), async (req, res) => {
+    const { id } = req.valid.params as z.infer<typeof idParams>;
+    res.json(await resultRevisions(id, actorOf(req)));
+  });
+
+  router.post('/results/:id/revisions/:rev/review', requireUser, validate({ params: revisionParams, body: reviewInputSchema }), async (req, res) => {
+    const actor = actorOf(req)!;
+    if (!can(actor, 'read:review-desk')) throw forbidden('Only moderators review corrections.');
+    const { id, rev } = req.valid.params as z.infer<typeof revisionParams>;
+    const done = await reviewResultRevision(ctx, req.user as User, id, rev, req.valid.body as ReviewInput);
+    res.json({ result: presentResult(done.result, actor), revision: presentResultRevision(done.revision, null) });
   });
 
   router.get('/results', validate({ query: resultListQuerySchema }), async (req, res) => {
@@ -59,6 +95,8 @@ export function resultsRouter(ctx: AppContext): Router {
       revisions: show('page-revision') ? await reviewDeskRevisions(actor) : [],
       flags: show('flag') ? await openFlags(filters) : [],
       imports: show('result') ? await pendingImports() : [],
+      // Corrections of published results, each with the changes against the published version.
+      resultRevisions: show('result') ? await pendingResultRevisions(actor) : [],
     });
   });
 

@@ -1,5 +1,7 @@
 import { useId, useState } from 'react';
-import { useSearchParams } from 'react-router-dom';
+import { Link, useSearchParams } from 'react-router-dom';
+import { AUDIT_ACTION_LABELS } from '@shared/vocabulary';
+import { paths } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { SignInRequired } from '@/lib/authorization';
 import { useCan } from '@/lib/auth';
@@ -9,6 +11,36 @@ import { Field, Input } from '@/components/ui/field';
 import { PageTitle } from '@/components/ui/page-title';
 import { Empty, ErrorState, Loading } from '@/components/ui/states';
 import { useAudit } from '../api/get-audit';
+
+type Entry = NonNullable<ReturnType<typeof useAudit>['data']>['items'][number];
+
+/** What an entry names, as a link where it has a page: a result, a member, a flag, an application. */
+function AuditSubject({ entry: e }: { entry: Entry }) {
+  const details = (e.details ?? {}) as Record<string, unknown>;
+  if (e.subjectType === 'result' && e.subjectId) {
+    return (
+      <Link to={paths.result.getHref(e.subjectId)}>
+        result {e.subjectId}
+        {typeof details.revision === 'number' ? `, version ${details.revision}` : ''}
+      </Link>
+    );
+  }
+  if (e.subjectType === 'user' && typeof details.handle === 'string') {
+    const to = details.to as { role?: string } | undefined;
+    return (
+      <>
+        <Link to={paths.adminUsers.getHref(details.handle)}>@{details.handle}</Link>
+        {e.action === 'user.role' && to?.role ? ` to ${to.role}` : ''}
+      </>
+    );
+  }
+  if (e.subjectType === 'flag') return <Link to={paths.reviewDesk.getHref()}>flag {e.subjectId}</Link>;
+  if (e.subjectType === 'publisher-application') {
+    return <Link to={paths.publisherApplications.getHref()}>{typeof details.applicant === 'string' ? `of @${details.applicant}` : `application ${e.subjectId}`}</Link>;
+  }
+  if (e.subjectType === 'site-settings') return <>{String(details.key ?? 'setting')}: {String(details.from)} → {String(details.to)}</>;
+  return <>{e.subjectType}{e.subjectId ? ` ${e.subjectId}` : ''}</>;
+}
 
 function AuditTable() {
   const [params, setParams] = useSearchParams();
@@ -71,10 +103,9 @@ function AuditTable() {
                   <tr key={e.id} className="border-b border-rule/60 align-top last:border-0">
                     <td className="whitespace-nowrap px-3 py-1.5">{formatDateTime(e.at)}</td>
                     <td className="px-3 py-1.5">@{e.actor?.handle}</td>
-                    <td className="px-3 py-1.5 font-mono">{e.action}</td>
+                    <td className="px-3 py-1.5">{AUDIT_ACTION_LABELS[e.action] ?? e.action}</td>
                     <td className="px-3 py-1.5">
-                      {e.subjectType}
-                      {e.subjectId ? ` #${e.subjectId}` : ''}
+                      <AuditSubject entry={e} />
                     </td>
                     <td className="px-3 py-1.5">{e.outcome === 'done' ? <Badge tone="accent">Done</Badge> : <Badge tone="caution">Refused</Badge>}</td>
                     <td className="px-3 py-1.5">

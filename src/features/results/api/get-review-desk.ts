@@ -2,11 +2,17 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiGet } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import type { ReviewDeskQuery } from '@shared/schemas/publishing';
-import type { Result } from '@/types/api';
+import type { DeskCorrection, Result } from '@/types/api';
+
+/** The review desk's results and corrections (flags, imports and page edits have their own readers). */
+export interface ReviewDesk {
+  items: Result[];
+  resultRevisions: DeskCorrection[];
+}
 
 /** GET /api/review-desk (moderators): results awaiting review, oldest first; `filters` narrow it (author, steel, importId, kind). */
-export function getReviewDesk(signal?: AbortSignal, filters: ReviewDeskQuery = {}): Promise<{ items: Result[] }> {
-  return apiGet<{ items: Result[] }>('/api/review-desk', { ...filters }, signal);
+export function getReviewDesk(signal?: AbortSignal, filters: ReviewDeskQuery = {}): Promise<ReviewDesk> {
+  return apiGet<ReviewDesk>('/api/review-desk', { ...filters }, signal);
 }
 
 /** Query options for the review desk; always refetched on open, since others review too. Unfiltered, the key is `queryKeys.reviewDesk` itself. */

@@ -24,7 +24,7 @@ export function useReviewResult(options: { onSuccess?: (result: Result) => void 
     onSuccess: (result) => {
       queryClient.setQueryData(queryKeys.results.detail(result.id), result);
       queryClient.setQueryData<{ items: Result[] }>(queryKeys.reviewDesk, (desk) =>
-        desk ? { items: desk.items.filter((item) => item.id !== result.id) } : desk,
+        desk ? { ...desk, items: desk.items.filter((item) => item.id !== result.id) } : desk,
       );
       void queryClient.invalidateQueries({ queryKey: queryKeys.reviewDesk });
       void queryClient.invalidateQueries({ queryKey: queryKeys.results.all });

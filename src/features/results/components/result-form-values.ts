@@ -8,6 +8,7 @@ import type { FieldError, FieldErrors, FieldPath } from 'react-hook-form';
 import type { GritStandard } from '@shared/grit';
 import type { HardnessScale } from '@shared/hardness';
 import type { RichTextNode } from '@shared/rich-text';
+import type { ResultInput } from '@shared/schemas/result';
 
 export type AngleMode = 'perSide' | 'setup';
 
@@ -78,6 +79,26 @@ export function toResultInput(v: ResultFormValues): Record<string, unknown> {
   }
   if (v.notes) input.notes = v.notes;
   return input;
+}
+
+/** The form's values for a result's stored input (to edit it). */
+export function fromResultInput(input: ResultInput): ResultFormValues {
+  const setup = 'setup' in input.edgeAngle ? input.edgeAngle.setup : null;
+  return {
+    steel: input.steel,
+    hardness: { value: input.hardness.value, scale: input.hardness.scale, measured: input.hardness.measured ?? false },
+    heatTreatment: input.heatTreatment ?? '',
+    abrasive: input.abrasive,
+    grit: { standard: input.grit?.standard ?? '', grade: input.grit?.grade ?? '' },
+    angleMode: setup ? 'setup' : 'perSide',
+    edgeAngle: {
+      perSideDeg: 'perSideDeg' in input.edgeAngle ? input.edgeAngle.perSideDeg : Number.NaN,
+      setup: setup ?? { ...emptyResultForm.edgeAngle.setup },
+    },
+    sharpness: { method: input.sharpness.method, readingsText: input.sharpness.readingsG.join(', ') },
+    retention: { method: input.retention?.method ?? '', cuts: input.retention?.cuts ?? Number.NaN },
+    notes: (input.notes as RichTextNode | undefined) ?? null,
+  };
 }
 
 const knownFields = new Set<string>([

@@ -13,10 +13,14 @@ import { formatDegrees, formatGrams, formatGritBand, formatMicrometres, formatNu
 import { Button } from '@/components/ui/button';
 import { controlA11y, Field, Input, Select, sentence } from '@/components/ui/field';
 import { describeError, Loading } from '@/components/ui/states';
-import type { AbrasiveSummary, MethodSummary, Result, SteelSummary } from '@/types/api';
+import type { AbrasiveSummary, MethodSummary, Result, ResultEdit, SteelSummary } from '@/types/api';
+import type { ResultStatus } from '@shared/schemas/result';
 import { resultInputSchema, useCreateResult, type ResultInput } from '../api/create-result';
+import { useEditResult } from '../api/edit-result';
+import { useSaveDraft } from '../api/save-draft';
 import {
   emptyResultForm,
+  fromResultInput,
   flattenErrors,
   formFieldFor,
   parseReadings,
@@ -92,11 +96,26 @@ function Fieldset({ legend, children, aside }: { legend: string; children: React
   );
 }
 
+/** The submit button's words for the result's state. */
+function submitLabel(status: ResultStatus | undefined, duplicate: boolean): string {
+  if (status === 'approved') return 'Send correction for review';
+  if (status === 'returned') return 'Resubmit for review';
+  if (status === 'pending') return 'Save changes';
+  if (duplicate) return 'Post it anyway';
+  return 'Submit for review';
+}
+
 export interface ResultFormProps {
   steels: SteelSummary[];
   abrasives: AbrasiveSummary[];
   methods: MethodSummary[];
   onCreated: (result: Result) => void;
+  /** The result being edited (its author's edit, resubmission or correction); a new one when absent. */
+  editing?: { id: number; status: ResultStatus; input: ResultInput };
+  /** Told after an edit or a saved draft, with the outcome. */
+  onEdited?: (edit: ResultEdit) => void;
+  /** Told when a new result was kept as a draft. */
+  onDraftCreated?: (result: Result) => void;
   /** Asked before posting: the author's earlier results this one repeats (POST /api/me/duplicate-check). */
   findDuplicates?: (input: ResultInput) => Promise<{ id: number; status: string }[]>;
 }
@@ -106,8 +125,14 @@ export interface ResultFormProps {
  * schema the server uses, previews the derived values (HRC, µm and grit band, angle, median
  * reading) and, if the server still refuses something, shows its words under the right box.
  */
-export function ResultForm({ steels, abrasives, methods, onCreated, findDuplicates }: ResultFormProps) {
+export function ResultForm({ steels, abrasives, methods, onCreated, editing, onEdited, onDraftCreated, findDuplicates }: ResultFormProps) {
   const create = useCreateResult();
+  const edit = useEditResult();
+  const draft = useSaveDraft();
+  const busy = create.isPending || edit.isPending || draft.isPending;
+  // Drafts: a new result or a draft can be kept as a draft; anything already submitted cannot.
+  const draftable = !editing || editing.status === 'draft';
+  const [draftSaved, setDraftSaved] = useState<string | null>(null);
   const [unplaced, setUnplaced] = useState<string[]>([]);
   // Earlier results of one's own that this one repeats; posting again needs a second press.
   const [duplicates, setDuplicates] = useState<{ id: number; status: string }[] | null>(null);
@@ -120,7 +145,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, findDuplicat
   } = useForm<ResultFormValues, unknown, ResultInput>({
     mode: 'onChange',
     resolver: resultResolver,
-    defaultValues: emptyResultForm,
+    defaultValues: editing ? fromResultInput(editing.input) : emptyResultForm,
   });
 
   const values = useWatch({ control });
@@ -174,16 +199,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, findDuplicat
       ? `${goodReadings.length} reading${goodReadings.length === 1 ? '' : 's'}, median ${formatGrams(median(goodReadings), 1)}`
       : null;
 
-  const onSubmit = async (input: ResultInput) => {
-    setUnplaced([]);
-    if (findDuplicates && duplicates === null) {
-      const found = await findDuplicates(input).catch(() => []);
-      if (found.length) return setDuplicates(found);
-    }
-    setDuplicates(null);
-    create.mutate(input, {
-      onSuccess: onCreated,
-      onError: (err) => {
+  const showServerIssues = (err: unknown) => {
         if (!(err instanceof ApiError) || err.status !== 400) return;
         const leftOver: string[] = [];
         for (const issue of err.issues) {
@@ -193,8 +209,32 @@ export function ResultForm({ steels, abrasives, methods, onCreated, findDuplicat
           else leftOver.push(issue.path ? `${issue.path}: ${issue.message}` : issue.message);
         }
         setUnplaced(leftOver);
-      },
-    });
+  };
+
+  const onSubmit = async (input: ResultInput) => {
+    setUnplaced([]);
+    setDraftSaved(null);
+    if (editing) {
+      edit.mutate({ id: editing.id, input }, { onSuccess: (done) => onEdited?.(done), onError: showServerIssues });
+      return;
+    }
+    if (findDuplicates && duplicates === null) {
+      const found = await findDuplicates(input).catch(() => []);
+      if (found.length) return setDuplicates(found);
+    }
+    setDuplicates(null);
+    create.mutate(input, { onSuccess: onCreated, onError: showServerIssues });
+  };
+
+  const onSaveDraft = (input: ResultInput) => {
+    setUnplaced([]);
+    const saved = (when: string) => setDraftSaved(`Draft saved at ${when}. It stays on your page, not on the review desk, until you submit it.`);
+    const at = () => new Date().toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' });
+    if (editing) {
+      edit.mutate({ id: editing.id, input, keepDraft: true }, { onSuccess: (done) => { saved(at()); onEdited?.(done); }, onError: showServerIssues });
+    } else {
+      draft.mutate(input, { onSuccess: (result) => onDraftCreated?.(result), onError: showServerIssues });
+    }
   };
 
   const err = (e: FieldError | undefined) => e?.message;
@@ -236,7 +276,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, findDuplicat
   };
 
   return (
-    <form noValidate onSubmit={handleSubmit(onSubmit)} aria-label="New result" className="flex flex-col gap-6">
+    <form noValidate onSubmit={handleSubmit(onSubmit)} aria-label={editing ? `Edit result ${editing.id}` : 'New result'} className="flex flex-col gap-6">
       {isSubmitted && fieldErrorCount > 0 ? (
         <div role="alert" className="rounded-md border border-danger/40 bg-danger-soft px-4 py-3">
           <p className="font-semibold text-danger">
@@ -531,14 +571,24 @@ export function ResultForm({ steels, abrasives, methods, onCreated, findDuplicat
       ) : null}
 
       <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" busy={create.isPending}>
-          {create.isPending ? 'Submitting…' : duplicates?.length ? 'Post it anyway' : 'Submit for review'}
+        <Button type="submit" busy={create.isPending || edit.isPending}>
+          {busy ? 'Saving…' : submitLabel(editing?.status, !!duplicates?.length)}
         </Button>
-        <p className="text-sm text-muted">
-          {isValid ? 'Ready to submit.' : 'Fields are checked as you type.'} A moderator reviews each result before it is
-          published.
+        {draftable ? (
+          <Button type="button" variant="secondary" busy={draft.isPending} onClick={handleSubmit(onSaveDraft)}>
+            Save as draft
+          </Button>
+        ) : null}
+        <p className="min-w-0 basis-full text-sm text-muted sm:basis-auto sm:flex-1">
+          {isValid ? 'Ready to submit.' : 'Fields are checked as you type.'}{' '}
+          {editing?.status === 'approved'
+            ? 'The published version stays in the comparison until a moderator approves your correction.'
+            : 'A moderator reviews each result before it is published.'}
         </p>
       </div>
+      <p role="status" aria-live="polite" className="text-sm text-accent-strong">
+        {draftSaved}
+      </p>
     </form>
   );
 }

@@ -1,0 +1,148 @@
+/**
+ * Browser test of issue 17's loops: a moderator returns a member's result with a note, the
+ * member edits and resubmits it, the moderator approves it; the member corrects the published
+ * result and the moderator approves the correction from its diff; an admin bans a member and
+ * changes a role from the members screen. Built client, real server, headless Debian Chromium.
+ * Screenshots go to $LOOPS_SHOTS when set (1280x900 and 390x844).
+ */
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startE2eApp, type E2eApp } from '../setup/e2e-app';
+
+let app: E2eApp;
+let base = '';
+let page: Page;
+const shots = process.env.LOOPS_SHOTS;
+
+beforeAll(async () => {
+  // This suite's ports: 3700–3719.
+  app = await startE2eApp('loops', [3700, 3719]);
+  ({ base, page } = app);
+}, 90_000);
+
+afterAll(() => app?.stop(), 30_000);
+
+interface Account {
+  handle: string;
+  role: string;
+}
+
+const signInAs = (handle: string, returnTo: string) => app.signInAs(handle, returnTo);
+const signOut = () => app.signOut();
+
+/** Full-page screenshots at the desktop and phone sizes, when asked for. */
+async function screenshot(name: string) {
+  if (!shots) return;
+  for (const [w, h] of [[1280, 900], [390, 844]] as const) {
+    await page.setViewportSize({ width: w, height: h });
+    await page.screenshot({ path: `${shots}/${name}-${w}.png`, fullPage: true });
+  }
+  await page.setViewportSize({ width: 1280, height: 900 });
+}
+
+/** The signed-in browser's own API call (session cookie and CSRF token). */
+async function browserPost<T>(url: string, body: unknown): Promise<T> {
+  return page.evaluate(
+    async ([u, b]) => {
+      const session = await (await fetch('/api/session')).json();
+      const res = await fetch(u as string, { method: 'POST', headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': session.csrfToken }, body: JSON.stringify(b) });
+      return res.json();
+    },
+    [url, body] as const,
+  ) as Promise<T>;
+}
+
+describe('edit and resubmit, corrections, members', () => {
+  let accounts: Account[] = [];
+  let member: Account;
+  let moderator: Account;
+  let id = 0;
+
+  it('a moderator returns a result with a note; the member edits and resubmits it', async () => {
+    accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as Account[];
+    member = accounts.filter((a) => a.role === 'member')[1];
+    moderator = accounts.find((a) => a.role === 'moderator')!;
+
+    await signInAs(member.handle, '/me');
+    const posted = await browserPost<{ id: number }>('/api/results', {
+      steel: 'aisi-o1',
+      hardness: { value: 62, scale: 'HRC' },
+      abrasive: 'alox-vitrified-wheel-250-fine-dressed',
+      edgeAngle: { perSideDeg: 14 },
+      sharpness: { method: 'push-cut-test-v2', readingsG: [200, 205, 198] },
+    });
+    id = posted.id;
+    await signOut();
+
+    await signInAs(moderator.handle, `/review?open=${id}`);
+    const decision = page.getByRole('form', { name: `Decision on result ${id}` });
+    await decision.getByLabel('Note to the author').fill('Add two more readings.');
+    await decision.getByRole('button', { name: 'Return with note' }).click();
+    await page.getByRole('status').getByText(`Result ${id} returned to its author. Saved.`).waitFor();
+    await signOut();
+
+    await signInAs(member.handle, `/results/${id}`);
+    await page.getByText('Add two more readings.').first().waitFor();
+    await page.getByRole('link', { name: 'Edit and resubmit' }).click();
+    const form = page.getByRole('form', { name: `Edit result ${id}` });
+    await form.getByLabel(/Readings/).fill('200, 205, 198, 210, 202');
+    await screenshot('edit-form');
+    await form.getByRole('button', { name: 'Resubmit for review' }).click();
+    await page.getByText('Saved as version 2. The result is back on the review desk.').waitFor();
+    await page.getByText('Awaiting review').first().waitFor();
+    await signOut();
+  }, 120_000);
+
+  it('the moderator approves the resubmission; the member corrects it; the correction is approved from its diff', async () => {
+    await signInAs(moderator.handle, `/review?open=${id}`);
+    await page.getByRole('form', { name: `Decision on result ${id}` }).getByRole('button', { name: 'Approve' }).click();
+    await page.getByRole('status').getByText(`Result ${id} approved. Saved.`).waitFor();
+    await signOut();
+
+    await signInAs(member.handle, `/results/${id}`);
+    await page.getByRole('link', { name: 'Correct' }).click();
+    const form = page.getByRole('form', { name: `Edit result ${id}` });
+    await form.getByLabel(/Readings/).fill('200, 205, 198, 210, 204');
+    await form.getByRole('button', { name: 'Send correction for review' }).click();
+    await page.getByText('Correction sent as version 3.', { exact: false }).waitFor();
+    // The published version is unchanged until the correction is approved.
+    const published = (await (await fetch(`${base}/api/results/${id}`)).json()) as { sharpness: { readingsG: number[] } };
+    expect(published.sharpness.readingsG).toEqual([200, 205, 198, 210, 202]);
+    await signOut();
+
+    await signInAs(moderator.handle, '/review');
+    const corrections = page.getByRole('region', { name: /Corrections of published results/ });
+    await corrections.getByRole('table', { name: 'Changes against the published version' }).getByText('200, 205, 198, 210, 204').waitFor();
+    await screenshot('desk-correction');
+    await corrections.getByRole('form', { name: `Decision on the correction of result ${id}` }).getByRole('button', { name: 'Approve' }).click();
+    await page.getByRole('status').getByText(`Correction (version 3) of result ${id} approved. Saved.`).waitFor();
+    const after = (await (await fetch(`${base}/api/results/${id}`)).json()) as { sharpness: { readingsG: number[] } };
+    expect(after.sharpness.readingsG).toEqual([200, 205, 198, 210, 204]);
+    await signOut();
+  }, 120_000);
+
+  it('an admin bans a member and changes a role from the members screen, both audited', async () => {
+    const admin = accounts.find((a) => a.role === 'admin')!;
+    const target = accounts.filter((a) => a.role === 'member')[2];
+    await signInAs(admin.handle, '/me');
+    await page.getByRole('navigation', { name: 'Staff' }).getByRole('link', { name: 'Members' }).click();
+    await page.getByLabel('Find a member by handle or name').fill(target.handle);
+    await page.getByRole('button', { name: 'Search' }).click();
+    let change = page.getByRole('form', { name: `Change @${target.handle}` });
+    await change.getByLabel('Role').selectOption('publisher');
+    await change.getByLabel('Reason (kept in the audit log)').fill('Runs a test bench.');
+    await change.getByRole('button', { name: 'Save' }).click();
+    await page.getByText(`Saved: @${target.handle} is now publisher.`).waitFor();
+    change = page.getByRole('form', { name: `Change @${target.handle}` });
+    await change.getByLabel('Banned').check();
+    await change.getByLabel('Reason (kept in the audit log)').fill('Copied readings.');
+    await change.getByRole('button', { name: 'Save' }).click();
+    await page.getByText(`Saved: @${target.handle} is now publisher, banned`, { exact: false }).waitFor();
+    await page.getByLabel('Find a member by handle or name').fill('');
+    await page.getByRole('button', { name: 'Search' }).click();
+    await screenshot('admin-members');
+    await page.getByRole('navigation', { name: 'Staff' }).getByRole('link', { name: 'Audit log' }).click();
+    await page.getByText('Copied readings.').first().waitFor();
+    await signOut();
+  }, 120_000);
+});
