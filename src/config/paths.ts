@@ -57,6 +57,7 @@ export const paths = {
     index: { path: '/tools', getHref: () => '/tools' },
     grit: { path: '/tools/grit', getHref: () => '/tools/grit' },
     angle: { path: '/tools/angle', getHref: () => '/tools/angle' },
+    sideAngle: { path: '/tools/side-angle', getHref: () => '/tools/side-angle' },
     hardness: { path: '/tools/hardness', getHref: () => '/tools/hardness' },
     wheelLog: { path: '/tools/wheel-log', getHref: () => '/tools/wheel-log' },
   },

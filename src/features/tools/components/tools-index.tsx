@@ -12,7 +12,12 @@ const TOOLS = [
   {
     href: paths.tools.angle.getHref(),
     name: 'Angle geometry',
-    what: 'The edge angle a wheel, support bar and projection give; the gap for the angle you want; and how far the angle drifts as a vitrified wheel wears smaller.',
+    what: 'The edge angle a wheel, support bar and projection give (with the jig’s blade-plane offset); the gap for the angle you want; and how far the angle drifts as a vitrified wheel wears smaller.',
+  },
+  {
+    href: paths.tools.sideAngle.getHref(),
+    name: 'Flat bevels on a wheel’s side',
+    what: 'The angle a bar parallel to the wheel’s face grinds, and the gap for the angle you want, on wheels whose side may be used.',
   },
   {
     href: paths.tools.hardness.getHref(),
