@@ -4,12 +4,12 @@ import { Abrasive, Method, PageRevision, Steel } from './reference-pages';
 import { ComparisonCell, Result, ResultEvent } from './result';
 import { PageEvent } from './page-event';
 import { watchWrites } from './write-events';
-import { Wheel, WheelMeasurement } from './wheel';
+import { Grinder, Jig, PriceReport, Setup, Wheel, WheelMeasurement } from './wheel';
 import { ApiToken, AuditEntry, Flag, Follow, ImportBatch, ImportBatchResult, NotificationSetting, Photo, PublisherApplication, SiteSetting, initPublishingModels } from './publishing';
 
 /** Initialises every model on `sequelize` and declares their associations. */
 export function initModels(sequelize: Sequelize) {
-  for (const m of [User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement]) m.initModel(sequelize);
+  for (const m of [User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement, Grinder, Jig, Setup, PriceReport]) m.initModel(sequelize);
   Result.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   Result.belongsTo(Steel, { as: 'steel', foreignKey: 'steelId' });
   Result.belongsTo(Abrasive, { as: 'abrasive', foreignKey: 'abrasiveId' });
@@ -26,7 +26,7 @@ export function initModels(sequelize: Sequelize) {
   watchWrites({ pages: [Steel, Abrasive, Method, PageRevision, PageEvent], users: [User] } as never);
 }
 
-export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement };
+export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ComparisonCell, Wheel, WheelMeasurement, Grinder, Jig, Setup, PriceReport };
 export { PublisherApplication, ApiToken, ImportBatch, ImportBatchResult, Photo, Flag, AuditEntry, Follow, NotificationSetting, SiteSetting };
 export { PageEvent };
 
