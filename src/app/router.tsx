@@ -44,6 +44,7 @@ const routes: RouteObject[] = [
       { path: paths.tools.index.path, ...page(() => import('@/features/tools/components/tools-index')) },
       { path: paths.tools.grit.path, ...page(() => import('@/features/tools/components/grit-translator')) },
       { path: paths.tools.angle.path, ...page(() => import('@/features/tools/components/angle-geometry')) },
+      { path: paths.workshop.path, ...page(() => import('@/features/workshop/components/workshop-page')) },
       { path: paths.tools.sideAngle.path, ...page(() => import('@/features/tools/components/side-angle')) },
       { path: paths.tools.hardness.path, ...page(() => import('@/features/tools/components/hardness-converter')) },
       { path: paths.tools.wheelLog.path, ...page(() => import('@/features/wheel-log/components/wheel-log-page')) },

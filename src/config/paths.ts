@@ -42,6 +42,7 @@ export const paths = {
   newResult: { path: '/results/new', getHref: () => '/results/new' },
   result: { path: '/results/:id', getHref: (id: number | string) => `/results/${encodeURIComponent(String(id))}` },
   myResults: { path: '/me', getHref: () => '/me' },
+  workshop: { path: '/workshop', getHref: () => '/workshop' },
   reviewDesk: {
     path: '/review',
     getHref: (open?: number) => withQuery('/review', { open }),

@@ -218,6 +218,7 @@ const matrix: Row[] = [
     request: () => ({ url: '/api/tools/wear-drift?originalDiameterMm=200&currentDiameterMm=190&barDiameterMm=12&gapMm=144&projectionMm=200' }),
     expect: everyone(200),
   },
+  { route: 'GET /api/tools/side-angle', request: () => ({ url: '/api/tools/side-angle?barDiameterMm=12&gapMm=24&projectionMm=120' }), expect: everyone(200) },
   { route: 'POST /api/tools/retention', request: () => ({ body: { cutsMm: [30, 28, 25, 22, 20] } }), expect: everyone(200) },
 
   // Wheel log (a member's own wheels)

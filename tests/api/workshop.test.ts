@@ -12,7 +12,7 @@ afterAll(async () => {
 });
 
 type Session = Awaited<ReturnType<typeof signIn>>;
-const post = (s: Session, url: string, body: unknown) => s.agent.post(url).set('X-CSRF-Token', s.csrf).send(body);
+const post = (s: Session, url: string, body: object) => s.agent.post(url).set('X-CSRF-Token', s.csrf).send(body);
 
 // Invented demo figures: a slow water-cooled grinder and wheels from the demo abrasive pages.
 const grinder = { name: 'Wet grinder', spindleRpm: 90, barDiameterMm: 12, barMount: 'with-rotation', pricePaid: 700, currency: 'EUR' };

@@ -25,6 +25,11 @@ const TOOLS = [
     what: 'Rockwell C, Vickers, Brinell and Rockwell A for steel, from the conversion table for non-austenitic steels, without extrapolating past it.',
   },
   {
+    href: paths.workshop.getHref(),
+    name: 'My workshop',
+    what: 'Your grinders, wheels, jigs and saved setups: the gap to set today on each wheel, rated speeds, what the kit costs per sharpening and where the coolant changes (for members, private).',
+  },
+  {
     href: paths.tools.wheelLog.getHref(),
     name: 'Wheel log',
     what: 'Your wheels’ measured diameters over time, how fast they wear, and the gap from bar to rim that gives your usual angles today (for members).',
