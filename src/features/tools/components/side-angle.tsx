@@ -151,11 +151,11 @@ function SideDrawing({ setup, perSideDeg }: { setup: SideSetup; perSideDeg: numb
   const S = [L * u[0] + e * n[0], L * u[1] + e * n[1]];
   const tail = [1.4 * L * u[0], 1.4 * L * u[1]];
   const pad = 0.1 * L;
-  const minX = -0.25 * L;
-  const maxX = Math.max(tail[0], S[0] + r) + pad;
+  const minX = -0.4 * L;
+  const maxX = Math.max(tail[0], S[0] + r, 0.6 * L) + pad;
   const minY = -0.15 * L;
   const maxY = Math.max(tail[1], S[1] + r) + pad;
-  const unit = (maxX - minX) / 300;
+  const unit = Math.max(maxX - minX, maxY - minY) / 300; // strokes and text in proportion to the drawing
   const arcR = 0.3 * L;
   return (
     <svg viewBox={`${minX} ${-maxY} ${maxX - minX} ${maxY - minY}`} className="mx-auto h-auto max-h-[26rem] w-full" role="img" aria-labelledby={titleId}>

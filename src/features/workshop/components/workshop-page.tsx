@@ -170,7 +170,7 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
         {wheel.abrasive ? ` · ${wheel.abrasive.grit}` : ''} · on {grinder?.name ?? '—'} · {coolantName(wheel.coolant)}
         {wheel.abrasive?.sideUsable ? ' · side may be used for flat bevels' : ''}
       </p>
-      <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-1 text-sm">
+      <dl className="mt-3 grid grid-cols-[7rem_1fr] gap-x-4 gap-y-1 text-sm">
         <dt className="text-muted">Now</dt>
         <dd>
           <strong>{formatLength(wheel.currentDiameterMm, unit)}</strong> ({formatLength(wheel.originalDiameterMm, unit)} new
@@ -199,6 +199,7 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
             : 'not enough to estimate yet'}
         </dd>
       </dl>
+      {wheel.measurements.length ? (
       <table className="mt-3 w-full text-sm">
         <caption className="text-left font-medium">Log</caption>
         <thead>
@@ -242,8 +243,11 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
           ))}
         </tbody>
       </table>
+      ) : (
+        <p className="mt-3 text-sm text-muted">No measurements yet: measure across the wheel with calipers, the machine stopped and unplugged.</p>
+      )}
       <form
-        className="mt-3 grid grid-cols-2 items-end gap-3 sm:grid-cols-4"
+        className="mt-3 grid grid-cols-2 items-end gap-3"
         noValidate
         aria-label={`Log a measurement of ${wheel.name}`}
         onSubmit={(e) => {
@@ -266,13 +270,13 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
         <label className="flex items-center gap-2 pb-2 text-sm">
           <input type="checkbox" checked={dressed} onChange={(e) => setDressed(e.target.checked)} /> Dressed
         </label>
-        <div className="col-span-2 sm:col-span-4">
+        <div className="col-span-2">
           <Button type="submit" variant="secondary" busy={m.add.isPending || m.edit.isPending} disabled={!checked.success}>
             {editing !== null ? 'Save the correction' : 'Log measurement'}
           </Button>
         </div>
         {error ? (
-          <p role="alert" className="col-span-2 text-danger sm:col-span-4">
+          <p role="alert" className="col-span-2 text-danger">
             {describeError(error)}
           </p>
         ) : null}
@@ -288,7 +292,7 @@ function Kit({ workshop }: { workshop: Workshop }) {
   const changeText = (changes: typeof coolant.changes, order: number[]) =>
     changes.length === 0
       ? 'no change of coolant'
-      : changes.map((c) => `after ${name(order[c.afterStep])}: ${coolantName(c.from)} → ${coolantName(c.to)}`).join('; ');
+      : changes.map((c) => `after ${name(order[c.afterStep])}, change ${coolantName(c.from).toLowerCase()} for ${coolantName(c.to).toLowerCase()}`).join('; ');
   return (
     <div className="grid gap-4 md:grid-cols-2">
       <div className="min-w-0 rounded-md border border-rule bg-panel p-4">
@@ -305,7 +309,7 @@ function Kit({ workshop }: { workshop: Workshop }) {
       <div className="min-w-0 rounded-md border border-rule bg-panel p-4">
         <h3 className="text-lg font-semibold">Coolant in the trough</h3>
         <p>
-          Coarse to fine: {coolant.order.map(name).join(' → ') || '—'}. {changeText(coolant.changes, coolant.order)}.
+          Coarse to fine: {coolant.order.map(name).join(' → ') || '—'}; {changeText(coolant.changes, coolant.order)}.
         </p>
         {coolant.suggestedChanges.length < coolant.changes.length ? (
           <p className="mt-2">
@@ -355,10 +359,12 @@ export default function WorkshopPage() {
             <label htmlFor="length-unit" className="font-semibold">
               Lengths in
             </label>
-            <Select id="length-unit" value={unit} onChange={(e) => setUnit(e.target.value as LengthUnit)}>
-              <option value="mm">millimetres</option>
-              <option value="in">inches</option>
-            </Select>
+            <div className="w-44">
+              <Select id="length-unit" value={unit} onChange={(e) => setUnit(e.target.value as LengthUnit)}>
+                <option value="mm">millimetres</option>
+                <option value="in">inches</option>
+              </Select>
+            </div>
           </div>
           {workshop.isPending ? <Loading label="Loading your workshop…" /> : null}
           {workshop.error ? <ErrorState error={workshop.error} onRetry={() => workshop.refetch()} /> : null}
