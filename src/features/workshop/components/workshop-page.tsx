@@ -67,7 +67,7 @@ function AddForm({
   };
   const slug = title.toLowerCase().replace(/[^a-z]+/g, '-');
   return (
-    <form onSubmit={submit} noValidate className="grid min-w-0 gap-3 rounded-md border border-rule bg-panel p-4 sm:grid-cols-2" aria-label={title}>
+    <form onSubmit={submit} noValidate className="grid min-w-0 content-start gap-3 self-start rounded-md border border-rule bg-panel p-4 sm:grid-cols-2" aria-label={title}>
       <h3 className="text-lg font-semibold sm:col-span-2">{title}</h3>
       {fields.map((f) => (
         <Field key={f.key} id={`${slug}-${f.key}`} label={f.label} error={errors[f.key]}>
