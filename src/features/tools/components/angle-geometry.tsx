@@ -4,7 +4,7 @@ import { PageTitle } from '@/components/ui/page-title';
 import { Facts } from '@/components/ui/facts';
 import { formatDegrees, formatNumber } from '@/lib/format';
 import { SafetyCautions } from './safety-cautions';
-import { NumberField, attempt, mm, toNumber } from './tool-inputs';
+import { NumberField, SetupSection, attempt, mm, toNumber } from './tool-inputs';
 
 /** A change of angle for people: "+2.35°", or "no change" below what the display shows. */
 function changeText(deltaDeg: number): string {
@@ -86,37 +86,15 @@ export default function AngleGeometry() {
         Angle geometry
       </PageTitle>
 
-      <section aria-labelledby={`${id}-setup`} className="grid gap-6 lg:grid-cols-[1fr_1fr]">
-        <div className="flex flex-col gap-4">
-          <h2 id={`${id}-setup`} className="text-2xl font-semibold">
-            Your setup
-          </h2>
-          <div className="grid gap-4 sm:grid-cols-2">
-            {(Object.keys(SETUP_LABELS) as SetupField[]).map((field) => (
-              <NumberField
-                key={field}
-                id={`${id}-${field}`}
-                label={SETUP_LABELS[field].label}
-                unit="mm"
-                hint={SETUP_LABELS[field].hint}
-                value={setupText[field]}
-                onChange={(v) => setSetupText((s) => ({ ...s, [field]: v }))}
-                error={setupError(field)}
-              />
-            ))}
-          </div>
-          <div aria-live="polite">
-            {angle?.value ? (
-              <Facts
-                items={[
-                  { term: 'Angle per side', value: <strong className="text-xl font-semibold">{formatDegrees(angle.value.perSideDeg, 2)}</strong> },
-                  { term: 'Inclusive angle', value: formatDegrees(angle.value.inclusiveDeg, 2) },
-                ]}
-              />
-            ) : null}
-          </div>
-        </div>
-        <figure className="rounded-md border border-rule bg-panel p-3">
+      <SetupSection
+        id={id}
+        labels={SETUP_LABELS}
+        text={setupText}
+        onChange={(field, v) => setSetupText((s) => ({ ...s, [field]: v }))}
+        errorFor={setupError}
+        angle={angle?.value}
+        drawing={
+        <figure className="min-w-0 rounded-md border border-rule bg-panel p-3">
           {angle?.value ? (
             <SetupDrawing setup={setup.values} perSideDeg={angle.value.perSideDeg} />
           ) : (
@@ -124,7 +102,8 @@ export default function AngleGeometry() {
           )}
           <figcaption className="mt-2 text-sm text-muted">Drawn to scale from your numbers. The wheel’s axis is O, the bar’s axis S.</figcaption>
         </figure>
-      </section>
+        }
+      />
 
       <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
         <h2 id={`${id}-inverse`} className="text-2xl font-semibold">

@@ -5,7 +5,7 @@ import { Caution } from '@/components/ui/caution';
 import { Facts } from '@/components/ui/facts';
 import { formatDegrees, formatNumber } from '@/lib/format';
 import { SafetyCautions } from './safety-cautions';
-import { NumberField, attempt, mm, toNumber } from './tool-inputs';
+import { NumberField, SetupSection, attempt, mm, toNumber } from './tool-inputs';
 
 type Field = keyof SideSetup;
 
@@ -56,36 +56,14 @@ export default function SideAngle() {
         never be loaded sideways. Follow the machine’s and the wheel’s instructions and your local regulations.
       </Caution>
 
-      <section aria-labelledby={`${id}-setup`} className="grid gap-6 lg:grid-cols-[1fr_1fr]">
-        <div className="flex min-w-0 flex-col gap-4">
-          <h2 id={`${id}-setup`} className="text-2xl font-semibold">
-            Your setup
-          </h2>
-          <div className="grid gap-4 sm:grid-cols-2">
-            {(Object.keys(LABELS) as Field[]).map((field) => (
-              <NumberField
-                key={field}
-                id={`${id}-${field}`}
-                label={LABELS[field].label}
-                unit="mm"
-                hint={LABELS[field].hint}
-                value={text[field]}
-                onChange={(v) => setText((s) => ({ ...s, [field]: v }))}
-                error={errorFor(field)}
-              />
-            ))}
-          </div>
-          <div aria-live="polite">
-            {angle?.value ? (
-              <Facts
-                items={[
-                  { term: 'Angle per side', value: <strong className="text-xl font-semibold">{formatDegrees(angle.value.perSideDeg, 2)}</strong> },
-                  { term: 'Inclusive angle', value: formatDegrees(angle.value.inclusiveDeg, 2) },
-                ]}
-              />
-            ) : null}
-          </div>
-        </div>
+      <SetupSection
+        id={id}
+        labels={LABELS}
+        text={text}
+        onChange={(field, v) => setText((s) => ({ ...s, [field]: v }))}
+        errorFor={errorFor}
+        angle={angle?.value}
+        drawing={
         <figure className="min-w-0 rounded-md border border-rule bg-panel p-3">
           {angle?.value ? (
             <SideDrawing setup={setup.values} perSideDeg={angle.value.perSideDeg} />
@@ -94,7 +72,8 @@ export default function SideAngle() {
           )}
           <figcaption className="mt-2 text-sm text-muted">Seen from above, to scale: the wheel’s face on the left, the bar’s axis S.</figcaption>
         </figure>
-      </section>
+        }
+      />
 
       <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
         <h2 id={`${id}-inverse`} className="text-2xl font-semibold">
