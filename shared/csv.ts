@@ -39,7 +39,7 @@ export const IMPORT_COLUMN_HELP: Record<ImportColumn, string> = {
   hardness_measured: 'yes when you measured it, no when the maker stated it (optional)',
   heat_treatment: 'heat treatment note (optional, plain text)',
   abrasive: 'final abrasive page: its slug or its exact name',
-  grit_standard: 'fepa-f, fepa-p, jis, ansi, mesh, iso6106 or um (optional)',
+  grit_standard: 'fepa-f, fepa-p, jis, ansi, ansi-bonded, mesh, iso6106 or um (optional)',
   grit: 'grit grade as labelled, e.g. F220, #4000, B126, 15 (optional: the abrasive page’s grit)',
   angle_per_side_deg: 'edge angle per side in degrees; or leave empty and give the four wheel-setup columns',
   wheel_diameter_mm: 'wheel diameter, mm (setup)',

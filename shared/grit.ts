@@ -12,7 +12,7 @@
  */
 import { ComputationError } from './computation-error';
 
-export const GRIT_STANDARDS = ['fepa-f', 'fepa-p', 'jis', 'ansi', 'mesh', 'iso6106', 'um'] as const;
+export const GRIT_STANDARDS = ['fepa-f', 'fepa-p', 'jis', 'ansi', 'ansi-bonded', 'mesh', 'iso6106', 'um'] as const;
 /** Identifier of a grit standard, as stored and sent by the API. */
 export type GritStandard = (typeof GRIT_STANDARDS)[number];
 
@@ -22,6 +22,7 @@ export const GRIT_STANDARD_LABELS: Record<GritStandard, string> = {
   'fepa-p': 'FEPA P (coated abrasives, ISO 6344)',
   jis: 'JIS R6001',
   ansi: 'ANSI B74.18 (coated abrasives)',
+  'ansi-bonded': 'ANSI B74.12 / B74.10 (bonded abrasives, grinding wheels)',
   mesh: 'US mesh (ASTM E11 sieve opening)',
   iso6106: 'Diamond and CBN (ISO 6106)',
   um: 'Micrometres',
@@ -32,7 +33,8 @@ export const GRIT_STANDARD_SHORT_LABELS: Record<GritStandard, string> = {
   'fepa-f': 'FEPA F',
   'fepa-p': 'FEPA P',
   jis: 'JIS',
-  ansi: 'ANSI',
+  ansi: 'ANSI coated',
+  'ansi-bonded': 'ANSI bonded',
   mesh: 'US mesh',
   iso6106: 'ISO 6106',
   um: 'µm',
@@ -210,6 +212,48 @@ const JIS_FINE_DS50: [number, number][] = [
 ];
 
 // ---------------------------------------------------------------------------------------------
+// JIS R6001 coarse series, checked (R): the Unified Abrasives Manufacturers' Association's
+// "National and International Size Standards" (uama.org, Abrasives 101) compares ANSI B74.12-2001,
+// FEPA 43-1984 R1991 and JIS R6001-1987: for the macrogrit sizes each defines, the sieve
+// requirements are identical; FEPA alone has F22 and F40; JIS lacks the four coarsest sizes 4, 5,
+// 6 and 7. So JIS_MACRO above is FEPA F's macro series less 4, 5, 6, 7, 22 and 40, and each JIS
+// coarse grade takes the FEPA sieve set of its number. What this covers: the list of coarse grades
+// and that they share FEPA's sieves; the sieve openings themselves are as marked in
+// FEPA_F_MACRO_SIEVES (R for F24–F220, the rest from memory), and editions after 1987 (which
+// moved to the FEPA numbering in part) are not checked.
+// ---------------------------------------------------------------------------------------------
+
+// ---------------------------------------------------------------------------------------------
+// ANSI B74.12 (bonded abrasives: grinding wheels) and B74.10 (bonded microgrits), US
+// ---------------------------------------------------------------------------------------------
+
+/**
+ * ANSI B74.12 macrogrits: the FEPA F macro series less F22 and F40 (R, per the UAMA comparison
+ * above), each with the FEPA sieve set of its number, so the same sieve-band middle.
+ */
+const ANSI_BONDED_MACRO = [4, 5, 6, 7, 8, 10, 12, 14, 16, 20, 24, 30, 36, 46, 54, 60, 70, 80, 90, 100, 120, 150, 180, 220];
+
+/**
+ * ANSI bonded microgrits (240 sieved under B74.12; 280 and finer graded under B74.10), median
+ * size µm. (from memory, low confidence): each is tabulated about one FEPA F step coarser than the
+ * FEPA grade of the same number, and quite unlike the coated B74.18 grade of the same number
+ * (bonded 600 ≈ 12.8 µm, coated 600 ≈ 16 µm): a wheel marked "600" in the bonded system is
+ * finer than the coated table says.
+ */
+const ANSI_BONDED_MICRO: [number, number][] = [
+  [240, 53.0], // (from memory), low confidence
+  [280, 44.5], // (from memory), low confidence
+  [320, 36.5], // (from memory), low confidence
+  [360, 29.2], // (from memory), low confidence
+  [400, 22.8], // (from memory), low confidence
+  [500, 17.3], // (from memory), low confidence
+  [600, 12.8], // (from memory), low confidence
+  [800, 9.3], // (from memory), low confidence
+  [1000, 6.5], // (from memory), low confidence
+  [1200, 4.5], // (from memory), low confidence
+];
+
+// ---------------------------------------------------------------------------------------------
 // ANSI B74.18 (coated abrasives, US)
 // ---------------------------------------------------------------------------------------------
 
@@ -354,6 +398,10 @@ const LADDERS: Record<Exclude<GritStandard, 'um'>, GradeRow[]> = {
   ansi: byCoarseFirst(
     ANSI.map(([n, um, low]) => ({ grade: String(n), micrometres: um, basis: 'average' as const, ...(low ? { lowConfidence: true } : {}) })),
   ),
+  'ansi-bonded': byCoarseFirst([
+    ...ANSI_BONDED_MACRO.map((n) => ({ grade: String(n), micrometres: fepaMacroByNumber.get(n)!, basis: 'sieve-band' as const })),
+    ...ANSI_BONDED_MICRO.map(([n, um]) => ({ grade: String(n), micrometres: um, basis: 'ds50' as const, lowConfidence: true })),
+  ]),
   mesh: byCoarseFirst(ASTM_E11.map(([n, um]) => ({ grade: `No. ${n}`, micrometres: um, basis: 'sieve-opening' as const }))),
   iso6106: byCoarseFirst(
     ISO_6106.map((r) => ({ grade: `D/B${r.n}`, micrometres: (r.apertures[0] + r.apertures[1]) / 2, basis: 'aperture-mean' as const })),
@@ -428,6 +476,7 @@ const STANDARD_NAMES_IN_ERRORS: Record<GritStandard, string> = {
   'fepa-p': 'an FEPA P grit',
   jis: 'a JIS R6001 grit',
   ansi: 'an ANSI B74.18 grit',
+  'ansi-bonded': 'an ANSI B74.12 / B74.10 grit',
   mesh: 'an ASTM E11 sieve',
   iso6106: 'an ISO 6106 designation',
   um: 'a size in micrometres',
@@ -438,6 +487,7 @@ const RUNS_FROM_NAMES: Record<Exclude<GritStandard, 'um'>, string> = {
   'fepa-p': 'FEPA P',
   jis: 'JIS R6001',
   ansi: 'ANSI B74.18',
+  'ansi-bonded': 'ANSI B74.12 / B74.10',
   mesh: 'US mesh (ASTM E11)',
   iso6106: 'ISO 6106',
 };
@@ -570,6 +620,19 @@ function fromMeshPair(a: number, b: number, typed: string): ParsedGrit {
 type Reader = { pattern: RegExp; standard: GritStandard | null; read: (m: RegExpExecArray, typed: string, standard: GritStandard | null, inferred: boolean) => ParsedGrit };
 
 const NUM = String.raw`(\d+)`;
+
+/**
+ * Numbers written with thousands separators, made plain: "1,000", "1 000" (any space, after
+ * collapsing), "1'000", "12,500" → "1000", "12500". The first group has no leading zero (so "0,125"
+ * stays a decimal comma); a space groups only after one or two digits, so "400 600" is not read as
+ * 400600. The same separator throughout, exactly three digits a group.
+ */
+function withoutThousandsSeparators(text: string): string {
+  const join = (_all: string, before: string, head: string, sep: string, rest: string) => before + head + rest.split(sep).join('');
+  return text
+    .replace(/(^|[^\d.,'])([1-9]\d{0,2})([,'])(\d{3}(?:\3\d{3})*)(?![\d,'])/g, join)
+    .replace(/(^|[^\d.,'])([1-9]\d?)( )(\d{3}(?: \d{3})*)(?![\d])/g, join);
+}
 const DECIMAL = String.raw`(\d+(?:[.,]\d+)?|[.,]\d+)`;
 
 /**
@@ -608,9 +671,16 @@ const READERS: Reader[] = [
     read: (m, typed) => lookup('jis', Number(m[1] ?? m[2]), typed, false),
   },
   {
-    pattern: new RegExp(String.raw`^(?:(?:ansi|cami)\s*#?\s*${NUM}|#?\s*${NUM}\s*(?:ansi|cami))$`, 'i'),
+    // Before ISO 6106's "B126": "B74.12 600" names the bonded standard.
+    pattern: new RegExp(String.raw`^(?:(?:ansi\s*)?(?:b\s*74\.1[02]|bonded)\s*#?\s*${NUM}|(?:ansi\s*)?#?\s*${NUM}\s*(?:ansi\s*)?bonded)$`, 'i'),
+    standard: 'ansi-bonded',
+    read: (m, typed) => lookup('ansi-bonded', Number(m[1] ?? m[2]), typed, false),
+  },
+  {
+    // "ANSI 600" without saying bonded reads as coated (B74.18) unless the bonded standard is chosen.
+    pattern: new RegExp(String.raw`^(?:(?:ansi|cami)(?:\s*b\s*74\.18)?\s*#?\s*${NUM}|#?\s*${NUM}\s*(?:ansi|cami))$`, 'i'),
     standard: 'ansi',
-    read: (m, typed) => lookup('ansi', Number(m[1] ?? m[2]), typed, false),
+    read: (m, typed, standard) => lookup(standard === 'ansi-bonded' ? 'ansi-bonded' : 'ansi', Number(m[1] ?? m[2]), typed, false),
   },
   {
     pattern: new RegExp(
@@ -656,16 +726,19 @@ export function parseGrit(text: string, standard?: GritStandard): ParsedGrit {
   if (standard !== undefined) assertStandard(standard);
   if (typeof text !== 'string') throw new ComputationError('type a grit, ' + EXAMPLES, 'grade');
   const typed = text.trim();
-  const s = typed
-    .replace(/[\u00b5\u03bc]/g, 'µ') // micro sign and Greek mu both mean micro
-    .replace(/^grit\s+/i, '')
-    .replace(/\s+grit$/i, '')
-    .replace(/\s+/g, ' ');
+  const s = withoutThousandsSeparators(
+    typed
+      .replace(/[\u00b5\u03bc]/g, 'µ') // micro sign and Greek mu both mean micro
+      .replace(/^grit\s+/i, '')
+      .replace(/\s+grit$/i, '')
+      .replace(/\s+/g, ' '),
+  );
   if (s === '') throw new ComputationError('type a grit, ' + EXAMPLES, 'grade');
   for (const reader of READERS) {
     const m = reader.pattern.exec(s);
     if (!m) continue;
-    if (standard !== undefined && reader.standard !== null && reader.standard !== standard) {
+    const plainAnsiInBonded = reader.standard === 'ansi' && standard === 'ansi-bonded';
+    if (standard !== undefined && reader.standard !== null && reader.standard !== standard && !plainAnsiInBonded) {
       throw new ComputationError(
         `"${typed}" is written as ${GRIT_STANDARD_SHORT_LABELS[reader.standard]}, but the standard chosen is ${GRIT_STANDARD_LABELS[standard]}; ` +
           `change the standard or type the grade without its prefix`,
@@ -724,6 +797,8 @@ export function formatGrade(grit: { standard: GritStandard; grade: string }): st
       return `JIS ${grit.grade}`;
     case 'ansi':
       return `ANSI ${grit.grade}`;
+    case 'ansi-bonded':
+      return `ANSI ${grit.grade} (bonded)`;
     case 'mesh':
       return `US mesh ${grit.grade}`;
     case 'iso6106': {

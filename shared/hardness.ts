@@ -155,10 +155,13 @@ export function toHrc(value: number, scale: HardnessScale): number {
   }
   const { min, max } = hardnessRange(scale);
   if (value < min || value > max) {
+    // The value as given and the limits as tabulated, never rounded: 68.01 HRC is outside a table
+    // that ends at 68, and a message saying "68 is outside … 68" would contradict itself.
+    const col = COLUMNS[scale];
     throw new ComputationError(
-      `${formatNumber(value)} ${scale} is outside the conversion table: ASTM E140 Table 1 (non-austenitic steels) ` +
-        `covers ${scale} ${formatNumber(min)} to ${formatNumber(max)}` +
-        (scale === 'HRC' ? '' : ` (HRC ${ROWS[0].HRC} to ${ROWS[ROWS.length - 1].HRC}${scale === 'HBW' ? ' for Brinell' : ''})`),
+      `${String(value)} ${scale} is outside the conversion table: ASTM E140 Table 1 (non-austenitic steels) ` +
+        `covers ${scale} ${String(min)} to ${String(max)}` +
+        (scale === 'HRC' ? '' : ` (HRC ${col[0].hrc} to ${col[col.length - 1].hrc}, where the ${scale} column has values)`),
       'value',
     );
   }
@@ -200,8 +203,4 @@ export const BRINELL_NORMAL_MAX_HBW = 650;
  */
 export function brinellBeyondNormalRange(hbw: number): boolean {
   return hbw > BRINELL_NORMAL_MAX_HBW;
-}
-
-function formatNumber(n: number): string {
-  return String(Number(n.toFixed(1)));
 }

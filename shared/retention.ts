@@ -21,6 +21,17 @@ export const TCC_MIN_MM = 150;
 /** Most cycles accepted in one series: the test stops at 60; longer series run on to study wear. */
 export const MAX_CYCLES = 200;
 
+// At most 200 cuts of at most 10 000 mm: 2e6 mm in units of 1e-9 mm stays below 2^53, so sums of
+// whole units are exact.
+const MAX_PLACES = 9;
+
+/** Decimal places of a number as written in its shortest form (1.25 → 2, 3e-7 → 7, 40 → 0). */
+export function decimalPlaces(x: number): number {
+  const [mantissa, exponent] = String(x).toLowerCase().split('e');
+  const fraction = mantissa.split('.')[1]?.length ?? 0;
+  return Math.max(0, fraction - Number(exponent ?? 0));
+}
+
 /** ICP and TCC of one card-cut series, with the standard's minimums and whether they are met. */
 export interface CardCutRetention {
   /** Card cut in the first 3 cycles, mm (fewer if fewer were cut). */
@@ -58,11 +69,18 @@ export function cardCutRetention(cutsMm: number[]): CardCutRetention {
       throw new ComputationError(`the cut in cycle ${i + 1} must be a non-negative number of millimetres (got ${String(cut)})`, `cutsMm.${i}`);
     }
   });
+  // Sum at the inputs' precision: in whole units of the finest decimal given, so a series that adds
+  // up to exactly a minimum in decimal is judged on the minimum, not a hair under it (0.3 + 32.3 +
+  // 17.4 is 49.99999999999999 in binary floating point). Numbers with more places than anyone
+  // measures (computed series) are summed as they are.
+  const places = Math.max(...cutsMm.map(decimalPlaces));
+  const unit = places <= MAX_PLACES ? 10 ** places : 1;
+  const exact = places <= MAX_PLACES;
   const cumulativeMm: number[] = [];
-  let total = 0;
+  let sum = 0;
   for (const cut of cutsMm) {
-    total += cut;
-    cumulativeMm.push(total);
+    sum += exact ? Math.round(cut * unit) : cut;
+    cumulativeMm.push(exact ? sum / unit : sum);
   }
   const icpMm = cumulativeMm[Math.min(ICP_CYCLES, cutsMm.length) - 1];
   const tccMm = cumulativeMm[Math.min(TCC_CYCLES, cutsMm.length) - 1];

@@ -5,12 +5,12 @@ import { ComparisonCell, Result, ResultEvent, ResultRevision } from './result';
 import { PageEvent } from './page-event';
 import { ChangeRow } from '../changes/change-row';
 import { pageRowsOf, pagesOf, recordWritesOf, resultsOf, resultTrailOf, rowsOf, settingsOf } from '../changes/model-writes';
-import { Wheel, WheelMeasurement } from './wheel';
+import { Grinder, Jig, PriceReport, Setup, Wheel, WheelMeasurement } from './wheel';
 import { ApiToken, AuditEntry, Flag, Follow, ImportBatch, ImportBatchResult, NotificationSetting, Photo, PublisherApplication, SiteSetting, initPublishingModels } from './publishing';
 
 /** Initialises every model on `sequelize` and declares their associations. */
 export function initModels(sequelize: Sequelize) {
-  for (const m of [User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ResultRevision, ComparisonCell, Wheel, WheelMeasurement]) m.initModel(sequelize);
+  for (const m of [User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ResultRevision, ComparisonCell, Wheel, WheelMeasurement, Grinder, Jig, Setup, PriceReport]) m.initModel(sequelize);
   Result.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   Result.belongsTo(Steel, { as: 'steel', foreignKey: 'steelId' });
   Result.belongsTo(Abrasive, { as: 'abrasive', foreignKey: 'abrasiveId' });
@@ -37,11 +37,12 @@ export function initModels(sequelize: Sequelize) {
     [User, rowsOf('account')], [ApiToken, rowsOf('token')], [SiteSetting, settingsOf], [Flag, rowsOf('flag')], [Photo, rowsOf('photo')],
     [Follow, rowsOf('follow')], [PublisherApplication, rowsOf('application')], [ImportBatch, rowsOf('import')], [ImportBatchResult, rowsOf('import', 'batchId')],
     [Wheel, rowsOf('wheel')], [WheelMeasurement, rowsOf('wheel', 'wheelId')], [NotificationSetting, rowsOf('mail-settings', 'userId')], [AuditEntry, rowsOf('audit')],
+    [Grinder, rowsOf('wheel')], [Jig, rowsOf('wheel')], [Setup, rowsOf('wheel')], [PriceReport, rowsOf('wheel')],
   ];
   for (const [model, describe] of recorded) recordWritesOf(model, describe);
 }
 
-export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ResultRevision, ComparisonCell, Wheel, WheelMeasurement };
+export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ResultRevision, ComparisonCell, Wheel, WheelMeasurement, Grinder, Jig, Setup, PriceReport };
 export { PublisherApplication, ApiToken, ImportBatch, ImportBatchResult, Photo, Flag, AuditEntry, Follow, NotificationSetting, SiteSetting };
 export { PageEvent };
 

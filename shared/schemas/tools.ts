@@ -4,6 +4,8 @@ import { HARDNESS_SCALES } from '../hardness';
 import { MAX_CYCLES } from '../retention';
 
 const mm = (max: number) => z.coerce.number().finite().min(0).max(max);
+/** A blade-plane offset from the bar's axis, mm: either side (DESIGN.md). */
+const offset = z.coerce.number().finite().min(-200).max(200);
 
 /** GET /api/tools/grit */
 export const gritToolQuerySchema = z
@@ -27,6 +29,22 @@ export const angleToolQuerySchema = z
     projectionMm: mm(2000).positive(),
     gapMm: mm(1000).optional(),
     perSideDeg: z.coerce.number().finite().gt(0).lt(90).optional(),
+    offsetMm: offset.optional(),
+  })
+  .strict()
+  .refine((q) => (q.gapMm === undefined) !== (q.perSideDeg === undefined), {
+    message: 'give either gapMm (to get the angle) or perSideDeg (to get the gap), not both',
+    path: ['gapMm'],
+  });
+
+/** GET /api/tools/side-angle: a flat bevel on a wheel's side; with `gapMm` gives the angle, with `perSideDeg` the gap. */
+export const sideAngleToolQuerySchema = z
+  .object({
+    barDiameterMm: mm(200).positive(),
+    projectionMm: mm(2000).positive(),
+    gapMm: mm(1000).optional(),
+    perSideDeg: z.coerce.number().finite().gt(0).lt(90).optional(),
+    offsetMm: offset.optional(),
   })
   .strict()
   .refine((q) => (q.gapMm === undefined) !== (q.perSideDeg === undefined), {
@@ -42,6 +60,7 @@ export const wearDriftQuerySchema = z
     barDiameterMm: mm(200).positive(),
     gapMm: mm(1000),
     projectionMm: mm(2000).positive(),
+    offsetMm: offset.optional(),
   })
   .strict();
 

@@ -14,11 +14,16 @@ export const wheelInputSchema = z
   .strict();
 export type WheelInput = z.infer<typeof wheelInputSchema>;
 
-/** POST /api/wheels/:id/measurements: a measured diameter on a date. */
+/**
+ * POST /api/wheels/:id/measurements (and PATCH …/measurements/:mid): a measured diameter on a date,
+ * whether the wheel was just dressed, and the sharpenings done since the entry before.
+ */
 export const wheelMeasurementSchema = z
   .object({
     measuredOn: z.iso.date('a date as yyyy-mm-dd'),
     diameterMm: z.number().positive().max(2000),
+    dressed: z.boolean().optional(),
+    sharpenings: z.number().int().min(0).max(100_000).optional(),
   })
   .strict();
 export type WheelMeasurementInput = z.infer<typeof wheelMeasurementSchema>;

@@ -43,6 +43,7 @@ export const paths = {
   result: { path: '/results/:id', getHref: (id: number | string) => `/results/${encodeURIComponent(String(id))}` },
   editResult: { path: '/results/:id/edit', getHref: (id: number | string) => `/results/${encodeURIComponent(String(id))}/edit` },
   myResults: { path: '/me', getHref: () => '/me' },
+  workshop: { path: '/workshop', getHref: () => '/workshop' },
   reviewDesk: {
     path: '/review',
     getHref: (open?: number) => withQuery('/review', { open }),
@@ -58,6 +59,7 @@ export const paths = {
     index: { path: '/tools', getHref: () => '/tools' },
     grit: { path: '/tools/grit', getHref: () => '/tools/grit' },
     angle: { path: '/tools/angle', getHref: () => '/tools/angle' },
+    sideAngle: { path: '/tools/side-angle', getHref: () => '/tools/side-angle' },
     hardness: { path: '/tools/hardness', getHref: () => '/tools/hardness' },
     wheelLog: { path: '/tools/wheel-log', getHref: () => '/tools/wheel-log' },
   },

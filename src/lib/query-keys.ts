@@ -17,6 +17,9 @@ export const queryKeys = {
   adminUsers: (q: string) => ['admin-users', q] as const,
   reviewDesk: ['review-desk'] as const,
   wheels: ['wheels'] as const,
+  /** Under `wheels`, so a change to the wheel log refreshes the workshop too (and the other way round). */
+  workshop: ['wheels', 'workshop'] as const,
+  priceReports: (abrasive: string) => ['price-reports', abrasive] as const,
   /** Publishing and curation (issue 6). */
   me: ['me'] as const,
   tokens: ['tokens'] as const,

@@ -24,7 +24,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import type { Express } from 'express';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
-import { Abrasive, Flag, Method as MethodModel, PageRevision, Photo, PublisherApplication, Result, Steel, User } from '../../server/models';
+import { Abrasive, Flag, Method as MethodModel, PageRevision, Photo, PublisherApplication, Result, Steel, User, WheelMeasurement } from '../../server/models';
 import { revisePage } from '../../server/commands/revise-page';
 import { unsubscribeQuery } from '../../server/mail/unsubscribe';
 
@@ -69,6 +69,9 @@ const goodResult = () => ({
 
 /** A wheel as the wheel log takes it: the worked example R 100 mm, bar 12 mm, L 200 mm. */
 const goodWheel = () => ({ name: 'Access-matrix wheel', wears: true, originalDiameterMm: 200, barDiameterMm: 12, projectionMm: 200, usualAnglesDeg: [15] });
+
+/** A slow water-cooled grinder (invented): 90 rpm, a 12 mm bar. */
+const goodGrinder = () => ({ name: 'Matrix grinder', spindleRpm: 90, barDiameterMm: 12, barMount: 'with-rotation' });
 
 // Geometry worked example from ../shared/reference/published-values.md: R 100, d 250, L 200 →
 // 18.21° per side; d = R + gap + bar radius, so the gap is 250 − 100 − 6 = 144 mm.
@@ -233,6 +236,7 @@ const matrix: Row[] = [
     request: () => ({ url: '/api/tools/wear-drift?originalDiameterMm=200&currentDiameterMm=190&barDiameterMm=12&gapMm=144&projectionMm=200' }),
     expect: everyone(200),
   },
+  { route: 'GET /api/tools/side-angle', request: () => ({ url: '/api/tools/side-angle?barDiameterMm=12&gapMm=24&projectionMm=120' }), expect: everyone(200) },
   { route: 'POST /api/tools/retention', request: () => ({ body: { cutsMm: [30, 28, 25, 22, 20] } }), expect: everyone(200) },
 
   // Wheel log (a member's own wheels)
@@ -241,6 +245,44 @@ const matrix: Row[] = [
   {
     route: 'POST /api/wheels/:id/measurements',
     request: async (fx, caller) => ({ url: `/api/wheels/${await fx.ownWheel(caller)}/measurements`, body: { measuredOn: '2026-11-02', diameterMm: 198 } }),
+    expect: signedIn(201),
+  },
+  {
+    route: 'PATCH /api/wheels/:id/measurements/:measurementId',
+    request: async (fx, caller) => {
+      const { wheelId, measurementId } = await fx.ownMeasurement(caller);
+      return { url: `/api/wheels/${wheelId}/measurements/${measurementId}`, body: { measuredOn: '2026-11-03', diameterMm: 197, sharpenings: 4 } };
+    },
+    expect: signedIn(204),
+  },
+  {
+    route: 'DELETE /api/wheels/:id/measurements/:measurementId',
+    request: async (fx, caller) => {
+      const { wheelId, measurementId } = await fx.ownMeasurement(caller);
+      return { url: `/api/wheels/${wheelId}/measurements/${measurementId}` };
+    },
+    expect: signedIn(204),
+  },
+
+  // The workshop (a member's own grinders, wheels, jigs and setups) and price reports
+  { route: 'GET /api/workshop', expect: signedIn(200) },
+  { route: 'POST /api/workshop/grinders', request: () => ({ body: goodGrinder() }), expect: signedIn(201) },
+  { route: 'POST /api/workshop/jigs', request: () => ({ body: { name: 'Matrix jig', offsetMm: 8 } }), expect: signedIn(201) },
+  { route: 'POST /api/workshop/setups', request: () => ({ body: { name: 'Matrix setup', projectionMm: 140, perSideDeg: 15 } }), expect: signedIn(201) },
+  {
+    route: 'POST /api/workshop/wheels',
+    request: async (fx, caller) => ({ body: { name: 'Matrix CBN', abrasive: 'cbn-electroplated-wheel-250-b126', grinderId: await fx.ownGrinder(caller), originalDiameterMm: 250, ratedSpeedMps: 20 } }),
+    expect: signedIn(201),
+  },
+  {
+    route: 'POST /api/workshop/wheels/:id/retire',
+    request: async (fx, caller) => ({ url: `/api/workshop/wheels/${await fx.ownWheel(caller)}/retire`, body: { retiredOn: '2026-11-04', retiredAfterSharpenings: 900 } }),
+    expect: signedIn(204),
+  },
+  { route: 'GET /api/price-reports', request: () => ({ url: '/api/price-reports?abrasive=cbn-electroplated-wheel-250-b126' }), expect: everyone(200) },
+  {
+    route: 'POST /api/price-reports',
+    request: () => ({ body: { abrasive: 'cbn-electroplated-wheel-250-b126', price: 180, currency: 'EUR', paidOn: '2026-10-01', condition: 'new' } }),
     expect: signedIn(201),
   },
 
@@ -355,6 +397,8 @@ interface Fixtures {
   freshMember(): Promise<string>;
   /** A wheel of the caller's own (or id 1 for callers who cannot have one). */
   ownWheel(caller: Caller): Promise<number>;
+  ownGrinder(caller: Caller): Promise<number>;
+  ownMeasurement(caller: Caller): Promise<{ wheelId: number; measurementId: number }>;
   /** A new publisher application, pending, by a member who is none of the callers. */
   pendingApplication(): Promise<number>;
   /** A new API token of the caller's own (or id 1 for callers who cannot have one). */
@@ -512,6 +556,19 @@ beforeAll(async () => {
         wheels.set(caller, res.body.id);
       }
       return wheels.get(caller)!;
+    },
+    async ownGrinder(caller) {
+      if (caller === 'visitor' || caller === 'banned' || caller === 'revoked') return 1;
+      const s = sessions[caller];
+      return (await s.agent.post('/api/workshop/grinders').set('X-CSRF-Token', s.csrf).send(goodGrinder()).expect(201)).body.id as number;
+    },
+    async ownMeasurement(caller) {
+      const wheelId = await this.ownWheel(caller);
+      if (caller === 'visitor' || caller === 'banned' || caller === 'revoked') return { wheelId, measurementId: 1 };
+      const s = sessions[caller];
+      await s.agent.post(`/api/wheels/${wheelId}/measurements`).set('X-CSRF-Token', s.csrf).send({ measuredOn: '2026-11-01', diameterMm: 199 }).expect(201);
+      const row = await WheelMeasurement.findOne({ where: { wheelId }, order: [['id', 'DESC']] });
+      return { wheelId, measurementId: row!.id };
     },
   };
 

@@ -73,6 +73,36 @@ describe('GET /api/tools/angle', () => {
   });
 });
 
+describe('GET /api/tools/side-angle (flat bevels on a wheel\'s side)', () => {
+  it('gives the angle from the gap and the gap for an angle: sin α = (gap + bar/2) / projection', async () => {
+    // by hand: (24 + 6) / 120 = 0.25, asin 0.25 = 14.4775°
+    const angle = await request(server.url).get('/api/tools/side-angle?barDiameterMm=12&gapMm=24&projectionMm=120').expect(200);
+    expect(angle.body.perSideDeg).toBeCloseTo(14.4775, 4);
+    const gap = await request(server.url).get('/api/tools/side-angle?barDiameterMm=12&perSideDeg=14.4775&projectionMm=120').expect(200);
+    expect(gap.body.gapMm).toBeCloseTo(24, 3);
+    expect(Object.keys(gap.body)).toEqual(['gapMm']);
+  });
+
+  it.each([
+    ['a projection too short to reach the face', 'barDiameterMm=12&gapMm=50&projectionMm=40', 'projectionMm'],
+    ['an angle that puts the bar inside the wheel', 'barDiameterMm=12&perSideDeg=10&projectionMm=20', 'projectionMm'],
+    ['an angle of 90° or more', 'barDiameterMm=12&perSideDeg=95&projectionMm=100', 'perSideDeg'],
+    ['a negative gap', 'barDiameterMm=12&gapMm=-1&projectionMm=100', 'gapMm'],
+    ['no bar', 'gapMm=10&projectionMm=100', 'barDiameterMm'],
+    ['both a gap and an angle', 'barDiameterMm=12&gapMm=10&perSideDeg=15&projectionMm=100', 'gapMm'],
+    ['an unknown parameter', 'barDiameterMm=12&gapMm=10&projectionMm=100&wheel=1', ''],
+  ])('refuses %s, naming the field', async (_case, query, field) => {
+    const res = await request(server.url).get(`/api/tools/side-angle?${query}`).expect(400);
+    if (field) expect(res.body.issues.map((i: { path: string }) => i.path)).toContain(field);
+  });
+
+  it('takes the blade-plane offset on the rim too: 10 mm off turns a 15° setup into 18.9° (issue 18)', async () => {
+    const gap = await request(server.url).get('/api/tools/angle?wheelDiameterMm=250&barDiameterMm=12&projectionMm=140&perSideDeg=15').expect(200);
+    const res = await request(server.url).get(`/api/tools/angle?wheelDiameterMm=250&barDiameterMm=12&projectionMm=140&gapMm=${gap.body.gapMm}&offsetMm=10`).expect(200);
+    expect(res.body.perSideDeg).toBeCloseTo(18.9, 1);
+  });
+});
+
 describe('wear drift and retention', () => {
   it('shows a worn vitrified wheel raising the angle of an unchanged setup (common practice)', async () => {
     const res = await request(server.url).get('/api/tools/wear-drift?originalDiameterMm=200&currentDiameterMm=180&barDiameterMm=12&gapMm=130&projectionMm=180').expect(200);

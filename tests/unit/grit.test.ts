@@ -141,6 +141,103 @@ describe('JIS R6001', () => {
   });
 });
 
+describe('JIS R6001 coarse series, checked against the published comparison', () => {
+  // UAMA, "National and International Size Standards" (uama.org, Abrasives 101) (R): ANSI B74.12-2001,
+  // FEPA 43-1984 R1991 and JIS R6001-1987 have identical sieve requirements for the macrogrits each
+  // defines; FEPA alone has F22 and F40; JIS does not cover 4, 5, 6 and 7. Covered: which coarse
+  // grades JIS has and that each shares FEPA's sieves (not the openings themselves, nor later editions).
+  const fepaMacro = gradesOf('fepa-f')
+    .filter((g) => g.micrometres > 60)
+    .map((g) => Number(g.grade.slice(1)));
+  const jisCoarse = gradesOf('jis')
+    .map((g) => ({ n: Number(g.grade.slice(1)), um: g.micrometres }))
+    .filter((g) => g.n <= 220);
+
+  it('is FEPA F macro less 4, 5, 6, 7, 22 and 40', () => {
+    expect(jisCoarse.map((g) => g.n).sort((a, b) => a - b)).toEqual(fepaMacro.filter((n) => ![4, 5, 6, 7, 22, 40].includes(n)).sort((a, b) => a - b));
+  });
+
+  it('every JIS coarse grade takes the FEPA sieve set of its number', () => {
+    for (const { n, um } of jisCoarse) expect(um).toBe(parseGrit(`F${n}`).micrometres);
+  });
+
+  it.each(['JIS 4', 'JIS 22', 'JIS 40'])('refuses %s, a size JIS R6001 does not define', (text) => {
+    expect(computationError(() => parseGrit(text)).field).toBe('grade');
+  });
+});
+
+describe('ANSI B74.12 / B74.10 (bonded: grinding wheels), its own standard beside coated B74.18', () => {
+  // UAMA (R): B74.12 macrogrits share FEPA's sieve requirements; FEPA alone has F22 and F40.
+  it.each(['24', '36', '46', '60', '80', '100', '120', '150', '180', '220'])('ANSI bonded %s has the size of FEPA F%s', (n) => {
+    expect(parseGrit(n, 'ansi-bonded')).toMatchObject({ standard: 'ansi-bonded', grade: n, micrometres: parseGrit(`F${n}`).micrometres });
+  });
+
+  it.each(['22', '40'])('has no %s (FEPA only)', (n) => {
+    expect(computationError(() => parseGrit(n, 'ansi-bonded')).message).toMatch(/not an ANSI B74.12 \/ B74.10 grit/);
+  });
+
+  it('a bonded wheel marked 600 lands in its own band, not the coated table\'s', () => {
+    // bonded 600 ≈ 12.8 µm (B74.10, from memory, low confidence); coated 600 ≈ 16.0 µm (B74.18, from memory)
+    const bonded = parseGrit('600', 'ansi-bonded');
+    const coated = parseGrit('600', 'ansi');
+    expect(bonded.lowConfidence).toBe(true);
+    expect(Math.abs(bonded.micrometres - 12.8) / 12.8).toBeLessThanOrEqual(0.1);
+    expect(gritBand(bonded.micrometres)).toEqual({ loUm: 7.8125, hiUm: 15.625 });
+    expect(gritBand(coated.micrometres)).toEqual({ loUm: 15.625, hiUm: 31.25 });
+  });
+
+  it.each<[string, GritStandard | undefined]>([
+    ['ANSI bonded 600', undefined],
+    ['B74.12 600', undefined],
+    ['ANSI B74.10 600', undefined],
+    ['600 bonded', undefined],
+    ['ANSI 600', 'ansi-bonded'],
+  ])('reads "%s" as bonded', (text, standard) => {
+    expect(parseGrit(text, standard)).toMatchObject({ standard: 'ansi-bonded', grade: '600' });
+  });
+
+  it('"ANSI 600" alone and "ANSI B74.18 600" stay coated; "B126" stays ISO 6106', () => {
+    expect(parseGrit('ANSI 600').standard).toBe('ansi');
+    expect(parseGrit('ANSI B74.18 600').standard).toBe('ansi');
+    expect(parseGrit('B126').standard).toBe('iso6106');
+  });
+
+  it('is written with its system', () => {
+    expect(formatGrade({ standard: 'ansi-bonded', grade: '600' })).toBe('ANSI 600 (bonded)');
+  });
+});
+
+describe('thousands separators', () => {
+  it.each<[string, GritStandard | undefined, GritStandard, string]>([
+    ['1,000', undefined, 'jis', '#1000'],
+    ['1 000', undefined, 'jis', '#1000'],
+    ['1\u00a0000', undefined, 'jis', '#1000'],
+    ['1\u202f000', undefined, 'jis', '#1000'],
+    ["1'000", undefined, 'jis', '#1000'],
+    ['#1,000', undefined, 'jis', '#1000'],
+    ['JIS 6,000', undefined, 'jis', '#6000'],
+    ['F1,000', undefined, 'fepa-f', 'F1000'],
+    ['1,000', 'fepa-p', 'fepa-p', 'P1000'],
+    ['1 200 grit', 'ansi-bonded', 'ansi-bonded', '1200'],
+  ])('"%s" (%s) → %s %s', (text, standard, expected, grade) => {
+    // by hand: the separator groups thousands, as written in English and French usage
+    expect(parseGrit(text, standard)).toMatchObject({ standard: expected, grade });
+  });
+
+  it('a size "1,000 µm" is a thousand micrometres, not 1 µm; decimal commas still read as decimals', () => {
+    expect(parseGrit('1,000 µm').micrometres).toBe(1000);
+    expect(parseGrit('1 000 µm').micrometres).toBe(1000);
+    expect(parseGrit('1,000.5 µm').micrometres).toBe(1000.5);
+    expect(parseGrit('1,5 µm').micrometres).toBe(1.5);
+    expect(parseGrit('0,125 µm').micrometres).toBe(0.125);
+  });
+
+  it('a grade that is not one is refused with the right message, not "whole numbers"', () => {
+    expect(computationError(() => parseGrit('1,100')).message).toMatch(/"1,100" is not a JIS R6001 grit.*#1000 and #1200/);
+    expect(computationError(() => parseGrit('400 600')).message).toMatch(/not a grit we can read/);
+  });
+});
+
 describe('ANSI B74.18 (coated)', () => {
   // ANSI B74.18 macrogrit averages (R)
   it.each([
@@ -382,6 +479,7 @@ describe('nearest grades', () => {
       'fepa-p': 'P1500', // 12.6 µm
       jis: '#1000',
       ansi: '800', // 12.2 µm
+      'ansi-bonded': '600', // 12.8 µm
       mesh: null,
       iso6106: null,
       um: '11.5 µm',
@@ -409,7 +507,7 @@ describe('nearest grades', () => {
   });
 
   it('property: a grade’s own notation names its standard (except ANSI, which needs it chosen)', () => {
-    const grades = GRIT_STANDARDS.filter((s) => s !== 'ansi').flatMap((s) => gradesOf(s).map((g) => ({ s, ...g })));
+    const grades = GRIT_STANDARDS.filter((s) => s !== 'ansi' && s !== 'ansi-bonded').flatMap((s) => gradesOf(s).map((g) => ({ s, ...g })));
     fc.assert(
       fc.property(fc.constantFrom(...grades), ({ s, grade, micrometres }) => {
         const parsed = parseGrit(grade);

@@ -126,6 +126,18 @@ describe('values outside the table are refused, never extrapolated', () => {
     }
   });
 
+  it('names the value as given and the limits exactly: 68.01 HRC is not "68 HRC is outside … 68"', () => {
+    // ASTM E140 Table 1 (R) ends at HRC 68; 68.01 lies just past it.
+    expect(computationError(() => toHrc(68.01, 'HRC')).message).toMatch(/^68\.01 HRC is outside .* covers HRC 20 to 68$/);
+    expect(computationError(() => toHrc(940.04, 'HV')).message).toMatch(/^940\.04 HV .* HV 238 to 940 \(HRC 20 to 68,/);
+  });
+
+  it("says Brinell's column ends at HRC 65, not 68 (ASTM E140 Table 1 gives no HBW above HRC 65, R)", () => {
+    const message = computationError(() => toHrc(739.5, 'HBW')).message;
+    expect(message).toMatch(/HBW 226 to 739 \(HRC 20 to 65,/);
+    expect(message).not.toMatch(/68/);
+  });
+
   it('refuses an unknown scale naming the scale field', () => {
     expect(computationError(() => toHrc(50, 'HRB' as HardnessScale)).field).toBe('scale');
   });

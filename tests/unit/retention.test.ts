@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { ICP_CYCLES, ICP_MIN_MM, MAX_CYCLES, TCC_CYCLES, TCC_MIN_MM, cardCutRetention } from '@shared/retention';
+import { ICP_CYCLES, ICP_MIN_MM, MAX_CYCLES, TCC_CYCLES, TCC_MIN_MM, cardCutRetention, decimalPlaces } from '@shared/retention';
 import { computationError } from '../setup/computation-error';
 
 describe('ISO 8442-5:2004 card-cutting test', () => {
@@ -41,6 +41,32 @@ describe('ISO 8442-5:2004 card-cutting test', () => {
     expect(r.icpPass).toBe(icpPass);
     expect(r.tccPass).toBe(tccPass);
     expect(r.cycles).toBe(cuts.length);
+  });
+
+  it('a series adding up to exactly the minimums in decimal passes (sums at the inputs\' precision)', () => {
+    // 0.3 + 32.3 + 17.4 = 50.0 by hand, but 49.99999999999999 in IEEE 754 double arithmetic
+    // (checked with a plain reduce below, so the test shows the trap it guards against).
+    const icpCuts = [0.3, 32.3, 17.4];
+    expect(icpCuts.reduce((a, b) => a + b, 0)).toBeLessThan(50);
+    // 50 + 56 × 1.3 + 27.2 = 150.0 by hand; 149.99999999999983 as a plain double sum.
+    const cuts = [...icpCuts, ...Array(56).fill(1.3), 27.2];
+    expect(cuts.reduce((a, b) => a + b, 0)).toBeLessThan(150);
+    const r = cardCutRetention(cuts);
+    expect(r.icpMm).toBe(50);
+    expect(r.tccMm).toBe(150);
+    expect(r).toMatchObject({ icpPass: true, tccPass: true });
+    // a tenth under the minimum still fails: the rounding is to the inputs' precision, not looser
+    expect(cardCutRetention([0.3, 32.3, 17.3]).icpPass).toBe(false);
+  });
+
+  it.each<[number, number]>([
+    [40, 0],
+    [1.25, 2],
+    [3e-7, 7],
+    [1.5e-8, 9],
+    [2.5e21, 0],
+  ])('decimal places of %s: %i', (x, places) => {
+    expect(decimalPlaces(x)).toBe(places);
   });
 
   it.each<[string, unknown, string, RegExp]>([

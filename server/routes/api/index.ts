@@ -11,6 +11,7 @@ import { resultsRouter } from './results';
 import { pagesRouter } from './pages';
 import { toolsRouter } from './tools';
 import { wheelsRouter } from './wheels';
+import { workshopRouter } from './workshop';
 import { compareRouter } from './compare';
 import { publishersRouter } from './publishers';
 import { importRouter } from './import';
@@ -61,6 +62,7 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
   router.use(resultsRouter(ctx));
   router.use(toolsRouter());
   router.use(wheelsRouter(ctx));
+  router.use(workshopRouter(ctx));
 
   router.use(publishersRouter(ctx));
   router.use(importRouter(ctx));

@@ -2,9 +2,16 @@ import { Router } from 'express';
 import type { z } from 'zod';
 import { gritBand, nearestGrades, parseGrit } from '@shared/grit';
 import { convertHardness } from '@shared/hardness';
-import { angleFromSetup, gapForAngle, wearDrift } from '@shared/geometry';
+import { angleFromSetup, gapForAngle, sideAngleFromSetup, sideGapForAngle, wearDrift } from '@shared/geometry';
 import { cardCutRetention } from '@shared/retention';
-import { angleToolQuerySchema, gritToolQuerySchema, hardnessToolQuerySchema, retentionToolBodySchema, wearDriftQuerySchema } from '@shared/schemas/tools';
+import {
+  angleToolQuerySchema,
+  gritToolQuerySchema,
+  hardnessToolQuerySchema,
+  retentionToolBodySchema,
+  sideAngleToolQuerySchema,
+  wearDriftQuerySchema,
+} from '@shared/schemas/tools';
 import { validate } from '../../../middleware/validate';
 
 /**
@@ -34,11 +41,13 @@ export function toolsRouter(): Router {
 
   router.get('/tools/angle', validate({ query: angleToolQuerySchema }), (req, res) => {
     const q = req.valid.query as z.infer<typeof angleToolQuerySchema>;
-    if (q.gapMm !== undefined) {
-      res.json(angleFromSetup({ wheelDiameterMm: q.wheelDiameterMm, barDiameterMm: q.barDiameterMm, gapMm: q.gapMm, projectionMm: q.projectionMm }));
-    } else {
-      res.json(gapForAngle({ wheelDiameterMm: q.wheelDiameterMm, barDiameterMm: q.barDiameterMm, projectionMm: q.projectionMm, perSideDeg: q.perSideDeg! }));
-    }
+    const { gapMm, perSideDeg, ...setup } = q;
+    res.json(gapMm !== undefined ? angleFromSetup({ ...setup, gapMm }) : gapForAngle({ ...setup, perSideDeg: perSideDeg! }));
+  });
+
+  router.get('/tools/side-angle', validate({ query: sideAngleToolQuerySchema }), (req, res) => {
+    const { gapMm, perSideDeg, ...setup } = req.valid.query as z.infer<typeof sideAngleToolQuerySchema>;
+    res.json(gapMm !== undefined ? sideAngleFromSetup({ ...setup, gapMm }) : sideGapForAngle({ ...setup, perSideDeg: perSideDeg! }));
   });
 
   router.get('/tools/wear-drift', validate({ query: wearDriftQuerySchema }), (req, res) => {

@@ -5,12 +5,13 @@ import { summarizeWheelLog } from '@shared/wheel-log';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
-import { addWheel, measureWheel } from '../../../commands/log-wheel';
+import { addWheel, deleteMeasurement, editMeasurement, measureWheel } from '../../../commands/log-wheel';
 import { notFound } from '../../../errors';
 import { Wheel, WheelMeasurement } from '../../../models';
 import { emptyQuerySchema } from '@shared/schemas/common';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
+const measurementParams = z.object({ id: z.coerce.number().int().positive(), measurementId: z.coerce.number().int().positive() }).strict();
 
 function presentWheel(wheel: Wheel) {
   const measurements = (wheel.measurements ?? []).map((m) => ({ measuredOn: m.measuredOn, diameterMm: m.diameterMm }));
@@ -50,6 +51,18 @@ export function wheelsRouter(ctx: AppContext): Router {
     const [wheel] = await own(actor.id, id);
     if (!wheel) throw notFound('Wheel');
     res.status(201).json(presentWheel(wheel));
+  });
+
+  router.patch('/wheels/:id/measurements/:measurementId', requireUser, validate({ params: measurementParams, body: wheelMeasurementSchema }), async (req, res) => {
+    const { id, measurementId } = req.valid.params as z.infer<typeof measurementParams>;
+    await editMeasurement(ctx, actorOf(req)!, id, measurementId, req.valid.body as WheelMeasurementInput);
+    res.status(204).end();
+  });
+
+  router.delete('/wheels/:id/measurements/:measurementId', requireUser, validate({ params: measurementParams }), async (req, res) => {
+    const { id, measurementId } = req.valid.params as z.infer<typeof measurementParams>;
+    await deleteMeasurement(ctx, actorOf(req)!, id, measurementId);
+    res.status(204).end();
   });
 
   return router;

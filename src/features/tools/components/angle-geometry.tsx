@@ -1,33 +1,10 @@
 import { useId, useMemo, useState } from 'react';
-import { ComputationError } from '@shared/computation-error';
 import { angleFromSetup, gapForAngle, projectionForAngle, wearDrift, type WheelSetup } from '@shared/geometry';
 import { PageTitle } from '@/components/ui/page-title';
-import { Field, Input, controlA11y } from '@/components/ui/field';
 import { Facts } from '@/components/ui/facts';
 import { formatDegrees, formatNumber } from '@/lib/format';
 import { SafetyCautions } from './safety-cautions';
-
-type Outcome<T> = { value: T; error?: undefined; field?: undefined } | { value?: undefined; error: string; field?: string };
-
-/** Run a computation; a ComputationError becomes a message for the field it names. */
-function attempt<T>(run: () => T): Outcome<T> {
-  try {
-    return { value: run() };
-  } catch (err) {
-    if (err instanceof ComputationError) return { error: err.message, field: err.field };
-    throw err;
-  }
-}
-
-/** A typed number, accepting a decimal comma; NaN when the box is empty or not a number. */
-function toNumber(text: string): number {
-  const t = text.trim().replace(',', '.');
-  return t === '' ? Number.NaN : Number(t);
-}
-
-function mm(value: number, digits = 1): string {
-  return `${formatNumber(value, digits)}\u00a0mm`;
-}
+import { NumberField, SetupSection, attempt, mm, toNumber } from './tool-inputs';
 
 /** A change of angle for people: "+2.35°", or "no change" below what the display shows. */
 function changeText(deltaDeg: number): string {
@@ -41,37 +18,6 @@ function moveText(excessMm: number): string {
   return `move the bar ${mm(Math.abs(excessMm))} ${excessMm > 0 ? 'closer to' : 'away from'} the wheel`;
 }
 
-/** A labelled number box in millimetres or degrees, with its error underneath. */
-function NumberField({
-  id,
-  label,
-  unit,
-  hint,
-  value,
-  onChange,
-  error,
-}: {
-  id: string;
-  label: string;
-  unit: 'mm' | '°';
-  hint?: string;
-  value: string;
-  onChange: (v: string) => void;
-  error?: string;
-}) {
-  return (
-    <Field id={id} label={`${label} (${unit})`} hint={hint} error={error}>
-      <Input
-        {...controlA11y(id, { hint, error })}
-        value={value}
-        onChange={(e) => onChange(e.target.value)}
-        inputMode="decimal"
-        autoComplete="off"
-      />
-    </Field>
-  );
-}
-
 type SetupField = keyof WheelSetup;
 
 const SETUP_LABELS: Record<SetupField, { label: string; hint: string }> = {
@@ -79,6 +25,10 @@ const SETUP_LABELS: Record<SetupField, { label: string; hint: string }> = {
   barDiameterMm: { label: 'Support bar diameter', hint: 'The round bar the jig slides on.' },
   gapMm: { label: 'Gap, bar to wheel', hint: 'The shortest distance from the bar’s surface to the rim.' },
   projectionMm: { label: 'Projection', hint: 'From the bar’s axis to the edge, along the blade.' },
+  offsetMm: {
+    label: 'Blade-plane offset',
+    hint: 'How far the jig holds the blade’s plane from the bar’s axis: positive with the bar between blade and wheel, negative the other side, 0 through the axis.',
+  },
 };
 
 /** The angle geometry page: setup → angle, angle → gap, and the drift as a wheel wears. */
@@ -90,6 +40,7 @@ export default function AngleGeometry() {
     barDiameterMm: '12',
     gapMm: '80',
     projectionMm: '140',
+    offsetMm: '0',
   });
   const [wantedText, setWantedText] = useState('15');
   const [currentText, setCurrentText] = useState('225');
@@ -106,18 +57,18 @@ export default function AngleGeometry() {
   const wanted = toNumber(wantedText);
   const inverse = useMemo(() => {
     if (!setupReady || !Number.isFinite(wanted)) return null;
-    const { wheelDiameterMm, barDiameterMm, gapMm, projectionMm } = setup.values;
+    const { wheelDiameterMm, barDiameterMm, gapMm, projectionMm, offsetMm } = setup.values;
     return {
-      gap: attempt(() => gapForAngle({ wheelDiameterMm, barDiameterMm, projectionMm, perSideDeg: wanted })),
-      projection: attempt(() => projectionForAngle({ wheelDiameterMm, barDiameterMm, gapMm, perSideDeg: wanted })),
+      gap: attempt(() => gapForAngle({ wheelDiameterMm, barDiameterMm, projectionMm, perSideDeg: wanted, offsetMm })),
+      projection: attempt(() => projectionForAngle({ wheelDiameterMm, barDiameterMm, gapMm, perSideDeg: wanted, offsetMm })),
     };
   }, [setupReady, setup.values, wanted]);
 
   const current = toNumber(currentText);
   const drift = useMemo(() => {
     if (!setupReady || !Number.isFinite(current)) return null;
-    const { wheelDiameterMm, barDiameterMm, gapMm, projectionMm } = setup.values;
-    return attempt(() => wearDrift({ originalDiameterMm: wheelDiameterMm, currentDiameterMm: current, barDiameterMm, gapMm, projectionMm }));
+    const { wheelDiameterMm, barDiameterMm, gapMm, projectionMm, offsetMm } = setup.values;
+    return attempt(() => wearDrift({ originalDiameterMm: wheelDiameterMm, currentDiameterMm: current, barDiameterMm, gapMm, projectionMm, offsetMm }));
   }, [setupReady, setup.values, current]);
 
   const setupError = (field: SetupField): string | undefined => {
@@ -135,37 +86,15 @@ export default function AngleGeometry() {
         Angle geometry
       </PageTitle>
 
-      <section aria-labelledby={`${id}-setup`} className="grid gap-6 lg:grid-cols-[1fr_1fr]">
-        <div className="flex flex-col gap-4">
-          <h2 id={`${id}-setup`} className="text-2xl font-semibold">
-            Your setup
-          </h2>
-          <div className="grid gap-4 sm:grid-cols-2">
-            {(Object.keys(SETUP_LABELS) as SetupField[]).map((field) => (
-              <NumberField
-                key={field}
-                id={`${id}-${field}`}
-                label={SETUP_LABELS[field].label}
-                unit="mm"
-                hint={SETUP_LABELS[field].hint}
-                value={setupText[field]}
-                onChange={(v) => setSetupText((s) => ({ ...s, [field]: v }))}
-                error={setupError(field)}
-              />
-            ))}
-          </div>
-          <div aria-live="polite">
-            {angle?.value ? (
-              <Facts
-                items={[
-                  { term: 'Angle per side', value: <strong className="text-xl font-semibold">{formatDegrees(angle.value.perSideDeg, 2)}</strong> },
-                  { term: 'Inclusive angle', value: formatDegrees(angle.value.inclusiveDeg, 2) },
-                ]}
-              />
-            ) : null}
-          </div>
-        </div>
-        <figure className="rounded-md border border-rule bg-panel p-3">
+      <SetupSection
+        id={id}
+        labels={SETUP_LABELS}
+        text={setupText}
+        onChange={(field, v) => setSetupText((s) => ({ ...s, [field]: v }))}
+        errorFor={setupError}
+        angle={angle?.value}
+        drawing={
+        <figure className="min-w-0 rounded-md border border-rule bg-panel p-3">
           {angle?.value ? (
             <SetupDrawing setup={setup.values} perSideDeg={angle.value.perSideDeg} />
           ) : (
@@ -173,7 +102,8 @@ export default function AngleGeometry() {
           )}
           <figcaption className="mt-2 text-sm text-muted">Drawn to scale from your numbers. The wheel’s axis is O, the bar’s axis S.</figcaption>
         </figure>
-      </section>
+        }
+      />
 
       <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
         <h2 id={`${id}-inverse`} className="text-2xl font-semibold">
@@ -290,16 +220,29 @@ function SetupDrawing({ setup, perSideDeg }: { setup: WheelSetup; perSideDeg: nu
   const r = setup.barDiameterMm / 2;
   const d = R + setup.gapMm + r;
   const L = setup.projectionMm;
+  const e = setup.offsetMm ?? 0;
+  const rho = Math.hypot(L, e); // |SC|: the edge is L along the blade from the foot of the perpendicular from S
   // S sits up and to the right of O, as on a machine with the bar above the wheel.
   const beta = (55 * Math.PI) / 180;
   const u = [Math.cos(beta), Math.sin(beta)]; // unit vector O → S
   const v = [Math.sin(beta), -Math.cos(beta)]; // perpendicular, clockwise
-  const along = (R * R - L * L + d * d) / (2 * d);
+  const along = (R * R - rho * rho + d * d) / (2 * d);
   const across = Math.sqrt(Math.max(0, R * R - along * along));
   const S = [d * u[0], d * u[1]];
   const C = [along * u[0] + across * v[0], along * u[1] + across * v[1]];
-  const toS = [(S[0] - C[0]) / L, (S[1] - C[1]) / L];
-  const tail = [S[0] + toS[0] * 0.45 * L, S[1] + toS[1] * 0.45 * L]; // the blade runs on past the bar to the handle
+  const cs = [(S[0] - C[0]) / rho, (S[1] - C[1]) / rho];
+  // The blade's direction: C→S turned by φ = atan(e / L), to the side that leaves S on the wheel's
+  // side of the blade for e > 0 (shared/geometry.ts).
+  const phi = Math.atan2(Math.abs(e), L);
+  const turn = (sign: number) => [cs[0] * Math.cos(sign * phi) - cs[1] * Math.sin(sign * phi), cs[0] * Math.sin(sign * phi) + cs[1] * Math.cos(sign * phi)];
+  const sideOfS = (dir: number[]) => {
+    let n = [-dir[1], dir[0]];
+    if (n[0] * -C[0] + n[1] * -C[1] < 0) n = [dir[1], -dir[0]];
+    return (S[0] - C[0]) * n[0] + (S[1] - C[1]) * n[1];
+  };
+  const toS = Math.abs(sideOfS(turn(1)) - e) < Math.abs(sideOfS(turn(-1)) - e) ? turn(1) : turn(-1);
+  const foot = [C[0] + toS[0] * L, C[1] + toS[1] * L]; // foot of the perpendicular from S on the blade
+  const tail = [C[0] + toS[0] * 1.45 * L, C[1] + toS[1] * 1.45 * L]; // the blade runs on past the bar to the handle
   // Tangent at C, on the side where the blade lies.
   const radial = [C[0] / R, C[1] / R];
   let t = [-radial[1], radial[0]];
@@ -314,8 +257,8 @@ function SetupDrawing({ setup, perSideDeg }: { setup: WheelSetup; perSideDeg: nu
   const rim = [R * u[0], R * u[1]];
   const barEdge = [(d - r) * u[0], (d - r) * u[1]];
 
-  const xs = [-R, R, S[0] + r, S[0] - r, tail[0], C[0]];
-  const ys = [-R, R, S[1] + r, S[1] - r, tail[1], C[1]];
+  const xs = [-R, R, S[0] + r, S[0] - r, tail[0], C[0], foot[0]];
+  const ys = [-R, R, S[1] + r, S[1] - r, tail[1], C[1], foot[1]];
   const pad = 0.08 * Math.max(...xs.map(Math.abs), ...ys.map(Math.abs));
   const minX = Math.min(...xs) - pad;
   const maxX = Math.max(...xs) + pad;
@@ -336,7 +279,7 @@ function SetupDrawing({ setup, perSideDeg }: { setup: WheelSetup; perSideDeg: nu
       aria-labelledby={titleId}
     >
       <title id={titleId}>
-        {`Wheel of ${formatNumber(setup.wheelDiameterMm)} mm, bar of ${formatNumber(setup.barDiameterMm)} mm at a gap of ${formatNumber(setup.gapMm)} mm, blade projecting ${formatNumber(L)} mm: ${formatDegrees(perSideDeg, 1)} per side.`}
+        {`Wheel of ${formatNumber(setup.wheelDiameterMm)} mm, bar of ${formatNumber(setup.barDiameterMm)} mm at a gap of ${formatNumber(setup.gapMm)} mm, blade projecting ${formatNumber(L)} mm${e ? ` with its plane ${formatNumber(e)} mm off the bar’s axis` : ''}: ${formatDegrees(perSideDeg, 1)} per side.`}
       </title>
       <circle cx={0} cy={0} r={R} className="fill-paper stroke-ink" strokeWidth={unit * 1.2} />
       <circle cx={0} cy={0} r={unit * 2} className="fill-ink" />
@@ -367,6 +310,14 @@ function SetupDrawing({ setup, perSideDeg }: { setup: WheelSetup; perSideDeg: nu
         strokeDasharray={`${unit * 5} ${unit * 3}`}
       />
       <line x1={X(tail)} y1={Y(tail)} x2={X(C)} y2={Y(C)} className="stroke-accent-strong" strokeWidth={unit * 4} strokeLinecap="round" />
+      {Math.abs(e) > 0.05 ? (
+        <g>
+          <line x1={X(S)} y1={Y(S)} x2={X(foot)} y2={Y(foot)} className="stroke-muted" strokeWidth={unit} />
+          <text x={(X(S) + X(foot)) / 2 + unit * 4} y={(Y(S) + Y(foot)) / 2} className="fill-muted" fontSize={unit * 10}>
+            e
+          </text>
+        </g>
+      ) : null}
       <path
         d={`M ${X(arcStart)} ${Y(arcStart)} A ${arcR} ${arcR} 0 0 ${sweep} ${X(arcEnd)} ${Y(arcEnd)}`}
         className="fill-none stroke-caution"

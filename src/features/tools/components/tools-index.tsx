@@ -12,12 +12,22 @@ const TOOLS = [
   {
     href: paths.tools.angle.getHref(),
     name: 'Angle geometry',
-    what: 'The edge angle a wheel, support bar and projection give; the gap for the angle you want; and how far the angle drifts as a vitrified wheel wears smaller.',
+    what: 'The edge angle a wheel, support bar and projection give (with the jig’s blade-plane offset); the gap for the angle you want; and how far the angle drifts as a vitrified wheel wears smaller.',
+  },
+  {
+    href: paths.tools.sideAngle.getHref(),
+    name: 'Flat bevels on a wheel’s side',
+    what: 'The angle a bar parallel to the wheel’s face grinds, and the gap for the angle you want, on wheels whose side may be used.',
   },
   {
     href: paths.tools.hardness.getHref(),
     name: 'Hardness converter',
     what: 'Rockwell C, Vickers, Brinell and Rockwell A for steel, from the conversion table for non-austenitic steels, without extrapolating past it.',
+  },
+  {
+    href: paths.workshop.getHref(),
+    name: 'My workshop',
+    what: 'Your grinders, wheels, jigs and saved setups: the gap to set today on each wheel, rated speeds, what the kit costs per sharpening and where the coolant changes (for members, private).',
   },
   {
     href: paths.tools.wheelLog.getHref(),

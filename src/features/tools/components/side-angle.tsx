@@ -1,0 +1,163 @@
+import { useId, useMemo, useState } from 'react';
+import { sideAngleFromSetup, sideGapForAngle, type SideSetup } from '@shared/geometry';
+import { PageTitle } from '@/components/ui/page-title';
+import { Caution } from '@/components/ui/caution';
+import { Facts } from '@/components/ui/facts';
+import { formatDegrees, formatNumber } from '@/lib/format';
+import { SafetyCautions } from './safety-cautions';
+import { NumberField, SetupSection, attempt, mm, toNumber } from './tool-inputs';
+
+type Field = keyof SideSetup;
+
+const LABELS: Record<Field, { label: string; hint: string }> = {
+  barDiameterMm: { label: 'Support bar diameter', hint: 'The bar mounted parallel to the wheel’s face.' },
+  gapMm: { label: 'Gap, bar to face', hint: 'The shortest distance from the bar’s surface to the wheel’s side.' },
+  projectionMm: { label: 'Projection', hint: 'From the bar’s axis to the edge, along the blade.' },
+  offsetMm: { label: 'Blade-plane offset', hint: 'From the bar’s axis to the blade’s plane; 0 when the blade’s line passes through the axis.' },
+};
+
+/**
+ * Flat bevels on a wheel's side: the bar parallel to the face at a gap from it, so the angle per
+ * side is asin((gap + bar/2) / projection) (with the offset, L sin α − e cos α = gap + bar/2).
+ */
+export default function SideAngle() {
+  const id = useId();
+  // A 12 mm bar 24 mm from the face with a 120 mm projection: asin(30 / 120) = 14.48° per side.
+  const [text, setText] = useState<Record<Field, string>>({ barDiameterMm: '12', gapMm: '24', projectionMm: '120', offsetMm: '0' });
+  const [wantedText, setWantedText] = useState('15');
+
+  const setup = useMemo(() => {
+    const values = Object.fromEntries(Object.entries(text).map(([k, v]) => [k, toNumber(v)])) as unknown as SideSetup;
+    const missing = (Object.keys(text) as Field[]).filter((k) => !Number.isFinite(values[k]));
+    return { values, missing };
+  }, [text]);
+  const ready = setup.missing.length === 0;
+  const angle = useMemo(() => (ready ? attempt(() => sideAngleFromSetup(setup.values)) : null), [ready, setup.values]);
+  const wanted = toNumber(wantedText);
+  const gap = useMemo(() => {
+    if (!ready || !Number.isFinite(wanted)) return null;
+    const { barDiameterMm, projectionMm, offsetMm } = setup.values;
+    return attempt(() => sideGapForAngle({ barDiameterMm, projectionMm, offsetMm, perSideDeg: wanted }));
+  }, [ready, setup.values, wanted]);
+
+  const errorFor = (field: Field) => (setup.missing.includes(field) ? 'Enter a number' : angle?.field === field ? angle.error : undefined);
+
+  return (
+    <div className="flex flex-col gap-10">
+      <PageTitle
+        title="Flat bevels on a wheel’s side"
+        lead="Some CBN and diamond wheels may be used on their side, which grinds a flat bevel instead of a hollow one. With the support bar parallel to the wheel’s face, the angle per side is asin((gap + bar radius) / projection)."
+      >
+        Flat bevels on a wheel’s side
+      </PageTitle>
+
+      <Caution title="Only on a wheel made for it">
+        Grind on a wheel’s side only where its maker says the side may be used: many wheels, vitrified ones above all, must
+        never be loaded sideways. Follow the machine’s and the wheel’s instructions and your local regulations.
+      </Caution>
+
+      <SetupSection
+        id={id}
+        labels={LABELS}
+        text={text}
+        onChange={(field, v) => setText((s) => ({ ...s, [field]: v }))}
+        errorFor={errorFor}
+        angle={angle?.value}
+        drawing={
+        <figure className="min-w-0 rounded-md border border-rule bg-panel p-3">
+          {angle?.value ? (
+            <SideDrawing setup={setup.values} perSideDeg={angle.value.perSideDeg} />
+          ) : (
+            <p className="p-6 text-muted">The drawing appears when the edge can reach the wheel’s face.</p>
+          )}
+          <figcaption className="mt-2 text-sm text-muted">Seen from above, to scale: the wheel’s face on the left, the bar’s axis S.</figcaption>
+        </figure>
+        }
+      />
+
+      <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
+        <h2 id={`${id}-inverse`} className="text-2xl font-semibold">
+          The gap for the angle you want
+        </h2>
+        <div className="grid gap-4 md:grid-cols-[16rem_1fr] md:items-start">
+          <NumberField
+            id={`${id}-wanted`}
+            label="Wanted angle per side"
+            unit="°"
+            value={wantedText}
+            onChange={setWantedText}
+            error={!Number.isFinite(wanted) ? 'Enter a number' : gap?.field === 'perSideDeg' ? gap.error : undefined}
+          />
+          {gap && gap.field !== 'perSideDeg' ? (
+            <Facts
+              items={[
+                {
+                  term: 'Gap, bar to face',
+                  value: gap.value ? (
+                    <span>
+                      <strong className="font-semibold">{mm(gap.value.gapMm)}</strong>{' '}
+                      <span className="text-muted">with the projection of {mm(setup.values.projectionMm)}</span>
+                    </span>
+                  ) : (
+                    <span className="text-danger">{gap.error}</span>
+                  ),
+                },
+              ]}
+            />
+          ) : null}
+        </div>
+      </section>
+
+      <SafetyCautions />
+    </div>
+  );
+}
+
+/**
+ * The side setup from above, to scale: the face as a vertical line at x = 0, the bar's axis at
+ * x = gap + bar radius, the blade from the edge on the face out past the bar. Coordinates in mm.
+ */
+function SideDrawing({ setup, perSideDeg }: { setup: SideSetup; perSideDeg: number }) {
+  const titleId = useId();
+  const r = setup.barDiameterMm / 2;
+  const h = setup.gapMm + r;
+  const L = setup.projectionMm;
+  const e = setup.offsetMm ?? 0;
+  const a = (perSideDeg * Math.PI) / 180;
+  // Edge C on the face at the origin; the blade leaves the face at α, S = L u + e n (n towards the face).
+  const u = [Math.sin(a), Math.cos(a)];
+  const n = [-Math.cos(a), Math.sin(a)];
+  const S = [L * u[0] + e * n[0], L * u[1] + e * n[1]];
+  const tail = [1.4 * L * u[0], 1.4 * L * u[1]];
+  const pad = 0.1 * L;
+  const minX = -0.4 * L;
+  const maxX = Math.max(tail[0], S[0] + r, 0.6 * L) + pad;
+  const minY = -0.15 * L;
+  const maxY = Math.max(tail[1], S[1] + r) + pad;
+  const unit = Math.max(maxX - minX, maxY - minY) / 300; // strokes and text in proportion to the drawing
+  const arcR = 0.3 * L;
+  return (
+    <svg viewBox={`${minX} ${-maxY} ${maxX - minX} ${maxY - minY}`} className="mx-auto h-auto max-h-[26rem] w-full" role="img" aria-labelledby={titleId}>
+      <title id={titleId}>
+        {`Bar of ${formatNumber(setup.barDiameterMm)} mm at ${formatNumber(setup.gapMm)} mm from the wheel’s face, blade projecting ${formatNumber(L)} mm: ${formatDegrees(perSideDeg, 1)} per side.`}
+      </title>
+      <rect x={minX} y={-maxY} width={-minX} height={maxY - minY} className="fill-rule" />
+      <line x1={0} y1={-maxY} x2={0} y2={-minY} className="stroke-ink" strokeWidth={unit * 1.5} />
+      <line x1={0} y1={-S[1]} x2={S[0] - r} y2={-S[1]} className="stroke-muted" strokeWidth={unit} strokeDasharray={`${unit * 3} ${unit * 3}`} />
+      <circle cx={S[0]} cy={-S[1]} r={r} className="fill-rule stroke-ink" strokeWidth={unit} />
+      <text x={S[0] + r + unit * 4} y={-S[1] - r} className="fill-muted" fontSize={unit * 10}>
+        S
+      </text>
+      <line x1={0} y1={0} x2={tail[0]} y2={-tail[1]} className="stroke-accent-strong" strokeWidth={unit * 4} strokeLinecap="round" />
+      <path
+        d={`M 0 ${-arcR} A ${arcR} ${arcR} 0 0 1 ${arcR * Math.sin(a)} ${-arcR * Math.cos(a)}`}
+        className="fill-none stroke-caution"
+        strokeWidth={unit * 1.5}
+      />
+      <text x={arcR * Math.sin(a / 2) + unit * 4} y={-arcR * Math.cos(a / 2) - unit * 6} className="fill-caution font-semibold" fontSize={unit * 11}>
+        {formatDegrees(perSideDeg, 1)}
+      </text>
+      <circle cx={0} cy={0} r={unit * 2.5} className="fill-caution" />
+    </svg>
+  );
+}

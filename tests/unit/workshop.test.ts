@@ -1,0 +1,95 @@
+import { describe, expect, it } from 'vitest';
+import { angleFromSetup } from '@shared/geometry';
+import { coolantPlan, replacementForecast, settingsToday, sharpeningCost, type CoolantStep, type WorkshopWheel } from '@shared/workshop';
+
+const grinder = { id: 1, name: 'Wet grinder', spindleRpm: 90, barDiameterMm: 12 };
+const setup = { id: 7, name: 'Kitchen knife 15°', projectionMm: 140, perSideDeg: 15, offsetMm: 0 };
+const wheel = (id: number, original: number, diameters: [string, number, number?][] = [], wears = true): WorkshopWheel => ({
+  id,
+  name: `wheel ${id}`,
+  grinderId: 1,
+  wears,
+  originalDiameterMm: original,
+  minDiameterMm: wears ? 180 : null,
+  measurements: diameters.map(([measuredOn, diameterMm, sharpenings]) => ({ measuredOn, diameterMm, sharpenings: sharpenings ?? 0, dressed: false })),
+});
+
+describe('settings today', () => {
+  it('wheels of one diameter share one gap; a worn wheel gets its own, and says how far it moved', () => {
+    const cbnA = wheel(1, 250, [], false);
+    const cbnB = wheel(2, 250, [], false);
+    const worn = wheel(3, 250, [['2026-01-10', 246], ['2026-06-10', 240]]);
+    const settings = settingsToday([setup], [cbnA, cbnB, worn], [grinder]);
+    expect(settings).toHaveLength(2);
+    const shared = settings.find((s) => s.diameterMm === 250)!;
+    expect(shared.wheelIds).toEqual([1, 2]);
+    const wornSetting = settings.find((s) => s.diameterMm === 240)!;
+    // independent check: each gap, put back through the forward formula, grinds the setup's angle
+    expect(angleFromSetup({ wheelDiameterMm: 250, barDiameterMm: 12, gapMm: shared.gapMm!, projectionMm: 140 }).perSideDeg).toBeCloseTo(15, 9);
+    expect(angleFromSetup({ wheelDiameterMm: 240, barDiameterMm: 12, gapMm: wornSetting.gapMm!, projectionMm: 140 }).perSideDeg).toBeCloseTo(15, 9);
+    expect(wornSetting.movedFromNew).toHaveLength(1);
+    expect(wornSetting.movedFromNew[0].movedMm).toBeCloseTo(wornSetting.gapMm! - shared.gapMm!, 12);
+    // a smaller wheel needs the bar closer to its axis but the rim falls away faster: the gap grows
+    expect(wornSetting.movedFromNew[0].movedMm).toBeGreaterThan(0);
+  });
+
+  it('leaves out wheels without a grinder, and names why a setup cannot reach a wheel', () => {
+    const loose = { ...wheel(4, 250), grinderId: null };
+    expect(settingsToday([setup], [loose], [grinder])).toEqual([]);
+    const tooShort = settingsToday([{ ...setup, projectionMm: 10, perSideDeg: 5 }], [wheel(5, 250)], [grinder]);
+    expect(tooShort[0].gapMm).toBeNull();
+    expect(tooShort[0].reason).toMatch(/inside the wheel/);
+  });
+});
+
+describe('replacement forecast (least squares, by hand)', () => {
+  it('a wheel losing 1 mm every 10 days from 250 mm reaches 180 mm 700 days after the first measurement', () => {
+    const w = wheel(1, 250, [['2026-01-01', 250], ['2026-01-11', 249], ['2026-01-21', 248]]);
+    const f = replacementForecast(w)!;
+    expect(f.mmPer30Days).toBeCloseTo(3, 9);
+    expect(f.onDate).toBe(new Date(Date.UTC(2026, 0, 1) + 700 * 86400000).toISOString().slice(0, 10));
+    expect(f.points).toBe(3);
+  });
+
+  it('none for a wheel that keeps its diameter or with one date', () => {
+    expect(replacementForecast(wheel(1, 250, [['2026-01-01', 250]]))).toBeNull();
+    expect(replacementForecast(wheel(1, 250, [['2026-01-01', 250], ['2026-02-01', 250]], false))).toBeNull();
+  });
+});
+
+describe('cost per sharpening', () => {
+  it('dressable: usable range over diameter lost per sharpening (by hand)', () => {
+    // 250 → 246 mm over 40 sharpenings: 0.1 mm each; usable 250 − 180 = 70 mm → 700 sharpenings; 140 / 700 = 0.20
+    const w = { ...wheel(1, 250, [['2026-01-01', 250], ['2026-03-01', 246, 40]]), pricePaid: 140 };
+    expect(sharpeningCost(w, [])).toEqual({ costPerSharpening: 0.2, expectedSharpenings: 700, basis: 'measured-wear', restsOn: 40 });
+  });
+
+  it('fixed: the median reported life of retired wheels of the same abrasive, with n', () => {
+    const w = { ...wheel(2, 250, [], false), pricePaid: 300 };
+    const c = sharpeningCost(w, [1000, 1500, 2000])!;
+    expect(c).toMatchObject({ expectedSharpenings: 1500, basis: 'reported-life', restsOn: 3 });
+    expect(c.costPerSharpening).toBeCloseTo(0.2, 12);
+    expect(sharpeningCost(w, [])).toBeNull();
+  });
+});
+
+describe('coolant along a progression', () => {
+  const step = (label: string, coolant: CoolantStep['coolant'], micrometres: number): CoolantStep => ({ label, coolant, micrometres });
+
+  it('names each change, and a same-band swap that saves one (counted by hand)', () => {
+    // 98 µm (D107, φ band 3) plain water → 17 µm (band 5) inhibitor → 12 µm (band 6) water → 9 µm (band 6) inhibitor
+    const steps = [step('D107', 'water', 98), step('F400', 'water-inhibitor', 17.3), step('JIS 1000', 'water', 11.5), step('B76', 'water-inhibitor', 9)];
+    const plan = coolantPlan(steps);
+    expect(plan.changes.map((c) => c.afterStep)).toEqual([0, 1, 2]);
+    // the two band-6 steps swap: water, inhibitor, inhibitor, water → two changes
+    expect(plan.suggested.map((s) => s.label)).toEqual(['D107', 'F400', 'B76', 'JIS 1000']);
+    expect(plan.suggestedChanges).toHaveLength(2);
+  });
+
+  it('keeps the order as given when nothing would save a change, and never swaps across bands', () => {
+    const steps = [step('coarse', 'water', 200), step('fine', 'water-inhibitor', 10), step('finer', 'water', 3)];
+    const plan = coolantPlan(steps);
+    expect(plan.suggested).toEqual(steps);
+    expect(plan.suggestedChanges).toHaveLength(2);
+  });
+});
