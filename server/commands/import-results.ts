@@ -5,6 +5,7 @@ import { resultInputSchema, type ResultInput } from '@shared/schemas/result';
 import { importLimits, type ImportError, type ImportPreviewRow, type ImportReport } from '@shared/schemas/import';
 import { ComputationError } from '@shared/computation-error';
 import { deriveResult } from '@shared/derive-result';
+import { deriveProgression } from '@shared/progression';
 import type { GritStandard } from '@shared/grit';
 import type { AppContext } from '../context';
 import { badRequest, forbidden, HttpError } from '../errors';
@@ -120,10 +121,12 @@ export async function checkImport(bytes: Buffer): Promise<CheckedImport> {
           abrasive: abrasiveBySlug.get(input.abrasive)!,
           sharpnessMethod: methodBySlug.get(input.sharpness.method)!,
           retentionMethod: input.retention ? methodBySlug.get(input.retention.method)! : null,
+          stepAbrasives: new Map((input.progression ?? []).map((s) => [s.abrasive, abrasiveBySlug.get(s.abrasive)!])),
         };
         try {
           // Derive now, as storing would, so grit and setup problems are reported in the dry run.
           const derived = deriveResult(input, { standard: refs.abrasive.gritStandard as GritStandard, grade: refs.abrasive.gritGrade });
+          deriveProgression(input.progression, (slug) => refs.stepAbrasives.get(slug)!);
           valid.push({ row, input, refs });
           if (report.preview.length < importLimits.previewRows) {
             const preview: ImportPreviewRow = {

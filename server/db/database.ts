@@ -12,6 +12,7 @@ import * as m0005 from './migrations/0005-publishing';
 import * as m0006 from './migrations/0006-wheel-log';
 import * as m0007 from './migrations/0007-result-page-indexes';
 import * as m0008 from './migrations/0008-result-members-index';
+import * as m0011 from './migrations/0011-result-progression';
 
 /** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
 const migrations = [
@@ -22,6 +23,7 @@ const migrations = [
   { name: '0006-wheel-log', module: m0006 },
   { name: '0007-result-page-indexes', module: m0007 },
   { name: '0008-result-members-index', module: m0008 },
+  { name: '0011-result-progression', module: m0011 },
 ];
 
 export interface DatabaseOptions {

@@ -5,6 +5,7 @@ import { ComputationError } from '../computation-error';
 import { GRIT_STANDARDS, parseGrit } from '../grit';
 import { HARDNESS_SCALES, toHrc } from '../hardness';
 import { angleFromSetup } from '../geometry';
+import { checkProgressionGrits, progressionSchema } from '../progression';
 
 export const slugSchema = z
   .string()
@@ -42,6 +43,8 @@ export const resultInputSchema = z
       })
       .strict(),
     heatTreatment: z.string().trim().max(500).optional(),
+    /** The steps before the final abrasive (shared/progression.ts). */
+    progression: progressionSchema.optional(),
     abrasive: slugSchema,
     grit: z
       .object({
@@ -85,6 +88,7 @@ export const resultInputSchema = z
       const setup = input.edgeAngle.setup;
       check(['edgeAngle', 'setup'], () => angleFromSetup(setup));
     }
+    checkProgressionGrits(input.progression, (path, message) => ctx.addIssue({ code: 'custom', path, message }));
   });
 
 export type ResultInput = z.infer<typeof resultInputSchema>;
