@@ -212,7 +212,7 @@ export async function importResults(ctx: AppContext, actor: Actor, bytes: Buffer
 export function templateRows(): string[][] {
   return [
     [...IMPORT_COLUMNS],
-    ['aisi-d2', '61', 'HRC', 'yes', 'Hardened and tempered twice', 'cbn-electroplated-wheel-250-b126', 'iso6106', 'B126', '15', '', '', '', '', 'push-cut-test-v2', '180;175;190;170;185', 'card-cut-retention-v1', '240', 'Invented example row. Light passes, burr removed on a strop.'],
-    ['1.2379', '740 HV', '', 'no', '', 'alox-vitrified-wheel-250-coarse', '', '', '', '250', '12', '95', '160', 'push-cut-test-v2', '210;205;220;198;215', '', '', 'Invented example row: the angle comes from the wheel setup.'],
+    ['aisi-d2', '61', 'HRC', 'yes', 'Hardened and tempered twice', 'alox-vitrified-wheel-250-coarse > cbn-resin-wheel-250-b46 (iso6106 B64, 15°)', 'cbn-electroplated-wheel-250-b126', 'iso6106', 'B126', '15', '', '', '', '', 'push-cut-test-v2', '180;175;190;170;185', 'card-cut-retention-v1', '240', 'Invented example row. Light passes, burr removed on a strop.'],
+    ['1.2379', '740 HV', '', 'no', '', '', 'alox-vitrified-wheel-250-coarse', '', '', '', '250', '12', '95', '160', 'push-cut-test-v2', '210;205;220;198;215', '', '', 'Invented example row: the angle comes from the wheel setup.'],
   ];
 }

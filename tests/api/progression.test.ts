@@ -28,7 +28,7 @@ const input = (progression?: unknown) => ({
   edgeAngle: { perSideDeg: 16 },
   sharpness: { method: 'push-cut-test-v2', readingsG: [150, 160, 155] },
 });
-const post = (body: unknown) => member.agent.post('/api/results').set('X-CSRF-Token', member.csrf).send(body);
+const post = (body: object) => member.agent.post('/api/results').set('X-CSRF-Token', member.csrf).send(body);
 
 describe('a result’s progression', () => {
   it('is stored in order with each step’s µm (from its own grit, else its page’s) and given back by the API', async () => {
