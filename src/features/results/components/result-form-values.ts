@@ -11,11 +11,20 @@ import type { RichTextNode } from '@shared/rich-text';
 
 export type AngleMode = 'perSide' | 'setup';
 
+/** One progression step as the form holds it. */
+export interface ProgressionFormStep {
+  abrasive: string;
+  gritGrade: string;
+  perSideDeg: number;
+}
+
 /** What the form holds while a person fills it in. Lengths in mm, angles in degrees, readings in grams. */
 export interface ResultFormValues {
   steel: string;
   hardness: { value: number; scale: HardnessScale; measured: boolean };
   heatTreatment: string;
+  /** Steps before the final abrasive (progression-fields.tsx); an empty grit uses the abrasive's own. */
+  progression: ProgressionFormStep[];
   abrasive: string;
   grit: { standard: GritStandard | ''; grade: string };
   angleMode: AngleMode;
@@ -33,6 +42,7 @@ export const emptyResultForm: ResultFormValues = {
   steel: '',
   hardness: { value: Number.NaN, scale: 'HRC', measured: false },
   heatTreatment: '',
+  progression: [],
   abrasive: '',
   grit: { standard: '', grade: '' },
   angleMode: 'perSide',
@@ -77,6 +87,13 @@ export function toResultInput(v: ResultFormValues): Record<string, unknown> {
     input.retention = { method: v.retention.method, cuts: v.retention.cuts };
   }
   if (v.notes) input.notes = v.notes;
+  if (v.progression?.length) {
+    input.progression = v.progression.map((s) => ({
+      abrasive: s.abrasive,
+      ...(s.gritGrade.trim() ? { grit: { grade: s.gritGrade.trim() } } : {}),
+      ...(isBlankNumber(s.perSideDeg) ? {} : { perSideDeg: s.perSideDeg }),
+    }));
+  }
   return input;
 }
 
@@ -115,6 +132,8 @@ export function formFieldFor(path: string, mode: AngleMode): FieldPath<ResultFor
   if (path === 'retention') return 'retention.cuts';
   if (path === 'sharpness') return 'sharpness.readingsText';
   if (knownFields.has(path)) return path as FieldPath<ResultFormValues>;
+  const step = /^progression\.(\d+)\.(abrasive|grit|perSideDeg)/.exec(path);
+  if (step) return `progression.${Number(step[1])}.${step[2] === 'grit' ? 'gritGrade' : step[2]}` as FieldPath<ResultFormValues>;
   return null;
 }
 
