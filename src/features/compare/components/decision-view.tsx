@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import type { CompareRow } from '@shared/compare-view';
 import type { WordedShift, WithinEdgeSpread } from '@shared/compare-difference';
-import { GRIT_STANDARD_SHORT_LABELS, nearestGrade, type GritStandard } from '@shared/grit';
+import { GRIT_STANDARD_SHORT_LABELS, formatGrade, nearestGrade, type GritStandard } from '@shared/grit';
 import { paths } from '@/config/paths';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select } from '@/components/ui/field';
@@ -18,7 +18,7 @@ const NOTATIONS: GritStandard[] = ['jis', 'fepa-f', 'ansi', 'iso6106'];
 function bandGrade(row: CompareRow, notation: GritStandard): string {
   const centre = Math.sqrt(row.band.loUm * row.band.hiUm);
   const grade = nearestGrade(centre, notation);
-  return grade ? `≈ ${GRIT_STANDARD_SHORT_LABELS[notation]} ${grade.grade.replace(/^(F|#)/, notation === 'jis' ? '#' : '$1')}` : `outside ${GRIT_STANDARD_SHORT_LABELS[notation]}`;
+  return grade ? `≈ ${formatGrade({ standard: notation, grade: grade.grade })}` : `outside ${GRIT_STANDARD_SHORT_LABELS[notation]}`;
 }
 
 /** How much a cell's evidence is worth, in words. */
