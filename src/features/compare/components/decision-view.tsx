@@ -154,19 +154,20 @@ function ShiftDrawing({ shift, within, title }: { shift: WordedShift; within: Wi
   const hi = shift.interval?.hi ?? shift.estimate;
   const scatter = within?.medianSdG ?? 0;
   const extent = Math.max(Math.abs(lo), Math.abs(hi), scatter, 1) * 1.15;
-  const W = 600;
+  // Drawn 400 units wide and shown at most 36 rem wide, so labels stay readable on a phone and a desktop.
+  const W = 400;
   const x = (v: number) => 20 + ((v + extent) / (2 * extent)) * (W - 40);
   const ticks = [-extent, -extent / 2, 0, extent / 2, extent].map((t) => Math.round(t));
   return (
     <figure className="m-0">
-      <svg viewBox={`0 0 ${W} 92`} className="h-auto w-full" role="img" aria-label={`${title}: estimate ${formatNumber(shift.estimate, 0)} ${shift.unit}${shift.interval ? `, interval ${formatNumber(lo, 0)} to ${formatNumber(hi, 0)}` : ', no interval'}`}>
+      <svg viewBox={`0 0 ${W} 92`} className="h-auto w-full max-w-xl" role="img" aria-label={`${title}: estimate ${formatNumber(shift.estimate, 0)} ${shift.unit}${shift.interval ? `, interval ${formatNumber(lo, 0)} to ${formatNumber(hi, 0)}` : ', no interval'}`}>
         {scatter ? <rect x={x(-scatter)} y={18} width={x(scatter) - x(-scatter)} height={34} className="fill-accent-soft" /> : null}
         <line x1={x(0)} x2={x(0)} y1={10} y2={60} className="stroke-ink" strokeDasharray="3 3" />
         {shift.interval ? <line x1={x(lo)} x2={x(hi)} y1={35} y2={35} className="stroke-accent-strong" strokeWidth={6} strokeLinecap="round" /> : null}
         <circle cx={x(shift.estimate)} cy={35} r={7} className="fill-panel stroke-accent-strong" strokeWidth={3} />
         {ticks.map((t, i) => (
           <text key={i} x={x(t)} y={80} textAnchor="middle" className="fill-muted text-[13px]">
-            {t}
+            {String(t).replace('-', '−')}
           </text>
         ))}
       </svg>
