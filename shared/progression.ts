@@ -5,7 +5,7 @@
  * that name a progression. Pure: no I/O; page lookups are passed in.
  */
 import { z } from 'zod';
-import { limits } from './validations';
+import { slugSchema as slug } from './schemas/common';
 import { ComputationError } from './computation-error';
 import { GRIT_STANDARDS, formatGrade, formatMicrometres, parseGrit, type GritStandard } from './grit';
 import { ABRASIVE_MATERIALS } from './vocabulary';
@@ -13,12 +13,6 @@ import { ABRASIVE_MATERIALS } from './vocabulary';
 /** Most steps before the final abrasive. */
 export const PROGRESSION_MAX = 8;
 
-const slug = z
-  .string()
-  .trim()
-  .min(1, 'required')
-  .max(limits.slugMax)
-  .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, 'must be a slug: lower-case letters, digits and hyphens');
 
 /** One step: an abrasive page, optionally the grit used (else the page's) and the angle per side. */
 export const progressionStepSchema = z

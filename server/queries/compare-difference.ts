@@ -2,10 +2,7 @@ import type { z } from 'zod';
 import type { comparePairedQuerySchema } from '@shared/schemas/compare';
 import { cellDifference } from '@shared/compare-difference';
 import { Result } from '../models';
-import { cellsOf } from '../aggregates/comparison-cells';
-import { methodCells } from '../aggregates/cell-cache';
-import { presentCell, resolveView } from './compare-view';
-import { cellMembers } from './compare-cell';
+import { twoCells } from './compare-paired';
 
 /**
  * GET /api/compare/difference: cells A and B of one method as two independent samples of
@@ -14,14 +11,7 @@ import { cellMembers } from './compare-cell';
  * over their results (shared/compare-difference.ts), with both cells' figures.
  */
 export async function compareDifference(query: z.infer<typeof comparePairedQuerySchema>) {
-  const { a: refA, b: refB, ...filters } = query;
-  const view = await resolveView(filters);
-  const [membersA, membersB] = await Promise.all([cellMembers(view, refA, 'a'), cellMembers(view, refB, 'b')]);
-  const overall = (await methodCells(view.method.id, view.step)).overallMedianG;
-  const row = (members: typeof membersA) => {
-    const [c] = cellsOf(members, [view.step]);
-    return c ? presentCell(view, c, overall) : null;
-  };
+  const { view, membersA, membersB, row } = await twoCells(query);
   const a = row(membersA);
   const b = row(membersB);
   // The readings live in what was entered; only these results' are read.
