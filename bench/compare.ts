@@ -133,7 +133,7 @@ async function buildData() {
       ...(rand() < 0.3 ? { retention: { method: retention.slug, cuts: Math.round(100 + rand() * 400) } } : {}),
     };
     const author = pick(authorPool);
-    const r = resultRow(author.id, status, input, { steel, abrasive, sharpnessMethod: method, retentionMethod: input.retention ? retention : null });
+    const r = resultRow(author.id, status, input, { steel, abrasive, sharpnessMethod: method, retentionMethod: input.retention ? retention : null, stepAbrasives: new Map() });
     const createdAt = new Date(now - Math.floor(rand() * 730) * 86_400_000);
     return { ...r, approvedAt: status === 'approved' ? createdAt : null, createdAt, updatedAt: createdAt };
   };

@@ -88,6 +88,7 @@ export async function loadDemoData(db: Database, now = new Date()): Promise<{ lo
         abrasive: abrasiveBySlug.get(r.input.abrasive)!,
         sharpnessMethod: methodBySlug.get(r.input.sharpness.method)!,
         retentionMethod: r.input.retention ? methodBySlug.get(r.input.retention.method)! : null,
+        stepAbrasives: new Map((r.input.progression ?? []).map((s) => [s.abrasive, abrasiveBySlug.get(s.abrasive)!])),
       });
       const decidedAt = new Date(createdAt.getTime() + DAY_MS / 2);
       return { ...row, approvedAt: r.status === 'approved' ? decidedAt : null, createdAt, updatedAt: r.status === 'pending' ? createdAt : decidedAt };

@@ -4,6 +4,7 @@
  * spreadsheet formulas neutralised. Pure: no I/O; lookups of pages are passed in.
  */
 import type { RichTextNode } from './rich-text';
+import { parseProgressionCell } from './progression';
 
 /** Columns of the import file, in the template's order. */
 export const IMPORT_COLUMNS = [
@@ -12,6 +13,7 @@ export const IMPORT_COLUMNS = [
   'hardness_scale',
   'hardness_measured',
   'heat_treatment',
+  'progression',
   'abrasive',
   'grit_standard',
   'grit',
@@ -38,6 +40,7 @@ export const IMPORT_COLUMN_HELP: Record<ImportColumn, string> = {
   hardness_scale: 'HRC, HV, HBW or HRA (HRC when empty)',
   hardness_measured: 'yes when you measured it, no when the maker stated it (optional)',
   heat_treatment: 'heat treatment note (optional, plain text)',
+  progression: 'steps before the final abrasive, coarse to fine, separated by ">": each an abrasive slug or name, optionally with "(grit, angle°)", e.g. alox-vitrified-wheel-250-coarse > cbn-resin-wheel-250-b46 (15°) (optional)',
   abrasive: 'final abrasive page: its slug or its exact name',
   grit_standard: 'fepa-f, fepa-p, jis, ansi, ansi-bonded, mesh, iso6106 or um (optional)',
   grit: 'grit grade as labelled, e.g. F220, #4000, B126, 15 (optional: the abrasive page’s grit)',
@@ -73,6 +76,7 @@ const ALIASES: Record<ImportColumn, string[]> = {
   hardness_scale: ['scale', 'hardness_unit'],
   hardness_measured: ['measured', 'hardness_was_measured'],
   heat_treatment: ['heat_treat', 'ht', 'heattreatment'],
+  progression: ['steps', 'grit_progression', 'progression_steps'],
   abrasive: ['abrasive_slug', 'final_abrasive', 'stone', 'wheel'],
   grit_standard: ['standard', 'grit_system'],
   grit: ['grit_grade', 'final_grit'],
@@ -204,6 +208,12 @@ export function rowToResultInput(cells: Partial<Record<ImportColumn, string>>, l
 
   if (cell('heat_treatment')) input.heatTreatment = cell('heat_treatment');
 
+  if (cell('progression')) {
+    const parsed = parseProgressionCell(cell('progression'), (text) => lookup.abrasive(text));
+    for (const message of parsed.issues) issues.push({ column: 'progression', message });
+    if (!parsed.issues.length) input.progression = parsed.steps;
+  }
+
   const abrasiveText = cell('abrasive');
   if (!abrasiveText) issues.push({ column: 'abrasive', message: 'required: an abrasive slug or name' });
   else {
@@ -288,6 +298,8 @@ export function columnOfPath(path: readonly PropertyKey[]): ImportColumn | strin
       return 'heat_treatment';
     case 'abrasive':
       return 'abrasive';
+    case 'progression':
+      return 'progression';
     case 'grit':
       return second === 'standard' ? 'grit_standard' : 'grit';
     case 'edgeAngle': {

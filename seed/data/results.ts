@@ -30,6 +30,8 @@ export interface SeedResult {
 export const RESULT_COUNT = 300;
 /** Fixed seed of the generator, so every run yields the same data. */
 export const RESULT_SEED = 0x2f6b_1e09;
+/** The progressions' own generator seed. */
+const PROGRESSION_SEED = 0x5eed_0016;
 
 /** mulberry32: a tiny, well-known 32-bit PRNG; good enough for demo data, never for security. */
 export function mulberry32(seed: number): () => number {
@@ -397,7 +399,30 @@ export function generateResults(): SeedResult[] {
   while (results.length < RESULT_COUNT) {
     cell(rng.weighted(steelChoices), rng.weighted(abrasiveChoices), rng.chance(0.15) ? 1 : rng.int(2, 4), 3);
   }
+  addProgressions(results);
   return results;
+}
+
+/**
+ * Gives about four results in ten the steps that led to their final abrasive: one to three
+ * coarser abrasives, coarse to fine, the last often at a slightly lower angle. Drawn from a
+ * generator of its own, so the results themselves stay as they were before progressions.
+ */
+function addProgressions(results: SeedResult[]): void {
+  const rng = new Rng(PROGRESSION_SEED);
+  const sized = abrasives
+    .filter((a) => a.form !== 'compound' && !a.slug.startsWith('leather-strop'))
+    .map((a) => ({ slug: a.slug, um: particleUm(a.grit.standard, a.grit.grade) }));
+  for (const r of results) {
+    if (!rng.chance(0.4)) continue;
+    const final = abrasives.find((a) => a.slug === r.input.abrasive)!;
+    const finalUm = particleUm(r.input.grit?.standard ?? final.grit.standard, r.input.grit?.grade ?? final.grit.grade);
+    const coarser = sized.filter((a) => a.um > 1.5 * finalUm).sort((a, b) => b.um - a.um);
+    if (!coarser.length) continue;
+    const count = Math.min(coarser.length, rng.int(1, 3));
+    const chosen = pickDistinct(rng, coarser.map((a) => ({ item: a, weight: 1 })), count).sort((a, b) => b.um - a.um);
+    r.input.progression = chosen.map((a, i) => (i === chosen.length - 1 && rng.chance(0.3) ? { abrasive: a.slug, perSideDeg: 15 } : { abrasive: a.slug }));
+  }
 }
 
 function makeResult(

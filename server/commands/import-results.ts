@@ -5,6 +5,7 @@ import { resultInputSchema, type ResultInput } from '@shared/schemas/result';
 import { importLimits, type ImportError, type ImportPreviewRow, type ImportReport } from '@shared/schemas/import';
 import { ComputationError } from '@shared/computation-error';
 import { deriveResult } from '@shared/derive-result';
+import { deriveProgression } from '@shared/progression';
 import type { GritStandard } from '@shared/grit';
 import type { AppContext } from '../context';
 import { badRequest, forbidden, HttpError } from '../errors';
@@ -126,10 +127,12 @@ export async function checkImport(bytes: Buffer): Promise<CheckedImport> {
           abrasive: abrasiveBySlug.get(input.abrasive)!,
           sharpnessMethod: methodBySlug.get(input.sharpness.method)!,
           retentionMethod: input.retention ? methodBySlug.get(input.retention.method)! : null,
+          stepAbrasives: new Map((input.progression ?? []).map((s) => [s.abrasive, abrasiveBySlug.get(s.abrasive)!])),
         };
         try {
           // Derive now, as storing would, so grit and setup problems are reported in the dry run.
           const derived = deriveResult(input, { standard: refs.abrasive.gritStandard as GritStandard, grade: refs.abrasive.gritGrade });
+          deriveProgression(input.progression, (slug) => refs.stepAbrasives.get(slug)!);
           valid.push({ row, input, refs });
           if (report.preview.length < importLimits.previewRows) {
             const preview: ImportPreviewRow = {
@@ -215,7 +218,7 @@ export async function importResults(ctx: AppContext, actor: Actor, bytes: Buffer
 export function templateRows(): string[][] {
   return [
     [...IMPORT_COLUMNS],
-    ['aisi-d2', '61', 'HRC', 'yes', 'Hardened and tempered twice', 'cbn-electroplated-wheel-250-b126', 'iso6106', 'B126', '15', '', '', '', '', 'push-cut-test-v2', '180;175;190;170;185', 'card-cut-retention-v1', '240', 'Invented example row. Light passes, burr removed on a strop.'],
-    ['1.2379', '740 HV', '', 'no', '', 'alox-vitrified-wheel-250-coarse', '', '', '', '250', '12', '95', '160', 'push-cut-test-v2', '210;205;220;198;215', '', '', 'Invented example row: the angle comes from the wheel setup.'],
+    ['aisi-d2', '61', 'HRC', 'yes', 'Hardened and tempered twice', 'alox-vitrified-wheel-250-coarse > cbn-resin-wheel-250-b46 (iso6106 B64, 15°)', 'cbn-electroplated-wheel-250-b126', 'iso6106', 'B126', '15', '', '', '', '', 'push-cut-test-v2', '180;175;190;170;185', 'card-cut-retention-v1', '240', 'Invented example row. Light passes, burr removed on a strop.'],
+    ['1.2379', '740 HV', '', 'no', '', '', 'alox-vitrified-wheel-250-coarse', '', '', '', '250', '12', '95', '160', 'push-cut-test-v2', '210;205;220;198;215', '', '', 'Invented example row: the angle comes from the wheel setup.'],
   ];
 }

@@ -1,5 +1,6 @@
 import { can } from '@shared/permissions';
 import { deriveResult } from '@shared/derive-result';
+import { deriveProgression, progressionColumns } from '@shared/progression';
 import type { ResultInput, ResultStatus } from '@shared/schemas/result';
 import type { GritStandard } from '@shared/grit';
 import type { AppContext } from '../context';
@@ -23,19 +24,27 @@ function pageRef<T extends typeof Steel | typeof Abrasive | typeof Method>(model
 
 /** Looks up the pages a result refers to by slug; every unknown slug is a field issue. */
 export async function resolveReferences(input: ResultInput): Promise<ResultReferences> {
-  const [steel, abrasive, sharpnessMethod, retentionMethod] = await Promise.all([
+  const steps = input.progression ?? [];
+  const [steel, abrasive, sharpnessMethod, retentionMethod, ...stepPages] = await Promise.all([
     pageRef(Steel, input.steel),
     pageRef(Abrasive, input.abrasive),
     pageRef(Method, input.sharpness.method),
     input.retention ? pageRef(Method, input.retention.method) : Promise.resolve(null),
+    ...steps.map((s) => pageRef(Abrasive, s.abrasive)),
   ]);
   const issues: FieldIssue[] = [];
+  const stepAbrasives = new Map<string, Abrasive>();
+  steps.forEach((s, i) => {
+    const page = stepPages[i] as Abrasive | null;
+    if (page) stepAbrasives.set(s.abrasive, page);
+    else issues.push({ path: `progression.${i}.abrasive`, message: `no abrasive page "${s.abrasive}"` });
+  });
   if (!steel) issues.push({ path: 'steel', message: `no steel page "${input.steel}"` });
   if (!abrasive) issues.push({ path: 'abrasive', message: `no abrasive page "${input.abrasive}"` });
   if (!sharpnessMethod) issues.push({ path: 'sharpness.method', message: `no method page "${input.sharpness.method}"` });
   if (input.retention && !retentionMethod) issues.push({ path: 'retention.method', message: `no method page "${input.retention.method}"` });
   if (issues.length) throw badRequest('Invalid input.', issues);
-  return { steel: steel!, abrasive: abrasive!, sharpnessMethod: sharpnessMethod!, retentionMethod };
+  return { steel: steel!, abrasive: abrasive!, sharpnessMethod: sharpnessMethod!, retentionMethod, stepAbrasives };
 }
 
 /** The pages a result refers to. */
@@ -44,11 +53,14 @@ export interface ResultReferences {
   abrasive: Abrasive;
   sharpnessMethod: Method;
   retentionMethod: Method | null;
+  /** The progression's abrasive pages by slug. */
+  stepAbrasives: Map<string, Abrasive>;
 }
 
 /** The stored row of a result: what was entered, its references and its derived values. */
 export function resultRow(authorId: number, status: ResultStatus, input: ResultInput, refs: ResultReferences) {
   const derived = deriveResult(input, { standard: refs.abrasive.gritStandard as GritStandard, grade: refs.abrasive.gritGrade });
+  const progression = deriveProgression(input.progression, (slug) => refs.stepAbrasives.get(slug)!);
   return {
     authorId,
     status,
@@ -67,6 +79,8 @@ export function resultRow(authorId: number, status: ResultStatus, input: ResultI
     inclusiveDeg: derived.inclusiveDeg,
     sharpnessMedianG: derived.sharpnessMedianG,
     retentionCuts: input.retention?.cuts ?? null,
+    progression,
+    ...progressionColumns(progression),
     notesHtml: renderRichText(input.notes),
     approvedAt: null as Date | null,
   };

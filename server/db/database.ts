@@ -14,6 +14,7 @@ import * as m0008 from './migrations/0008-result-members-index';
 import * as m0009 from './migrations/0009-changes';
 import { ChangeFeed } from '../changes/feed';
 import * as m0010 from './migrations/0010-result-revisions';
+import * as m0011 from './migrations/0011-result-progression';
 import * as m0012 from './migrations/0012-workshop';
 
 /** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
@@ -27,6 +28,7 @@ const migrations = [
   { name: '0008-result-members-index', module: m0008 },
   { name: '0009-changes', module: m0009 },
   { name: '0010-result-revisions', module: m0010 },
+  { name: '0011-result-progression', module: m0011 },
   { name: '0012-workshop', module: m0012 },
 ];
 

@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
 import type { ResultInput, ResultRevisionStatus, ResultStatus } from '@shared/schemas/result';
+import type { DerivedStep } from '@shared/progression';
 import type { User } from './user';
 import type { Abrasive, Method, Steel } from './reference-pages';
 
@@ -27,6 +28,11 @@ export class Result extends Model<InferAttributes<Result>, InferCreationAttribut
   declare inclusiveDeg: number;
   declare sharpnessMedianG: number;
   declare retentionCuts: number | null;
+  /** The steps before the final abrasive with their derived µm (migration 0011). */
+  declare progression: CreationOptional<DerivedStep[]>;
+  declare progressionSteps: CreationOptional<number>;
+  /** Materials met along the progression, ",cbn,diamond," ('' for none). */
+  declare progressionMaterials: CreationOptional<string>;
   declare notesHtml: CreationOptional<string>;
   declare approvedAt: Date | null;
   declare createdAt: CreationOptional<Date>;
@@ -60,6 +66,9 @@ export class Result extends Model<InferAttributes<Result>, InferCreationAttribut
         inclusiveDeg: { type: DataTypes.FLOAT, allowNull: false },
         sharpnessMedianG: { type: DataTypes.FLOAT, allowNull: false },
         retentionCuts: { type: DataTypes.INTEGER, allowNull: true },
+        progression: { type: DataTypes.JSON, allowNull: false, defaultValue: [] },
+        progressionSteps: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        progressionMaterials: { type: DataTypes.STRING(200), allowNull: false, defaultValue: '' },
         notesHtml: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         approvedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,

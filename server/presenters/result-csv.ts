@@ -1,5 +1,6 @@
 import { IMPORT_COLUMNS, toCsv, type CsvValue } from '@shared/csv';
 import { richTextToPlain } from '@shared/rich-text';
+import { progressionCell } from '@shared/progression';
 import type { Result } from '../models';
 
 /** Extra columns of an export after the import columns: what the server derived and the state. */
@@ -21,6 +22,7 @@ export function resultsCsv(results: Result[]): string {
       hardness_scale: i.hardness.scale,
       hardness_measured: i.hardness.measured,
       heat_treatment: i.heatTreatment,
+      progression: progressionCell(i.progression),
       abrasive: i.abrasive,
       grit_standard: i.grit?.standard,
       grit: i.grit?.grade,

@@ -29,6 +29,15 @@ export function presentResult(result: Result, viewer: Actor | null) {
     steelName: result.steel?.name ?? input.steel,
     hardness: input.hardness,
     heatTreatment: input.heatTreatment,
+    /** The steps before the final abrasive, as stored with their derived sizes. */
+    progression: (result.progression ?? []).map((s) => ({
+      abrasive: s.abrasive,
+      material: s.material,
+      materialLabel: ABRASIVE_MATERIALS[s.material as keyof typeof ABRASIVE_MATERIALS] ?? s.material,
+      grit: { standard: s.gritStandard, grade: s.gritGrade },
+      gritUm: round(s.gritUm, 3),
+      perSideDeg: s.perSideDeg,
+    })),
     abrasive: input.abrasive,
     abrasiveName: result.abrasive?.name ?? input.abrasive,
     abrasiveMaterial: result.material,

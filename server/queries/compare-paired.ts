@@ -8,12 +8,10 @@ import { presentCell, resolveView } from './compare-view';
 import { cellMembers, handlesOf } from './compare-cell';
 
 /**
- * GET /api/compare/paired: the tester-adjusted comparison of cells A and B of one method: for
- * each tester who measured both, their own median in A minus their own median in B; the median
- * of those differences with a distribution-free 95 % interval (shared/compare-paired.ts), beside
- * the plain difference of the two cells' medians.
+ * The view of a two-cell query (paired, difference), each cell's results under its filters,
+ * and a function that gives a set of them as the cell row the API shows.
  */
-export async function comparePaired(query: z.infer<typeof comparePairedQuerySchema>) {
+export async function twoCells(query: z.infer<typeof comparePairedQuerySchema>) {
   const { a: refA, b: refB, ...filters } = query;
   const view = await resolveView(filters);
   const [membersA, membersB] = await Promise.all([cellMembers(view, refA, 'a'), cellMembers(view, refB, 'b')]);
@@ -22,6 +20,17 @@ export async function comparePaired(query: z.infer<typeof comparePairedQuerySche
     const [c] = cellsOf(members, [view.step]);
     return c ? presentCell(view, c, overall) : null;
   };
+  return { view, membersA, membersB, row };
+}
+
+/**
+ * GET /api/compare/paired: the tester-adjusted comparison of cells A and B of one method: for
+ * each tester who measured both, their own median in A minus their own median in B; the median
+ * of those differences with a distribution-free 95 % interval (shared/compare-paired.ts), beside
+ * the plain difference of the two cells' medians.
+ */
+export async function comparePaired(query: z.infer<typeof comparePairedQuerySchema>) {
+  const { view, membersA, membersB, row } = await twoCells(query);
   const paired = pairedComparison(membersA, membersB);
   const handles = await handlesOf(paired.pairs.map((p) => p.authorId));
   return {

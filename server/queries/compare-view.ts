@@ -107,6 +107,8 @@ export async function resultWhere(view: ResolvedView): Promise<WhereOptions<Resu
     const bonds = new Set<string>(f.bond);
     where.abrasiveId = [...view.look.abrasives.values()].filter((a) => bonds.has(a.bond)).map((a) => a.id);
   }
+  if (f.via) where[Op.or] = f.via.map((m) => ({ progressionMaterials: { [Op.like]: `%,${m},%` } }));
+  if (f.steps) where.progressionSteps = f.steps.map(Number);
   if (f.publisher) {
     const publishers = await User.findAll({ where: { role: 'publisher' }, attributes: ['id'], raw: true });
     where.authorId = publishers.map((u) => u.id);
@@ -198,6 +200,8 @@ export function filtersInWords(view: ResolvedView): string {
   if (f.umMin !== undefined || f.umMax !== undefined) parts.push(`particle size ${f.umMin ?? 0}–${f.umMax ?? '∞'} µm`);
   if (f.hrcMin !== undefined || f.hrcMax !== undefined) parts.push(`hardness ${f.hrcMin ?? 'any'}–${f.hrcMax ?? 'any'} HRC`);
   if (f.angleMin !== undefined || f.angleMax !== undefined) parts.push(`angle ${f.angleMin ?? 'any'}–${f.angleMax ?? 'any'}° per side`);
+  if (f.via) parts.push(`progression through ${f.via.map(materialLabel).join(' or ')}`);
+  if (f.steps) parts.push(`${f.steps.join(' or ')} steps before the final abrasive`);
   if (f.publisher) parts.push('publishers only');
   if (f.postedFrom || f.postedTo) parts.push(`posted ${f.postedFrom ?? 'any day'} to ${f.postedTo ?? 'today'}`);
   return parts.join('; ');

@@ -1,4 +1,13 @@
 import { z } from 'zod';
+import { limits } from '../validations';
 
 /** The query of a route that takes none: any parameter is an unknown field, refused with 400. */
 export const emptyQuerySchema = z.object({}).strict();
+
+/** A page's slug: lower-case letters, digits and single hyphens. */
+export const slugSchema = z
+  .string()
+  .trim()
+  .min(1, 'required')
+  .max(limits.slugMax)
+  .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, 'must be a slug: lower-case letters, digits and hyphens');

@@ -1,6 +1,10 @@
 import { z } from 'zod';
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '../vocabulary';
 import { limits } from '../validations';
+import { PROGRESSION_MAX } from '../progression';
+
+/** Step counts a progression filter accepts, as query text. */
+const PROGRESSION_STEP_COUNTS = Array.from({ length: PROGRESSION_MAX + 1 }, (_, i) => String(i)) as [string, ...string[]];
 
 /**
  * The comparison's query: which cells (method × steel × abrasive material × grit band) to show,
@@ -114,6 +118,10 @@ export const compareFilterShape = {
   /** Posted on or after / on or before this day (UTC). */
   postedFrom: day,
   postedTo: day,
+  /** Only results whose progression passed through one of these abrasive materials. */
+  via: listOf(z.enum(keys(ABRASIVE_MATERIALS)), 20),
+  /** Only results with one of these numbers of steps before the final abrasive (0: none recorded). */
+  steps: listOf(z.enum(PROGRESSION_STEP_COUNTS, { message: `must be a whole number of steps, 0 to ${PROGRESSION_MAX}` }), PROGRESSION_MAX + 1),
 };
 
 const orderedPairs = <T extends Record<string, unknown>>(schema: z.ZodType<T>) =>
@@ -206,4 +214,4 @@ export const comparePointsQuerySchema = orderedPairs(
 );
 
 /** Which query keys are filters (everything the precomputed cells can answer is the rest). */
-export const LIVE_FILTER_KEYS = ['bond', 'hrcMin', 'hrcMax', 'angleMin', 'angleMax', 'publisher', 'postedFrom', 'postedTo'] as const;
+export const LIVE_FILTER_KEYS = ['bond', 'hrcMin', 'hrcMax', 'angleMin', 'angleMax', 'publisher', 'postedFrom', 'postedTo', 'via', 'steps'] as const;

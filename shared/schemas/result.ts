@@ -5,13 +5,11 @@ import { ComputationError } from '../computation-error';
 import { GRIT_STANDARDS, parseGrit } from '../grit';
 import { HARDNESS_SCALES, toHrc } from '../hardness';
 import { angleFromSetup } from '../geometry';
+import { slugSchema } from './common';
+import { checkProgressionGrits, progressionSchema } from '../progression';
 
-export const slugSchema = z
-  .string()
-  .trim()
-  .min(1, 'required')
-  .max(limits.slugMax)
-  .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, 'must be a slug: lower-case letters, digits and hyphens');
+/** A page's slug (in ./common.ts, so that shared/progression.ts can use it without a cycle). */
+export { slugSchema };
 
 export const wheelSetupSchema = z
   .object({
@@ -50,6 +48,8 @@ export const resultInputSchema = z
       })
       .strict(),
     heatTreatment: z.string().trim().max(500).optional(),
+    /** The steps before the final abrasive (shared/progression.ts). */
+    progression: progressionSchema.optional(),
     abrasive: slugSchema,
     grit: z
       .object({
@@ -93,6 +93,7 @@ export const resultInputSchema = z
       const setup = input.edgeAngle.setup;
       check(['edgeAngle', 'setup'], () => angleFromSetup(setup));
     }
+    checkProgressionGrits(input.progression, (path, message) => ctx.addIssue({ code: 'custom', path, message }));
   });
 
 export type ResultInput = z.infer<typeof resultInputSchema>;

@@ -33,6 +33,7 @@ const routes: RouteObject[] = [
       { path: paths.compare.path, ...page(() => import('./routes/compare')) },
       { path: paths.steels.path, ...page(() => import('./routes/steels')) },
       { path: paths.steel.path, ...page(() => import('./routes/steel')) },
+      { path: paths.decide.path, ...page(() => import('./routes/decide')) },
       { path: paths.abrasives.path, ...page(() => import('./routes/abrasives')) },
       { path: paths.abrasive.path, ...page(() => import('./routes/abrasive')) },
       { path: paths.methods.path, ...page(() => import('./routes/methods')) },

@@ -51,6 +51,11 @@ export const paths = {
   compare: { path: '/compare', getHref: (filters: CompareFilters = {}) => withQuery('/compare', { ...filters }) },
   steels: { path: '/steels', getHref: () => '/steels' },
   steel: { path: '/steels/:slug', getHref: (slug: string) => `/steels/${encodeURIComponent(slug)}` },
+  /** A steel's decision view: its options side by side and the difference between two. */
+  decide: {
+    path: '/steels/:slug/decide',
+    getHref: (slug: string, params: Record<string, string | undefined> = {}) => withQuery(`/steels/${encodeURIComponent(slug)}/decide`, params),
+  },
   abrasives: { path: '/abrasives', getHref: () => '/abrasives' },
   abrasive: { path: '/abrasives/:slug', getHref: (slug: string) => `/abrasives/${encodeURIComponent(slug)}` },
   methods: { path: '/methods', getHref: () => '/methods' },

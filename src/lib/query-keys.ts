@@ -34,6 +34,7 @@ export const queryKeys = {
     table: (filters: CompareFilters) => ['compare', filters] as const,
     cell: (params: CompareFilters) => ['compare', 'cell', params] as const,
     paired: (params: CompareFilters) => ['compare', 'paired', params] as const,
+    difference: (params: CompareFilters) => ['compare', 'difference', params] as const,
     points: (params: CompareFilters) => ['compare', 'points', params] as const,
   },
   search: {

@@ -160,7 +160,7 @@ describe('the live filters answered from memory', () => {
         ...(retention && rand() < 0.3 ? { retention: { method: retention.slug, cuts: Math.round(100 + rand() * 400) } } : {}),
       };
       const createdAt = new Date(now - Math.floor(rand() * 900 * 86_400_000));
-      const r = resultRow(pick(authors).id, rand() < 0.9 ? 'approved' : 'pending', input as never, { steel, abrasive, sharpnessMethod: method, retentionMethod: input.retention ? retention : null });
+      const r = resultRow(pick(authors).id, rand() < 0.9 ? 'approved' : 'pending', input as never, { steel, abrasive, sharpnessMethod: method, retentionMethod: input.retention ? retention : null, stepAbrasives: new Map() });
       return { ...r, approvedAt: r.status === 'approved' ? createdAt : null, createdAt, updatedAt: createdAt };
     });
     await server.ctx.db.write((transaction) => Result.bulkCreate(rows, { transaction, validate: false }));

@@ -29,6 +29,9 @@ export default function SteelRoute() {
       <div className="-mt-3 flex flex-wrap items-center gap-2">
         <FollowButton pageType="steel" slug={page.data.slug} name={page.data.name} />
         <FlagForm subjectType="steel" subject={page.data.slug} what="this page" />
+        <Link to={paths.decide.getHref(page.data.slug)} className="font-semibold">
+          Choose an abrasive for {page.data.name}
+        </Link>
       </div>
       <SteelDetail steel={page.data} />
     </article>

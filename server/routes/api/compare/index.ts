@@ -14,11 +14,13 @@ import type { AnswerCache } from '../../../middleware/answer-cache';
 import { compareBody, compareExport } from '../../../queries/compare';
 import { compareCell } from '../../../queries/compare-cell';
 import { comparePaired } from '../../../queries/compare-paired';
+import { compareDifference } from '../../../queries/compare-difference';
 import { comparePoints } from '../../../queries/compare-points';
 
 /**
  * The comparison under /api/compare: the table (and pivot), its export, a cell's results, the
- * tester-paired comparison of two cells, and the chart points. All read approved results only.
+ * tester-paired comparison of two cells, their difference as independent samples, and the chart
+ * points. All read approved results only.
  */
 export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   const router = Router();
@@ -52,6 +54,11 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
 
   router.get('/compare/paired', validate({ query: comparePairedQuerySchema }), async (req, res) => {
     res.json(await comparePaired(req.valid.query as z.infer<typeof comparePairedQuerySchema>));
+  });
+
+  // Two cells as independent samples; the same query as the paired comparison.
+  router.get('/compare/difference', kept, validate({ query: comparePairedQuerySchema }), async (req, res) => {
+    res.json(await compareDifference(req.valid.query as z.infer<typeof comparePairedQuerySchema>));
   });
 
   router.get('/compare/points', validate({ query: comparePointsQuerySchema }), async (req, res) => {

@@ -54,7 +54,14 @@ export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, p
       column.accessor('steelName', {
         id: 'steel',
         header: 'Steel',
-        cell: (info) => <Link to={paths.steel.getHref(info.row.original.steel)}>{info.getValue()}</Link>,
+        cell: (info) => (
+          <>
+            <Link to={paths.steel.getHref(info.row.original.steel)}>{info.getValue()}</Link>{' '}
+            <Link to={paths.decide.getHref(info.row.original.steel, { method: info.row.original.method })} className="text-sm" aria-label={`Choose an abrasive for ${info.getValue()}`} title={`Choose an abrasive for ${info.getValue()}`}>
+              (choose)
+            </Link>
+          </>
+        ),
       }),
       column.accessor('materialLabel', { id: 'material', header: 'Abrasive material' }),
       column.accessor((r) => r.band.phi, {

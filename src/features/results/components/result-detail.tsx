@@ -92,6 +92,21 @@ export function ResultDetail({
             {result.hardness.measured === undefined ? '' : result.hardness.measured ? ', measured' : ', as stated'}
           </Row>
           {result.heatTreatment ? <Row term="Heat treatment">{result.heatTreatment}</Row> : null}
+          {result.progression?.length ? (
+            <Row term="Progression">
+              <ol className="list-decimal pl-5">
+                {result.progression.map((s, i) => (
+                  <li key={i}>
+                    <Link to={paths.abrasive.getHref(s.abrasive)}>{s.abrasive}</Link>
+                    <span className="text-muted">
+                      {' '}
+                      · {s.materialLabel}, {s.grit.grade} (≈ {formatMicrometres(s.gritUm)} µm){s.perSideDeg !== null ? `, ${formatNumber(s.perSideDeg, 1)}° per side` : ''}
+                    </span>
+                  </li>
+                ))}
+              </ol>
+            </Row>
+          ) : null}
           <Row term="Final abrasive">
             <Link to={paths.abrasive.getHref(result.abrasive)}>{result.abrasiveName}</Link>
             <span className="text-muted">

@@ -12,11 +12,20 @@ import type { ResultInput } from '@shared/schemas/result';
 
 export type AngleMode = 'perSide' | 'setup';
 
+/** One progression step as the form holds it. */
+export interface ProgressionFormStep {
+  abrasive: string;
+  gritGrade: string;
+  perSideDeg: number;
+}
+
 /** What the form holds while a person fills it in. Lengths in mm, angles in degrees, readings in grams. */
 export interface ResultFormValues {
   steel: string;
   hardness: { value: number; scale: HardnessScale; measured: boolean };
   heatTreatment: string;
+  /** Steps before the final abrasive (progression-fields.tsx); an empty grit uses the abrasive's own. */
+  progression: ProgressionFormStep[];
   abrasive: string;
   grit: { standard: GritStandard | ''; grade: string };
   angleMode: AngleMode;
@@ -34,6 +43,7 @@ export const emptyResultForm: ResultFormValues = {
   steel: '',
   hardness: { value: Number.NaN, scale: 'HRC', measured: false },
   heatTreatment: '',
+  progression: [],
   abrasive: '',
   grit: { standard: '', grade: '' },
   angleMode: 'perSide',
@@ -78,6 +88,13 @@ export function toResultInput(v: ResultFormValues): Record<string, unknown> {
     input.retention = { method: v.retention.method, cuts: v.retention.cuts };
   }
   if (v.notes) input.notes = v.notes;
+  if (v.progression?.length) {
+    input.progression = v.progression.map((s) => ({
+      abrasive: s.abrasive,
+      ...(s.gritGrade.trim() ? { grit: { grade: s.gritGrade.trim() } } : {}),
+      ...(isBlankNumber(s.perSideDeg) ? {} : { perSideDeg: s.perSideDeg }),
+    }));
+  }
   return input;
 }
 
@@ -98,6 +115,7 @@ export function fromResultInput(input: ResultInput): ResultFormValues {
     sharpness: { method: input.sharpness.method, readingsText: input.sharpness.readingsG.join(', ') },
     retention: { method: input.retention?.method ?? '', cuts: input.retention?.cuts ?? Number.NaN },
     notes: (input.notes as RichTextNode | undefined) ?? null,
+    progression: (input.progression ?? []).map((s) => ({ abrasive: s.abrasive, gritGrade: s.grit?.grade ?? '', perSideDeg: s.perSideDeg ?? Number.NaN })),
   };
 }
 
@@ -136,6 +154,8 @@ export function formFieldFor(path: string, mode: AngleMode): FieldPath<ResultFor
   if (path === 'retention') return 'retention.cuts';
   if (path === 'sharpness') return 'sharpness.readingsText';
   if (knownFields.has(path)) return path as FieldPath<ResultFormValues>;
+  const step = /^progression\.(\d+)\.(abrasive|grit|perSideDeg)/.exec(path);
+  if (step) return `progression.${Number(step[1])}.${step[2] === 'grit' ? 'gritGrade' : step[2]}` as FieldPath<ResultFormValues>;
   return null;
 }
 

@@ -1,4 +1,5 @@
 import { lazy, Suspense, useMemo, useState, type ReactNode } from 'react';
+import { ProgressionFields } from './progression-fields';
 import { Controller, useForm, useWatch, type FieldError, type FieldErrors, type Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { GRIT_STANDARD_LABELS, GRIT_STANDARD_SHORT_LABELS, GRIT_STANDARDS, gritBand, parseGrit, type GritStandard } from '@shared/grit';
@@ -339,6 +340,8 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
           />
         </Field>
       </Fieldset>
+
+      <ProgressionFields control={control} register={register} errors={errors} abrasives={abrasives} />
 
       <Fieldset legend="Final abrasive and grit">
         <Field

@@ -54,6 +54,11 @@ export function SearchHits({ hits, query, facets }: { hits: SearchHit[]; query: 
                     ) : (
                       <span className="font-semibold">{hit.title}</span>
                     )}
+                    {hit.type === 'steel' && hit.slug ? (
+                      <Link to={paths.decide.getHref(hit.slug)} className="ml-3 text-sm">
+                        Choose an abrasive for it
+                      </Link>
+                    ) : null}
                     {hit.snippet ? (
                       <p className="mt-0.5 text-sm text-muted">
                         <Highlight text={hit.snippet} query={query} />
