@@ -1,9 +1,10 @@
 /**
  * The result import file (CSV): its columns, the header spellings accepted for each, the
- * mapping of one row to the same input the new-result form posts, and CSV writing with
- * spreadsheet formulas neutralised. Pure: no I/O; lookups of pages are passed in.
+ * mapping of one row to the same input the new-result form posts, and the error report (written
+ * by shared/csv-writer.ts). Pure: no I/O; lookups of pages are passed in.
  */
 import type { RichTextNode } from './rich-text';
+import { toCsv } from './csv-writer';
 
 /** Columns of the import file, in the template's order. */
 export const IMPORT_COLUMNS = [
@@ -304,32 +305,6 @@ export function columnOfPath(path: readonly PropertyKey[]): ImportColumn | strin
     default:
       return first ?? '(row)';
   }
-}
-
-/** A cell value for a CSV file: numbers and booleans as written, text as is. */
-export type CsvValue = string | number | boolean | null | undefined;
-
-/**
- * Makes a text cell safe to open in a spreadsheet: a cell starting with =, +, -, @, a tab or a
- * carriage return would be read as a formula (CSV injection), so it gets a leading apostrophe,
- * which spreadsheets show as text (OWASP, "CSV Injection").
- */
-export function neutraliseFormula(text: string): string {
-  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
-}
-
-/** One CSV cell: formulas neutralised, quoted when it holds a comma, quote or line break (RFC 4180). */
-export function csvCell(value: CsvValue): string {
-  if (value === null || value === undefined) return '';
-  if (typeof value === 'number') return Number.isFinite(value) ? String(value) : '';
-  if (typeof value === 'boolean') return value ? 'yes' : 'no';
-  const safe = neutraliseFormula(value);
-  return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
-}
-
-/** Rows → CSV text with CRLF line ends (RFC 4180), every text cell neutralised. */
-export function toCsv(rows: CsvValue[][]): string {
-  return rows.map((r) => r.map(csvCell).join(',')).join('\r\n') + '\r\n';
 }
 
 /** The downloadable error report of an import: one line per problem. */
