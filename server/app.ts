@@ -19,6 +19,9 @@ import { sessionLifetime } from './middleware/session-lifetime';
 import { configureLogging, logError, logger } from './logging';
 import type { MailCatcher } from './mail/mail-catcher';
 
+/** Where the API is mounted: its versioned paths first, then the unversioned alias. */
+export const API_MOUNTS = ['/api/v1', '/api'];
+
 export interface AppOptions {
   /** Folder of the built client; served with an SPA fallback when it exists. */
   clientDir?: string;
@@ -40,7 +43,7 @@ export function sessionCookieName(isProduction: boolean): string {
  */
 export function needsSession(req: Request, cookieName: string): boolean {
   if (req.method !== 'GET' && req.method !== 'HEAD') return true;
-  if (req.path === '/api/session' || req.path.startsWith('/auth/')) return true;
+  if (req.path === '/api/v1/session' || req.path === '/api/session' || req.path.startsWith('/auth/')) return true;
   return (req.headers.cookie ?? '').split(';').some((c) => c.trimStart().startsWith(`${cookieName}=`));
 }
 
@@ -123,7 +126,9 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use('/api', limits.posts, limits.uploads);
 
   app.use('/auth', authRouter(ctx, auth));
-  app.use('/api', apiRouter(ctx, { mailCatcher: options.mailCatcher, answers, searchLimit: limits.search }));
+  // The API is versioned: /api/v1/… are its paths; the unversioned /api/… answers the same
+  // (an alias kept for scripts written before the version, README "API").
+  app.use(API_MOUNTS, apiRouter(ctx, { mailCatcher: options.mailCatcher, answers, searchLimit: limits.search }));
 
   const clientDir = options.clientDir;
   if (clientDir && fs.existsSync(path.join(clientDir, 'index.html'))) {

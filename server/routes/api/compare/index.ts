@@ -17,6 +17,7 @@ import { compareBody, compareExport } from '../../../queries/compare';
 import { compareCell } from '../../../queries/compare-cell';
 import { comparePaired } from '../../../queries/compare-paired';
 import { comparePoints } from '../../../queries/compare-points';
+import { setPageLinks } from '../../../presenters/page-links';
 
 /**
  * The comparison under /api/compare: the table (and pivot), its export, a cell's results, the
@@ -29,9 +30,9 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   const kept = answers.keep([onPagesChanged, onCellsChanged, onUsersChanged], { forEveryone: true });
 
   router.get('/compare', kept, validate({ query: compareQuerySchema }), async (req, res) => {
-    const { body, etag } = await compareBody(req.valid.query as z.infer<typeof compareQuerySchema>);
+    const { body, etag, page } = await compareBody(req.valid.query as z.infer<typeof compareQuerySchema>);
     // Express would hash the body again for its ETag; this one was made once, with the body.
-    res.set('ETag', etag);
+    setPageLinks(req, res, page).set('ETag', etag);
     if (req.fresh) {
       res.status(304).end();
       return;
@@ -50,7 +51,8 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   });
 
   router.get('/compare/cell', validate({ query: compareCellQuerySchema }), async (req, res) => {
-    res.json(await compareCell(req.valid.query as z.infer<typeof compareCellQuerySchema>, actorOf(req)));
+    const cell = await compareCell(req.valid.query as z.infer<typeof compareCellQuerySchema>, actorOf(req));
+    setPageLinks(req, res, cell).json(cell);
   });
 
   router.get('/compare/paired', validate({ query: comparePairedQuerySchema }), async (req, res) => {

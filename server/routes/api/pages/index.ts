@@ -167,7 +167,7 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
         res
           .status(301)
           .set('Cache-Control', 'no-store')
-          .location(`/api/${section}/${survivor.slug}`)
+          .location(`${req.baseUrl}/${section}/${survivor.slug}`)
           .json({ redirectTo: survivor.slug, mergedInto: { slug: survivor.slug, name: survivor.name } });
         return;
       }

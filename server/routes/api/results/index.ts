@@ -11,6 +11,7 @@ import { submitResult } from '../../../commands/submit-result';
 import { reviewResult } from '../../../commands/review-result';
 import { findResult, listResults } from '../../../queries/results';
 import { presentResult } from '../../../presenters/result';
+import { setPageLinks } from '../../../presenters/page-links';
 import { reviewDeskRevisions } from '../../../queries/pages';
 import { bulkApproveSchema, retractInputSchema, reviewDeskQuerySchema, type ReviewDeskQuery } from '@shared/schemas/publishing';
 import { deskResultItems, openFlags, pendingImports } from '../../../queries/review-desk';
@@ -31,7 +32,7 @@ export function resultsRouter(ctx: AppContext): Router {
   router.get('/results', validate({ query: resultListQuerySchema }), async (req, res) => {
     const viewer = actorOf(req);
     const page = await listResults(req.valid.query as z.infer<typeof resultListQuerySchema>, viewer);
-    res.json({ ...page, items: page.items.map((r) => presentResult(r, viewer)) });
+    setPageLinks(req, res, page).json({ ...page, items: page.items.map((r) => presentResult(r, viewer)) });
   });
 
   router.get('/results/:id', validate({ params: idParams }), async (req, res) => {
