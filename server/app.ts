@@ -10,6 +10,7 @@ import { CachedSessionStore } from './auth/cached-session-store';
 import { configurePassport } from './auth/passport';
 import { authRouter } from './routes/auth';
 import { apiRouter } from './routes/api';
+import { apiReference } from './openapi/reference';
 import { AnswerCache } from './middleware/answer-cache';
 import { bearerToken } from './middleware/bearer-token';
 import { errorHandler, SIGN_IN_FAILED_PATH } from './middleware/error-handler';
@@ -128,6 +129,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use('/auth', authRouter(ctx, auth));
   // The API is versioned: /api/v1/… are its paths; the unversioned /api/… answers the same
   // (an alias kept for scripts written before the version, README "API").
+  app.use('/api/v1/reference', apiReference());
   app.use(API_MOUNTS, apiRouter(ctx, { mailCatcher: options.mailCatcher, answers, searchLimit: limits.search }));
 
   const clientDir = options.clientDir;

@@ -1,4 +1,11 @@
 import { z } from 'zod';
+import { limits } from '../validations';
 
 /** The query of a route that takes none: any parameter is an unknown field, refused with 400. */
 export const emptyQuerySchema = z.object({}).strict();
+
+/** The path of a route that names a record by its numeric id (`/results/:id`). */
+export const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
+
+/** The path of a route that names a member by handle (`/profiles/:handle`). */
+export const handleParams = z.object({ handle: z.string().min(1).max(limits.handleMax).regex(/^[a-z0-9-]+$/, 'not a handle') }).strict();

@@ -147,6 +147,7 @@ const matrix: Row[] = [
 
   // Session and health
   { route: 'GET /api/health', expect: everyone(200) },
+  { route: 'GET /api/openapi.json', expect: everyone(200) },
   { route: 'GET /api/session', expect: everyone(200) },
 
   // Results and review

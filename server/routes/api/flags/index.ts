@@ -9,9 +9,8 @@ import { forbidden } from '../../../errors';
 import { flagItem, resolveFlag } from '../../../commands/flag-item';
 import { openFlags } from '../../../queries/review-desk';
 import { presentFlag } from '../../../presenters/publishing';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Flags: any member flags an approved result or a page; moderators list and close them. */
 export function flagsRouter(ctx: AppContext): Router {

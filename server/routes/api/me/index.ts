@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { resultInputSchema, type ResultInput } from '@shared/schemas/result';
-import { FOLLOWABLE_PAGES, followInputSchema, notificationSettingsSchema, unsubscribeSchema } from '@shared/schemas/publishing';
+import { followParams, followInputSchema, notificationSettingsSchema, unsubscribeSchema } from '@shared/schemas/publishing';
 import { slugSchema } from '@shared/schemas/result';
 import { EMAIL_TOPICS } from '@shared/schemas/publishing';
 import type { AppContext } from '../../../context';
@@ -17,7 +17,6 @@ import { verifyUnsubscribe } from '../../../mail/unsubscribe';
 import { resultsCsv } from '../../../presenters/result-csv';
 import { emptyQuerySchema } from '@shared/schemas/common';
 
-const followParams = z.object({ pageType: z.enum(FOLLOWABLE_PAGES), slug: slugSchema }).strict();
 
 /** The member's own page and settings: drafts and decisions, follows, e-mail, export, duplicate check, unsubscribe. */
 export function meRouter(ctx: AppContext): Router {

@@ -4,7 +4,7 @@ import { slugSchema } from '@shared/schemas/result';
 import { can, type Actor } from '@shared/permissions';
 import { gritBandPhi } from '@shared/grit';
 import { matchesComposition, parseCompositionFilter } from '@shared/composition-filter';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import {
   abrasiveListQuerySchema,
   PAGE_SECTIONS,
@@ -14,6 +14,8 @@ import {
   pageProtectSchema,
   pageRevertSchema,
   pageReviewSchema,
+  revisionParams,
+  slugParams,
   steelListQuerySchema,
   type PageEdit,
   type PageMerge,
@@ -63,9 +65,6 @@ import { revertPage } from '../../../commands/revert-page';
 import { protectPage } from '../../../commands/protect-page';
 import { mergePages } from '../../../commands/merge-pages';
 
-const slugParams = z.object({ slug: slugSchema }).strict();
-const revisionParams = z.object({ slug: slugSchema, id: z.coerce.number().int().positive() }).strict();
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Every method that is a version of the same protocol as `method` (linked by `replacesId`), oldest first. */
 function versionsOf(method: Method, all: Method[]): Method[] {

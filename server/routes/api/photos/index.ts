@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { can } from '@shared/permissions';
 import { photoFieldsSchema, photoLimits } from '@shared/schemas/publishing';
+import { idParams } from '@shared/schemas/common';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
@@ -11,7 +12,6 @@ import { receiveFile } from '../../../storage/upload';
 import { removePhoto, uploadPhoto } from '../../../commands/upload-photo';
 import { presentPhoto } from '../../../presenters/publishing';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Photos of results: upload (the author), list, the image and its thumbnail, removal. */
 export function photosRouter(ctx: AppContext): Router {

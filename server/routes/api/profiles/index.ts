@@ -1,14 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { limits } from '@shared/validations';
+import { handleParams } from '@shared/schemas/common';
 import { actorOf } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { notFound } from '../../../errors';
 import { User } from '../../../models';
 import { publicProfile, resultsForExport } from '../../../queries/profiles';
 import { resultsCsv } from '../../../presenters/result-csv';
-
-const handleParams = z.object({ handle: z.string().min(1).max(limits.handleMax).regex(/^[a-z0-9-]+$/, 'not a handle') }).strict();
 
 /** Public member profiles and each member's published results as CSV. */
 export function profilesRouter(): Router {

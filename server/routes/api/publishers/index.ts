@@ -1,12 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { can } from '@shared/permissions';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import {
   applicationDecisionSchema,
   applicationListQuerySchema,
   publisherApplicationSchema,
-  siteSettingsSchema,
+  siteSettingsChangeSchema,
   type ApplicationDecisionInput,
   type PublisherApplicationInput,
 } from '@shared/schemas/publishing';
@@ -23,7 +23,6 @@ import { badgeOf } from '../../../queries/profiles';
 import { presentApplication } from '../../../presenters/publishing';
 import { presentAccount } from '../../../presenters/user';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Publishers: the public list, applications and their decisions, and the publishing settings (admin). */
 export function publishersRouter(ctx: AppContext): Router {
@@ -57,8 +56,8 @@ export function publishersRouter(ctx: AppContext): Router {
     res.json(await siteSettings());
   });
 
-  router.put('/publishers/settings', requireUser, validate({ body: siteSettingsSchema.partial().strict() }), async (req, res) => {
-    res.json(await updateSiteSettings(ctx, actorOf(req)!, req.valid.body as Partial<z.infer<typeof siteSettingsSchema>>));
+  router.put('/publishers/settings', requireUser, validate({ body: siteSettingsChangeSchema }), async (req, res) => {
+    res.json(await updateSiteSettings(ctx, actorOf(req)!, req.valid.body as z.infer<typeof siteSettingsChangeSchema>));
   });
 
   return router;

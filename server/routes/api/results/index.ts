@@ -13,12 +13,12 @@ import { findResult, listResults } from '../../../queries/results';
 import { presentResult } from '../../../presenters/result';
 import { setPageLinks } from '../../../presenters/page-links';
 import { reviewDeskRevisions } from '../../../queries/pages';
+import { idParams } from '@shared/schemas/common';
 import { bulkApproveSchema, retractInputSchema, reviewDeskQuerySchema, type ReviewDeskQuery } from '@shared/schemas/publishing';
 import { deskResultItems, openFlags, pendingImports } from '../../../queries/review-desk';
 import { bulkApproveResults } from '../../../commands/bulk-approve-results';
 import { retractResult } from '../../../commands/retract-result';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Results: post, list, read, review; and the review desk's queue. */
 export function resultsRouter(ctx: AppContext): Router {

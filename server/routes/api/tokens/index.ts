@@ -10,9 +10,8 @@ import { ApiToken } from '../../../models';
 import { createToken } from '../../../commands/create-token';
 import { revokeToken } from '../../../commands/revoke-token';
 import { presentToken } from '../../../presenters/publishing';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Token management needs the signed-in session: a leaked token must not mint or hide others. */
 function requireSessionPublisher(req: Request) {

@@ -8,9 +8,8 @@ import { validate } from '../../../middleware/validate';
 import { addWheel, measureWheel } from '../../../commands/log-wheel';
 import { notFound } from '../../../errors';
 import { Wheel, WheelMeasurement } from '../../../models';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 function presentWheel(wheel: Wheel) {
   const measurements = (wheel.measurements ?? []).map((m) => ({ measuredOn: m.measuredOn, diameterMm: m.diameterMm }));
