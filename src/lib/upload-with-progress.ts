@@ -30,7 +30,7 @@ export async function uploadWithProgress<T>(url: string, form: FormData, onProgr
     xhr.upload.onload = () => onProgress?.(1);
     xhr.onerror = () => reject(new TypeError('The upload could not reach the server.'));
     xhr.onload = () => {
-      let body: unknown = null;
+      let body: unknown;
       try {
         body = xhr.responseText ? JSON.parse(xhr.responseText) : null;
       } catch {

@@ -2,7 +2,6 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { resultInputSchema, type ResultInput } from '@shared/schemas/result';
 import { followParams, followInputSchema, notificationSettingsSchema, unsubscribeSchema } from '@shared/schemas/publishing';
-import { slugSchema } from '@shared/schemas/result';
 import { EMAIL_TOPICS } from '@shared/schemas/publishing';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';

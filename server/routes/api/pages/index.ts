@@ -1,6 +1,5 @@
 import { Router, type Response } from 'express';
 import { z } from 'zod';
-import { slugSchema } from '@shared/schemas/result';
 import { can, type Actor } from '@shared/permissions';
 import { gritBandPhi } from '@shared/grit';
 import { matchesComposition, parseCompositionFilter } from '@shared/composition-filter';
