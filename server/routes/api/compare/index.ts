@@ -18,6 +18,7 @@ import { compareCell } from '../../../queries/compare-cell';
 import { comparePaired } from '../../../queries/compare-paired';
 import { comparePoints } from '../../../queries/compare-points';
 import { setPageLinks } from '../../../presenters/page-links';
+import { presentResult } from '../../../presenters/result';
 
 /**
  * The comparison under /api/compare: the table (and pivot), its export, a cell's results, the
@@ -51,8 +52,9 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   });
 
   router.get('/compare/cell', validate({ query: compareCellQuerySchema }), async (req, res) => {
-    const cell = await compareCell(req.valid.query as z.infer<typeof compareCellQuerySchema>, actorOf(req));
-    setPageLinks(req, res, cell).json(cell);
+    const { results, ...cell } = await compareCell(req.valid.query as z.infer<typeof compareCellQuerySchema>);
+    const viewer = actorOf(req);
+    setPageLinks(req, res, cell).json({ ...cell, items: results.map((r) => presentResult(r, viewer)) });
   });
 
   router.get('/compare/paired', validate({ query: comparePairedQuerySchema }), async (req, res) => {

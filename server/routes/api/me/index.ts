@@ -9,6 +9,7 @@ import { validate } from '../../../middleware/validate';
 import { badRequest } from '../../../errors';
 import type { User } from '../../../models';
 import { ownPage, resultsForExport } from '../../../queries/profiles';
+import { presentOwnPage } from '../../../presenters/profile';
 import { findDuplicates } from '../../../queries/duplicates';
 import { followPage, unfollowPage } from '../../../commands/follow-page';
 import { updateNotificationSettings } from '../../../commands/update-notification-settings';
@@ -22,7 +23,7 @@ export function meRouter(ctx: AppContext): Router {
   const router = Router();
 
   router.get('/me', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
-    res.set('Cache-Control', 'no-store').json(await ownPage(req.user as User));
+    res.set('Cache-Control', 'no-store').json(presentOwnPage(await ownPage(req.user as User)));
   });
 
   router.get('/me/results.csv', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {

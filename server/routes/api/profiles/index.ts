@@ -7,6 +7,7 @@ import { notFound } from '../../../errors';
 import { User } from '../../../models';
 import { publicProfile, resultsForExport } from '../../../queries/profiles';
 import { resultsCsv } from '../../../presenters/result-csv';
+import { presentProfile } from '../../../presenters/profile';
 
 /** Public member profiles and each member's published results as CSV. */
 export function profilesRouter(): Router {
@@ -14,7 +15,7 @@ export function profilesRouter(): Router {
 
   router.get('/profiles/:handle', validate({ params: handleParams }), async (req, res) => {
     const { handle } = req.valid.params as z.infer<typeof handleParams>;
-    res.json(await publicProfile(handle, actorOf(req)));
+    res.json(presentProfile(await publicProfile(handle), actorOf(req)));
   });
 
   router.get('/profiles/:handle/results.csv', validate({ params: handleParams }), async (req, res) => {

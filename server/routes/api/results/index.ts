@@ -15,7 +15,8 @@ import { setPageLinks } from '../../../presenters/page-links';
 import { reviewDeskRevisions } from '../../../queries/pages';
 import { idParams } from '@shared/schemas/common';
 import { bulkApproveSchema, retractInputSchema, reviewDeskQuerySchema, type ReviewDeskQuery } from '@shared/schemas/publishing';
-import { deskResultItems, openFlags, pendingImports } from '../../../queries/review-desk';
+import { openFlags, pendingImports, pendingResults } from '../../../queries/review-desk';
+import { presentDeskResults, presentDeskRevisions, presentOpenFlags, presentPendingImports } from '../../../presenters/review-desk';
 import { bulkApproveResults } from '../../../commands/bulk-approve-results';
 import { retractResult } from '../../../commands/retract-result';
 
@@ -56,10 +57,10 @@ export function resultsRouter(ctx: AppContext): Router {
     // `revisions`: proposed page edits (kind 'page-revision'), beside the results in `items`;
     // `flags`: open flags; `imports`: publishers' imports with results still pending.
     res.json({
-      items: show('result') ? await deskResultItems(filters, actor) : [],
-      revisions: show('page-revision') ? await reviewDeskRevisions(actor) : [],
-      flags: show('flag') ? await openFlags(filters) : [],
-      imports: show('result') ? await pendingImports() : [],
+      items: show('result') ? presentDeskResults(await pendingResults(filters), actor) : [],
+      revisions: show('page-revision') ? presentDeskRevisions(await reviewDeskRevisions(), actor) : [],
+      flags: show('flag') ? presentOpenFlags(await openFlags(filters)) : [],
+      imports: show('result') ? presentPendingImports(await pendingImports()) : [],
     });
   });
 
