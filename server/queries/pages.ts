@@ -223,3 +223,18 @@ export async function reviewDeskRevisions() {
     return { revision, page, changed };
   });
 }
+
+/** Every method page without its texts (for version chains and the slugs they name). */
+export function methodsWithoutBodies(): Promise<Method[]> {
+  return Method.findAll({ attributes: { exclude: PAGE_TEXT_COLUMNS } });
+}
+
+/** A page revision by id, or null. */
+export function revisionById(id: number): Promise<PageRevision | null> {
+  return PageRevision.findByPk(id);
+}
+
+/** A page of a type by id, or null. */
+export async function pageById(type: PageType, id: number): Promise<PageModel | null> {
+  return (await (PAGE_MODELS[type] as typeof Method).findByPk(id)) as PageModel | null;
+}

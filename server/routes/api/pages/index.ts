@@ -30,14 +30,16 @@ import type { AnswerCache } from '../../../middleware/answer-cache';
 import { onPagesChanged } from '../../../models/write-events';
 import { onCellsChanged } from '../../../aggregates/comparison-cells';
 import { forbidden, notFound } from '../../../errors';
-import { Method, PAGE_TEXT_COLUMNS, PageRevision, type Abrasive, type Steel } from '../../../models';
+import type { Abrasive, Method, Steel } from '../../../models';
 import {
   approvedCounts,
   eventsOf,
   findPageOfType,
   findRevisionOf,
   linkCheckerFor,
-  PAGE_MODELS,
+  methodsWithoutBodies,
+  pageById,
+  revisionById,
   listAbrasives,
   listMethods,
   listSteels,
@@ -90,7 +92,7 @@ async function presentPage(type: PageType, page: PageModel, viewer: Actor | null
     return presentAbrasive(page as Abrasive, results.count, { ...extras, results });
   }
   // Every method, for the version chain and the slugs it names: without their bodies.
-  const methods = await Method.findAll({ attributes: { exclude: PAGE_TEXT_COLUMNS } });
+  const methods = await methodsWithoutBodies();
   return presentMethod(page as Method, new Map(methods.map((m) => [m.id, m.slug])), { ...extras, versions: versionsOf(page as Method, methods) });
 }
 
@@ -259,9 +261,9 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
 
   router.get('/page-revisions/:id', validate({ params: idParams }), async (req, res) => {
     const viewer = actorOf(req);
-    const revision = await PageRevision.findByPk((req.valid.params as z.infer<typeof idParams>).id);
+    const revision = await revisionById((req.valid.params as z.infer<typeof idParams>).id);
     if (!revision || !can(viewer, 'read:page-revision', { authorId: revision.authorId, status: revision.status })) throw notFound('Revision');
-    const page = (await (PAGE_MODELS[revision.pageType] as typeof Method).findByPk(revision.pageId)) as PageModel | null;
+    const page = await pageById(revision.pageType, revision.pageId);
     if (!page) throw notFound('Page');
     res.json(presentRevision(await findRevisionOf(revision.pageType, page.id, revision.id), page, viewer));
   });

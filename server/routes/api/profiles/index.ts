@@ -4,7 +4,7 @@ import { handleParams } from '@shared/schemas/common';
 import { actorOf } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { notFound } from '../../../errors';
-import { User } from '../../../models';
+import { memberByHandle } from '../../../queries/accounts';
 import { publicProfile, resultsForExport } from '../../../queries/profiles';
 import { resultsCsv } from '../../../presenters/result-csv';
 import { presentProfile } from '../../../presenters/profile';
@@ -20,7 +20,7 @@ export function profilesRouter(): Router {
 
   router.get('/profiles/:handle/results.csv', validate({ params: handleParams }), async (req, res) => {
     const { handle } = req.valid.params as z.infer<typeof handleParams>;
-    const user = await User.findOne({ where: { handle } });
+    const user = await memberByHandle(handle);
     if (!user || user.banned) throw notFound('Member');
     res.type('text/csv; charset=utf-8').attachment(`edgeledger-${handle}-results.csv`).send(resultsCsv(await resultsForExport(user.id, false)));
   });

@@ -7,7 +7,8 @@ import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { addWheel, measureWheel } from '../../../commands/log-wheel';
 import { notFound } from '../../../errors';
-import { Wheel, WheelMeasurement } from '../../../models';
+import { wheelsOf as own } from '../../../queries/wheels';
+import type { Wheel } from '../../../models';
 import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 
 
@@ -28,8 +29,6 @@ function presentWheel(wheel: Wheel) {
 /** A member's wheel log: their wheels, measured diameters over time, and today's gaps. */
 export function wheelsRouter(ctx: AppContext): Router {
   const router = Router();
-  const own = (ownerId: number, id?: number) =>
-    Wheel.findAll({ where: { ownerId, ...(id ? { id } : {}) }, include: [{ model: WheelMeasurement, as: 'measurements' }], order: [['id', 'ASC']] });
 
   router.get('/wheels', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     res.json({ items: (await own(actorOf(req)!.id)).map(presentWheel) });
