@@ -38,6 +38,8 @@ export default tseslint.config(
     plugins: { 'import-x': importX },
     languageOptions: { parserOptions: { ecmaVersion: 'latest', sourceType: 'module' } },
     settings: {
+      'import-x/parsers': { '@typescript-eslint/parser': ['.ts', '.tsx'] },
+      'import-x/extensions': ['.ts', '.tsx', '.js'],
       'import-x/resolver-next': [createTypeScriptImportResolver({ project: './tsconfig.json' })],
     },
     rules: {
