@@ -150,7 +150,6 @@ export function buildOpenApiDocument(routes: readonly RouteDoc[] = apiRoutes) {
   }
   return {
     openapi: '3.1.0',
-    jsonSchemaDialect: 'https://json-schema.org/draft/2020-12/schema',
     info: {
       title: 'Edgeledger API',
       version: '1',
