@@ -10,6 +10,7 @@ import { CachedSessionStore } from './auth/cached-session-store';
 import { configurePassport } from './auth/passport';
 import { authRouter } from './routes/auth';
 import { apiRouter } from './routes/api';
+import { apiReference } from './openapi/reference';
 import { AnswerCache } from './middleware/answer-cache';
 import { bearerToken } from './middleware/bearer-token';
 import { errorHandler, SIGN_IN_FAILED_PATH } from './middleware/error-handler';
@@ -18,6 +19,9 @@ import { requestLog, signInOutcomeLog } from './middleware/request-log';
 import { sessionLifetime } from './middleware/session-lifetime';
 import { configureLogging, logError, logger } from './logging';
 import type { MailCatcher } from './mail/mail-catcher';
+
+/** Where the API is mounted: its versioned paths first, then the unversioned alias. */
+export const API_MOUNTS = ['/api/v1', '/api'];
 
 export interface AppOptions {
   /** Folder of the built client; served with an SPA fallback when it exists. */
@@ -40,7 +44,7 @@ export function sessionCookieName(isProduction: boolean): string {
  */
 export function needsSession(req: Request, cookieName: string): boolean {
   if (req.method !== 'GET' && req.method !== 'HEAD') return true;
-  if (req.path === '/api/session' || req.path.startsWith('/auth/')) return true;
+  if (req.path === '/api/v1/session' || req.path === '/api/session' || req.path.startsWith('/auth/')) return true;
   return (req.headers.cookie ?? '').split(';').some((c) => c.trimStart().startsWith(`${cookieName}=`));
 }
 
@@ -126,7 +130,10 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use('/api', limits.posts, limits.uploads);
 
   app.use('/auth', authRouter(ctx, auth));
-  app.use('/api', apiRouter(ctx, { mailCatcher: options.mailCatcher, answers, searchLimit: limits.search }));
+  // The API is versioned: /api/v1/… are its paths; the unversioned /api/… answers the same
+  // (an alias kept for scripts written before the version, README "API").
+  app.use('/api/v1/reference', apiReference());
+  app.use(API_MOUNTS, apiRouter(ctx, { mailCatcher: options.mailCatcher, answers, searchLimit: limits.search }));
 
   const clientDir = options.clientDir;
   if (clientDir && fs.existsSync(path.join(clientDir, 'index.html'))) {

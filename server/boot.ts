@@ -14,8 +14,16 @@ import { LocalS3 } from './storage/local-s3';
 import { ObjectStorage } from './storage/object-storage';
 import { LocalOAuthProvider } from './auth/local-provider';
 import { createApp } from './app';
-import { loadDemoData } from '../seed/load';
 import { User } from './models';
+
+/** What the process entry hands in from above the server. */
+export interface BootOptions {
+  /**
+   * Loads the invented demo data into an empty database (seed/load.ts). seed/ sits above the
+   * server, so the entry (server/index.ts) passes it in; without it, nothing is loaded.
+   */
+  demoData?: (db: Database) => Promise<{ loaded: boolean; results: number }>;
+}
 
 export interface Running {
   ctx: AppContext;
@@ -32,7 +40,7 @@ export interface Running {
  * unless the environment points at hosted ones, the database (migrated, demo data loaded into an
  * empty one), the search index (built before listening) and the HTTP server.
  */
-export async function boot(env: Env, log: (line: string) => void = console.log): Promise<Running> {
+export async function boot(env: Env, log: (line: string) => void = console.log, options: BootOptions = {}): Promise<Running> {
   const db = new Database({
     storage: path.join(env.dataDir, 'edgeledger.sqlite'),
     url: env.DATABASE_URL,
@@ -40,8 +48,8 @@ export async function boot(env: Env, log: (line: string) => void = console.log):
   });
   await db.migrate();
   // Production never loads the invented demo data (loadEnv refuses SEED_DEMO there too).
-  if (env.SEED_DEMO === 'auto' && !env.isProduction) {
-    const seeded = await loadDemoData(db);
+  if (env.SEED_DEMO === 'auto' && !env.isProduction && options.demoData) {
+    const seeded = await options.demoData(db);
     if (seeded.loaded) log(`Loaded the demo data (${seeded.results} invented results).`);
   }
 

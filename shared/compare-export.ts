@@ -3,8 +3,8 @@
  * the date and URL of the view, and the method versions involved, then one row per cell. Text
  * that a spreadsheet would run as a formula is neutralised. Pure: the caller gives the date.
  */
-import Papa from 'papaparse';
 import { formatBand, type CompareRow } from './compare-view';
+import { neutraliseFormula, toCsv } from './csv-writer';
 
 /** The licence every export names. */
 export const EXPORT_LICENCE = { name: 'CC BY 4.0', title: 'Creative Commons Attribution 4.0 International', url: 'https://creativecommons.org/licenses/by/4.0/' } as const;
@@ -21,17 +21,6 @@ export interface ExportContext {
   filters: string;
   /** Band width of the view, φ. */
   step: 1 | 0.5;
-}
-
-/**
- * Fields a spreadsheet would evaluate: starting with = + - @ (or their full-width forms),
- * possibly after white space, or with a tab or carriage return (OWASP, "CSV Injection").
- */
-const FORMULA_START = /^(?:[\s]*[=+\-@\uFF1D\uFF0B\uFF0D\uFF20]|[\t\r\n])/u;
-
-/** Prefixes a text that a spreadsheet would run as a formula with an apostrophe; other text unchanged. */
-export function neutraliseFormula(text: string): string {
-  return FORMULA_START.test(text) ? `'${text}` : text;
 }
 
 const oneLine = (s: string) => s.replace(/[\r\n\t]+/g, ' ').trim();
@@ -99,17 +88,8 @@ export function comparisonCsv(rows: readonly CompareRow[], ctx: ExportContext): 
     `# Filters: ${ctx.filters ? oneLine(ctx.filters) : 'none'}; grit bands ${ctx.step} φ wide (φ = -log2(d / 1 mm)).`,
     '# Sharpness in grams of force to sever the method\'s test medium (lower is keener); each result counts once, with the median of its readings.',
   ].map((line) => neutraliseFormula(line.replace(/[\r\n]+/g, ' ')));
-  const body = Papa.unparse(
-    {
-      fields: EXPORT_COLUMNS.map((c) => c.header),
-      data: rows.map((r) => EXPORT_COLUMNS.map((c) => {
-        const v = c.value(r);
-        return v === null ? '' : v;
-      })),
-    },
-    { newline: '\r\n', escapeFormulae: FORMULA_START, quotes: false },
-  );
-  return `${header.join('\r\n')}\r\n${body}\r\n`;
+  const body = toCsv([EXPORT_COLUMNS.map((c) => c.header), ...rows.map((r) => EXPORT_COLUMNS.map((c) => c.value(r)))]);
+  return `${header.join('\r\n')}\r\n${body}`;
 }
 
 /** The view as a JSON document: licence, citation, URL, date, methods, filters and the rows. */

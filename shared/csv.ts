@@ -1,10 +1,11 @@
 /**
  * The result import file (CSV): its columns, the header spellings accepted for each, the
- * mapping of one row to the same input the new-result form posts, and CSV writing with
- * spreadsheet formulas neutralised. Pure: no I/O; lookups of pages are passed in.
+ * mapping of one row to the same input the new-result form posts, and the error report (written
+ * by shared/csv-writer.ts). Pure: no I/O; lookups of pages are passed in.
  */
 import type { RichTextNode } from './rich-text';
 import { parseProgressionCell } from './progression';
+import { toCsv } from './csv-writer';
 
 /** Columns of the import file, in the template's order. */
 export const IMPORT_COLUMNS = [
@@ -316,35 +317,6 @@ export function columnOfPath(path: readonly PropertyKey[]): ImportColumn | strin
     default:
       return first ?? '(row)';
   }
-}
-
-/** A cell value for a CSV file: numbers and booleans as written, text as is. */
-export type CsvValue = string | number | boolean | null | undefined;
-
-/**
- * Makes a text cell safe to open in a spreadsheet: a cell starting with =, +, -, @, a tab or a
- * carriage return would be read as a formula (CSV injection), so it gets a leading apostrophe,
- * which spreadsheets show as text (OWASP, "CSV Injection").
- */
-export function neutraliseFormula(text: string): string {
-  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
-}
-
-/** One CSV cell: formulas neutralised, quoted when it holds a comma, quote or line break (RFC 4180). */
-export function csvCell(value: CsvValue): string {
-  if (value === null || value === undefined) return '';
-  if (typeof value === 'number') return Number.isFinite(value) ? String(value) : '';
-  if (typeof value === 'boolean') return value ? 'yes' : 'no';
-  const safe = neutraliseFormula(value);
-  return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
-}
-
-/**
- * Rows → CSV text, every text cell neutralised; CRLF line ends by default (RFC 4180), LF for a
- * file people open and extend in a text editor (the import template).
- */
-export function toCsv(rows: CsvValue[][], eol: '\r\n' | '\n' = '\r\n'): string {
-  return rows.map((r) => r.map(csvCell).join(',')).join(eol) + eol;
 }
 
 /** The downloadable error report of an import: one line per problem. */

@@ -4,16 +4,8 @@ import type { AppContext } from '../context';
 import type { InferAttributes } from 'sequelize';
 import { User } from '../models';
 import { keptUntil } from '../queries/kept-until';
-import { signInFromProvider } from '../commands/sign-in-from-provider';
+import { signInFromProvider, type ProviderProfile } from '../commands/sign-in-from-provider';
 import { SignInStateStore } from './sign-in-state';
-
-/** Claims read from the provider's userinfo endpoint. */
-export interface ProviderProfile {
-  sub: string;
-  preferredUsername?: string;
-  name?: string;
-  email?: string;
-}
 
 /** passport-oauth2 with the userinfo call it lacks, and `login_hint` passed through. */
 class ProviderStrategy extends OAuth2Strategy {

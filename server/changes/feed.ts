@@ -1,8 +1,7 @@
 import { Op, type Transaction } from 'sequelize';
 import { insertRows } from '../db/insert-rows';
-import { refreshCells } from '../aggregates/comparison-cells';
 import { ChangeRow } from './change-row';
-import { changeOf, mergeChanges, rowOf, type Change } from './kinds';
+import { changeOf, mergeChanges, rowOf, type CellKey, type Change } from './kinds';
 import { tellFollowers, type Dispatched } from './followers';
 
 const recorded = new WeakMap<Transaction, Change[]>();
@@ -31,7 +30,15 @@ export class ChangeFeed {
   lastDispatchedId = 0;
   private dispatching: Promise<void> = Promise.resolve();
 
-  constructor(private readonly db: object) {}
+  /**
+   * `refreshCells` rewrites the comparison cells of some keys inside a transaction
+   * (server/aggregates/comparison-cells.ts), handed in by the database so that the feed, which
+   * the models' hooks import, does not import the cells' module that imports the models.
+   */
+  constructor(
+    private readonly db: object,
+    private readonly refreshCells: (keys: CellKey[], transaction: Transaction) => Promise<void>,
+  ) {}
 
   /**
    * Called by `Database.write` as the transaction's last work: refreshes the comparison cells of
@@ -45,7 +52,7 @@ export class ChangeFeed {
     recorded.delete(transaction);
     const changes = mergeChanges(list);
     const cells = changes.flatMap((c) => (c.kind === 'result' ? c.cells : []));
-    if (cells.length) await refreshCells(cells, transaction);
+    if (cells.length) await this.refreshCells(cells, transaction);
     const rows = await insertRows(ChangeRow, changes.map(rowOf), transaction);
     const batch = rows.map((row, i) => ({ id: row.id, change: changes[i] }));
     transaction.afterCommit(() => {

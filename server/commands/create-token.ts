@@ -3,17 +3,11 @@ import { can, type Actor } from '@shared/permissions';
 import type { AppContext } from '../context';
 import { conflict, forbidden } from '../errors';
 import { ApiToken } from '../models';
+import { hashToken, TOKEN_PREFIX } from '../auth/api-token';
 
 /** The most active tokens one publisher may hold. */
 export const TOKENS_PER_PUBLISHER = 20;
 
-/** What every token starts with, so a leaked one is easy to recognise. */
-export const TOKEN_PREFIX = 'elt_';
-
-/** SHA-256 of a token, hex: what the database keeps instead of the token. */
-export function hashToken(token: string): string {
-  return crypto.createHash('sha256').update(token).digest('hex');
-}
 
 /**
  * Creates a named API token for a publisher: 32 random bytes, returned once; only its hash and

@@ -5,8 +5,7 @@ import { parseGrit, type GritStandard } from '@shared/grit';
 import { changedFields, mergeEdits } from '@shared/page-diff';
 import { pageFieldsSchemas, splitEdit, type AbrasiveFields, type MethodFields, type PageContent, type PageEdit, type PageType, type SteelFields } from '@shared/schemas/pages';
 import type { AppContext } from '../context';
-import { badRequest, conflict, forbidden, type FieldIssue } from '../errors';
-import { fieldIssues } from '../middleware/validate';
+import { badRequest, conflict, fieldIssues, forbidden, type FieldIssue } from '../errors';
 import { Abrasive, Method, PageRevision, Result, Steel } from '../models';
 import { contentOf, findPageOfType, findRevisionOf, survivorOf, type PageModel } from '../queries/pages';
 

@@ -1,6 +1,13 @@
 import type { AppContext } from '../context';
 import { User } from '../models';
-import type { ProviderProfile } from '../auth/passport';
+
+/** Claims read from the provider's userinfo endpoint. */
+export interface ProviderProfile {
+  sub: string;
+  preferredUsername?: string;
+  name?: string;
+  email?: string;
+}
 
 /**
  * Finds the account for a provider's subject, creating a member account the first time

@@ -50,14 +50,14 @@ export async function checkBackup(file: string): Promise<BackupCheck> {
   try {
     db = await open(file, sqlite3.OPEN_READONLY);
   } catch (err) {
-    throw new Error(`${file}: not a database SQLite can open (${(err as Error).message})`);
+    throw new Error(`${file}: not a database SQLite can open (${(err as Error).message})`, { cause: err });
   }
   try {
     let integrity: { integrity_check: string }[];
     try {
       integrity = await all<{ integrity_check: string }>(db, 'PRAGMA integrity_check');
     } catch (err) {
-      throw new Error(`${file}: not a sound SQLite database (${(err as Error).message})`);
+      throw new Error(`${file}: not a sound SQLite database (${(err as Error).message})`, { cause: err });
     }
     const verdict = integrity.map((r) => r.integrity_check).join('; ');
     if (verdict !== 'ok') throw new Error(`${file}: integrity check failed: ${verdict}`);

@@ -4,6 +4,8 @@ import { sqliteSequelize, sqliteWrite } from './sqlite';
 import { postgresSequelize, postgresWrite } from './postgres';
 import { WriteQueue } from './write-queue';
 import { initModels } from '../models';
+import { ChangeFeed } from '../changes/feed';
+import { refreshCells } from '../aggregates/comparison-cells';
 import * as m0001 from './migrations/0001-initial';
 import * as m0002 from './migrations/0002-reference-wiki';
 import * as m0003 from './migrations/0003-comparison-bands';
@@ -12,7 +14,6 @@ import * as m0006 from './migrations/0006-wheel-log';
 import * as m0007 from './migrations/0007-result-page-indexes';
 import * as m0008 from './migrations/0008-result-members-index';
 import * as m0009 from './migrations/0009-changes';
-import { ChangeFeed } from '../changes/feed';
 import * as m0010 from './migrations/0010-result-revisions';
 import * as m0011 from './migrations/0011-result-progression';
 import * as m0012 from './migrations/0012-workshop';
@@ -52,7 +53,7 @@ export class Database {
   readonly sequelize: Sequelize;
   readonly queue: WriteQueue;
   /** What the writes changed: recorded in each transaction, dispatched after its commit. */
-  readonly changes = new ChangeFeed(this);
+  readonly changes = new ChangeFeed(this, refreshCells);
   readonly isSqlite: boolean;
 
   constructor(readonly options: DatabaseOptions) {

@@ -17,7 +17,7 @@ interface Answer {
 }
 
 /** The headers a route's answer carries itself (the app's own, helmet's say, are set again). */
-const ANSWER_HEADERS = ['Content-Type', 'Cache-Control'];
+const ANSWER_HEADERS = ['Content-Type', 'Cache-Control', 'Link'];
 
 interface Group {
   answers: ReturnType<typeof keptUntil<string, Answer>>;

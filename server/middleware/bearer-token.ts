@@ -3,7 +3,7 @@ import { atLeast } from '@shared/permissions';
 import type { AppContext } from '../context';
 import { forbidden, HttpError } from '../errors';
 import { ApiToken, User } from '../models';
-import { hashToken } from '../commands/create-token';
+import { hashToken } from '../auth/api-token';
 
 declare module 'express-serve-static-core' {
   interface Request {

@@ -1,25 +1,13 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
 import { emptyQuerySchema } from '@shared/schemas/common';
-import { badRequest, type FieldIssue } from '../errors';
+import { badRequest, fieldIssues } from '../errors';
 
 declare module 'express-serve-static-core' {
   interface Request {
     /** Inputs after validation: the parsed values replace the raw ones. */
     valid: { body?: unknown; query?: unknown; params?: unknown };
   }
-}
-
-/**
- * Turns zod issues into dotted field paths with messages; an unknown field is named by its own
- * path ("status", "notes.colour"), one issue each. `part` names an issue about the whole input.
- */
-export function fieldIssues(error: z.ZodError, part: 'body' | 'query' | 'params' = 'body'): FieldIssue[] {
-  return error.issues.flatMap((i) =>
-    i.code === 'unrecognized_keys'
-      ? i.keys.map((key) => ({ path: [...i.path, key].join('.'), message: 'unknown field: not accepted here' }))
-      : [{ path: i.path.join('.') || `(${part})`, message: i.message }],
-  );
 }
 
 const READS = new Set(['GET', 'HEAD', 'OPTIONS']);

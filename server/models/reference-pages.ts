@@ -209,3 +209,6 @@ export class PageRevision extends Model<InferAttributes<PageRevision>, InferCrea
     );
   }
 }
+
+/** A reference page of any type. */
+export type PageModel = Steel | Abrasive | Method;

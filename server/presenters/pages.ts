@@ -2,7 +2,7 @@ import { atLeast, can, type Actor } from '@shared/permissions';
 import { PAGE_SECTIONS, type PageType } from '@shared/schemas/pages';
 import { renderRichText, type RenderOptions } from '../rich-text/render';
 import type { Abrasive, Method, PageEvent, PageRevision, Steel } from '../models';
-import type { PageModel } from '../queries/pages';
+import type { PageModel } from '../models/reference-pages';
 
 /** What a page's presenter may add beyond the page itself. */
 export interface PageExtras {

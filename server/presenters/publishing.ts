@@ -23,7 +23,7 @@ export function presentToken(t: ApiToken) {
 
 /** The addresses a photo is served at. */
 export function photoUrls(photo: Pick<Photo, 'id'>) {
-  return { url: `/api/photos/${photo.id}`, thumbUrl: `/api/photos/${photo.id}/thumb` };
+  return { url: `/api/v1/photos/${photo.id}`, thumbUrl: `/api/v1/photos/${photo.id}/thumb` };
 }
 
 /** A photo of a result: its addresses, alt text and stored size (never its storage keys). */

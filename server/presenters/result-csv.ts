@@ -1,4 +1,5 @@
-import { IMPORT_COLUMNS, toCsv, type CsvValue } from '@shared/csv';
+import { IMPORT_COLUMNS } from '@shared/csv';
+import { toCsv, type CsvValue } from '@shared/csv-writer';
 import { richTextToPlain } from '@shared/rich-text';
 import { progressionCell } from '@shared/progression';
 import type { Result } from '../models';
@@ -9,7 +10,7 @@ const EXTRA = ['id', 'status', 'created_at', 'hrc', 'grit_um', 'inclusive_deg', 
 /**
  * Results as a CSV file in the import's own columns (so an export can be edited and imported
  * again), followed by the derived values. Every text cell goes through the formula
- * neutralisation of shared/csv.ts, so a hostile cell cannot run as a spreadsheet formula.
+ * neutralisation of shared/csv-writer.ts, so a hostile cell cannot run as a spreadsheet formula.
  */
 export function resultsCsv(results: Result[]): string {
   const rows: CsvValue[][] = [[...IMPORT_COLUMNS, ...EXTRA]];

@@ -96,3 +96,16 @@ export function presentResultRevision(revision: ResultRevision, replaces: Result
   };
 }
 export type PresentedResultRevision = ReturnType<typeof presentResultRevision>;
+
+/**
+ * Corrections of published results waiting for a moderator: each with the published result it
+ * would change, the changes against it, and whether the viewer may decide it.
+ */
+export function presentPendingRevisions(pending: { revision: ResultRevision; result: Result }[], viewer: Actor) {
+  return pending.map(({ revision, result }) => ({
+    kind: 'result-revision' as const,
+    ...presentResultRevision(revision, { number: null, input: result.input }),
+    result: presentResult(result, viewer),
+    can: { review: can(viewer, 'review:result', { authorId: revision.authorId, status: revision.status }) },
+  }));
+}

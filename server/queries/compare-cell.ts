@@ -2,14 +2,12 @@ import type { WhereOptions } from 'sequelize';
 import type { z } from 'zod';
 import { bandStartOf, type BandedMember } from '@shared/aggregate';
 import type { CellRef, compareCellQuerySchema } from '@shared/schemas/compare';
-import type { Actor } from '@shared/permissions';
 import { limits } from '@shared/validations';
 import { badRequest } from '../errors';
 import { Result, User } from '../models';
 import { cellsOf, memberAttributes } from '../aggregates/comparison-cells';
 import { methodCells } from '../aggregates/cell-cache';
 import { resultIncludes } from '../search/documents';
-import { presentResult } from '../presenters/result';
 import { presentCell, resolveView, resultWhere, type ResolvedView } from './compare-view';
 
 type Member = BandedMember & { id: number; createdAt: Date };
@@ -28,9 +26,9 @@ export async function cellMembers(view: ResolvedView, ref: CellRef, field: strin
 
 /**
  * GET /api/compare/cell: one cell's figures and a page of its results (newest first), under the
- * same filters as the view it was opened from. Each result carries its author and method.
+ * same filters as the view it was opened from (the route presents the results).
  */
-export async function compareCell(query: z.infer<typeof compareCellQuerySchema>, viewer: Actor | null) {
+export async function compareCell(query: z.infer<typeof compareCellQuerySchema>) {
   const { cell: ref, page, ...filters } = query;
   const view = await resolveView(filters);
   const members = await cellMembers(view, ref, 'cell');
@@ -44,7 +42,7 @@ export async function compareCell(query: z.infer<typeof compareCellQuerySchema>,
   return {
     method: { slug: view.method.slug, name: view.method.name, version: view.method.version },
     cell: row,
-    items: ids.map((id) => presentResult(byId.get(id)!, viewer)),
+    results: ids.map((id) => byId.get(id)!),
     page,
     pageSize: limits.pageSize,
     total: members.length,

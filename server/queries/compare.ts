@@ -27,10 +27,11 @@ export async function compare(query: CompareQuery) {
   return computeCompare(query, await resolveView(query));
 }
 
-/** A response body ready to send, with its entity tag. */
+/** A response body ready to send, with its entity tag and where its page stands (for the Link header). */
 export interface CompareBody {
   body: string;
   etag: string;
+  page: { page: number; pageSize: number; total: number };
 }
 
 /**
@@ -38,8 +39,9 @@ export interface CompareBody {
  * a page or an account changes: server/middleware/answer-cache.ts).
  */
 export async function compareBody(query: CompareQuery): Promise<CompareBody> {
-  const body = JSON.stringify(await compare(query));
-  return { body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+  const answer = await compare(query);
+  const body = JSON.stringify(answer);
+  return { body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"`, page: { page: answer.page, pageSize: answer.pageSize, total: answer.total } };
 }
 
 async function computeCompare(query: CompareQuery, view: ResolvedView) {

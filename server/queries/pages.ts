@@ -3,14 +3,13 @@ import { parseSitePath, type RichTextNode } from '@shared/rich-text';
 import { normalizeFields, type PageContent, type PageType } from '@shared/schemas/pages';
 import { median } from '@shared/stats';
 import { changedFields } from '@shared/page-diff';
-import type { Actor } from '@shared/permissions';
-import { presentDeskRevision } from '../presenters/pages';
 import { Abrasive, Method, PAGE_TEXT_COLUMNS, PageEvent, PageRevision, Result, Steel, User } from '../models';
 import { notFound } from '../errors';
 import { keptUntil } from './kept-until';
 
-/** A reference page of any type. */
-export type PageModel = Steel | Abrasive | Method;
+import type { PageModel } from '../models/reference-pages';
+
+export type { PageModel };
 
 /** The model class of each page type. */
 export const PAGE_MODELS = { steel: Steel, abrasive: Abrasive, method: Method } as const;
@@ -210,17 +209,31 @@ async function approvedGroups(type: 'steel' | 'abrasive', pageId: number): Promi
 }
 
 /**
- * The review desk's page edits: every proposed revision, oldest first, as `kind: 'page-revision'`
- * items naming the page, the author, the fields changed against the revision it started from,
- * and whether the page has moved on since.
+ * The review desk's page edits: every proposed revision, oldest first, with its page and the
+ * fields changed against the revision it started from (presentDeskRevision shows them).
  */
-export async function reviewDeskRevisions(viewer: Actor) {
+export async function reviewDeskRevisions() {
   const queue = await proposedRevisions();
   const baseIds = [...new Set(queue.map((q) => q.revision.baseRevisionId).filter((id): id is number => id !== null))];
   const bases = new Map((await PageRevision.findAll({ where: { id: { [Op.in]: baseIds } } })).map((b) => [b.id, b]));
   return queue.map(({ revision, page }) => {
     const base = revision.baseRevisionId ? bases.get(revision.baseRevisionId) : undefined;
     const changed = base ? changedFields(revision.pageType, contentOf(base), contentOf(revision)) : [];
-    return presentDeskRevision(revision, page, changed, viewer);
+    return { revision, page, changed };
   });
+}
+
+/** Every method page without its texts (for version chains and the slugs they name). */
+export function methodsWithoutBodies(): Promise<Method[]> {
+  return Method.findAll({ attributes: { exclude: PAGE_TEXT_COLUMNS } });
+}
+
+/** A page revision by id, or null. */
+export function revisionById(id: number): Promise<PageRevision | null> {
+  return PageRevision.findByPk(id);
+}
+
+/** A page of a type by id, or null. */
+export async function pageById(type: PageType, id: number): Promise<PageModel | null> {
+  return (await (PAGE_MODELS[type] as typeof Method).findByPk(id)) as PageModel | null;
 }

@@ -1,12 +1,9 @@
 import { Op, fn, col } from 'sequelize';
-import { can, type Actor } from '@shared/permissions';
+import { can } from '@shared/permissions';
 import type { ResultStatus } from '@shared/schemas/result';
 import { notFound } from '../errors';
 import { ApiToken, Follow, ImportBatch, ImportBatchResult, Method, NotificationSetting, PublisherApplication, Result, ResultEvent, Steel, Abrasive, User } from '../models';
 import { resultIncludes } from '../search/documents';
-import { presentResult } from '../presenters/result';
-import { presentAccount } from '../presenters/user';
-import { presentApplication, presentToken } from '../presenters/publishing';
 
 const withTrail = [...resultIncludes, { model: ResultEvent, as: 'events', include: [{ model: User, as: 'actor' }] }];
 
@@ -30,9 +27,9 @@ async function approvedBy(userId: number, column: 'sharpnessMethodId' | 'steelId
 /**
  * A member's public profile: handle, name, role and badge, bio, when they joined, counts of
  * their published results, the methods they measure with and the steels they test, and their
- * newest published results. Never an e-mail address.
+ * newest published results (presentProfile shows them).
  */
-export async function publicProfile(handle: string, viewer: Actor | null) {
+export async function publicProfile(handle: string) {
   const user = await User.findOne({ where: { handle } });
   if (!user || user.banned) throw notFound('Member');
   const [methodCounts, steelCounts, published, retracted, recent] = await Promise.all([
@@ -45,7 +42,7 @@ export async function publicProfile(handle: string, viewer: Actor | null) {
   const methods = await Method.findAll({ where: { id: methodCounts.map((m) => m.sharpnessMethodId) }, attributes: ['id', 'slug', 'name'] });
   const steels = await Steel.findAll({ where: { id: steelCounts.map((s) => s.steelId) }, attributes: ['id', 'slug', 'name'] });
   return {
-    ...presentAccount(user),
+    user,
     bio: user.bio,
     joinedAt: user.createdAt,
     badge: await badgeOf(user),
@@ -57,7 +54,7 @@ export async function publicProfile(handle: string, viewer: Actor | null) {
       .map((s) => ({ slug: steels.find((x) => x.id === s.steelId)?.slug ?? '', name: steels.find((x) => x.id === s.steelId)?.name ?? '', results: Number(s.n) }))
       .sort((a, b) => b.results - a.results)
       .slice(0, 12),
-    recent: recent.map((r) => presentResult(r, viewer)),
+    recent,
   };
 }
 
@@ -71,7 +68,8 @@ const LIST = 50;
 /**
  * The member's own page: their account and badge, counts by state, drafts, pending and
  * returned results (with the moderator's notes), recent decisions, followed pages, e-mail
- * settings, tokens (publishers), their publisher application and their imports.
+ * settings, tokens (publishers), their publisher application and their imports (presentOwnPage
+ * shows them).
  */
 export async function ownPage(user: User) {
   const actor = user.asActor();
@@ -98,21 +96,21 @@ export async function ownPage(user: User) {
         raw: true,
       })) as unknown as { batchId: number; n: number }[])
     : [];
-  const present = (rows: Result[]) => rows.map((r) => presentResult(r, actor));
   return {
-    account: { ...presentAccount(user), hasEmail: !!user.email, badge: await badgeOf(user) },
+    user,
+    badge: await badgeOf(user),
     counts: Object.fromEntries(counts.map((c) => [c.status, Number(c.n)])) as Partial<Record<ResultStatus, number>>,
-    drafts: present(drafts),
-    pending: present(pending),
-    returned: present(returned),
-    rejected: present(rejected),
+    drafts,
+    pending,
+    returned,
+    rejected,
     following: [
       ...followedSteels.map((s) => ({ pageType: 'steel' as const, slug: s.slug, name: s.name })),
       ...followedAbrasives.map((a) => ({ pageType: 'abrasive' as const, slug: a.slug, name: a.name })),
     ],
     notifications: { review: settings?.review ?? true, application: settings?.application ?? true, digest: settings?.digest ?? true },
-    tokens: tokens.map(presentToken),
-    application: application ? presentApplication(application) : null,
+    tokens,
+    application,
     imports: imports.map((b) => ({ id: b.id, rows: b.rows, createdAt: b.createdAt, pending: Number(pendingPerImport.find((p) => p.batchId === b.id)?.n ?? 0) })),
     can: {
       import: can(actor, 'import:results'),

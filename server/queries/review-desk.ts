@@ -1,11 +1,7 @@
 import { Op, fn, col, type WhereOptions } from 'sequelize';
-import type { Actor } from '@shared/permissions';
 import type { ReviewDeskQuery } from '@shared/schemas/publishing';
 import { Abrasive, Flag, ImportBatch, ImportBatchResult, Method, Result, ResultEvent, Steel, User } from '../models';
 import { resultIncludes } from '../search/documents';
-import { presentResult } from '../presenters/result';
-import { presentFlag } from '../presenters/publishing';
-import { presentAccount } from '../presenters/user';
 
 const withTrail = [...resultIncludes, { model: ResultEvent, as: 'events', include: [{ model: User, as: 'actor' }] }];
 const DESK_LIMIT = 200;
@@ -28,12 +24,6 @@ export async function pendingResults(filters: ReviewDeskQuery): Promise<{ result
   const results = await Result.findAll({ where, include: withTrail, order: [['createdAt', 'ASC'], ['id', 'ASC']], limit: DESK_LIMIT });
   const links = await ImportBatchResult.findAll({ where: { resultId: { [Op.in]: results.map((r) => r.id) } } });
   return { results, importOf: new Map(links.map((l) => [l.resultId, l.batchId])) };
-}
-
-/** The desk's result items: the presented result, marked as a result, with the import it came in. */
-export async function deskResultItems(filters: ReviewDeskQuery, viewer: Actor) {
-  const { results, importOf } = await pendingResults(filters);
-  return results.map((r) => ({ kind: 'result' as const, ...presentResult(r, viewer), importId: importOf.get(r.id) ?? null }));
 }
 
 /** A short title and a client path for what a flag is about. */
@@ -59,7 +49,7 @@ async function flagSubjects(flags: Flag[]): Promise<Map<number, { title: string;
   return out;
 }
 
-/** Open flags, oldest first, with what each is about. */
+/** Open flags, oldest first, each with what it is about (a title and a client path, or null when gone). */
 export async function openFlags(filters: ReviewDeskQuery = {}) {
   const where: Record<string, unknown> = { status: 'open' };
   if (filters.author) {
@@ -68,7 +58,7 @@ export async function openFlags(filters: ReviewDeskQuery = {}) {
   }
   const flags = await Flag.findAll({ where, include: [{ model: User, as: 'reporter' }], order: [['createdAt', 'ASC'], ['id', 'ASC']], limit: DESK_LIMIT });
   const subjects = await flagSubjects(flags);
-  return flags.map((f) => ({ kind: 'flag' as const, ...presentFlag(f, subjects.get(f.id) ?? null) }));
+  return flags.map((flag) => ({ flag, subject: subjects.get(flag.id) ?? null }));
 }
 
 /** Imports that still have pending results, oldest first, with the count still pending. */
@@ -80,11 +70,5 @@ export async function pendingImports() {
     raw: true,
   })) as unknown as { batchId: number; pending: number }[];
   const batches = await ImportBatch.findAll({ where: { id: rows.map((r) => r.batchId) }, include: [{ model: User, as: 'publisher' }], order: [['createdAt', 'ASC']] });
-  return batches.map((b) => ({
-    id: b.id,
-    publisher: b.publisher ? presentAccount(b.publisher) : null,
-    rows: b.rows,
-    pending: Number(rows.find((r) => r.batchId === b.id)?.pending ?? 0),
-    createdAt: b.createdAt,
-  }));
+  return batches.map((batch) => ({ batch, pending: Number(rows.find((r) => r.batchId === batch.id)?.pending ?? 0) }));
 }

@@ -142,3 +142,8 @@ export async function readWorkshop(ownerId: number) {
     },
   };
 }
+
+/** An abrasive page's id and slug by its slug, or null. */
+export async function abrasiveBySlug(slug: string) {
+  return Abrasive.findOne({ where: { slug }, attributes: ['id', 'slug'] });
+}

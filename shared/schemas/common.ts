@@ -11,3 +11,9 @@ export const slugSchema = z
   .min(1, 'required')
   .max(limits.slugMax)
   .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, 'must be a slug: lower-case letters, digits and hyphens');
+
+/** The path of a route that names a record by its numeric id (`/results/:id`). */
+export const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
+
+/** The path of a route that names a member by handle (`/profiles/:handle`). */
+export const handleParams = z.object({ handle: z.string().min(1).max(limits.handleMax).regex(/^[a-z0-9-]+$/, 'not a handle') }).strict();

@@ -4,6 +4,7 @@ import { ComputationError } from '../computation-error';
 import { GRIT_STANDARDS, parseGrit } from '../grit';
 import { ABRASIVE_FORMS, ABRASIVE_MATERIALS, BONDS, COOLANTS, DESIGNATION_SYSTEMS, STEEL_CATEGORIES } from '../vocabulary';
 import { limits } from '../validations';
+import { slugSchema } from './result';
 
 /**
  * The editable fields of each reference page type, as the wiki's forms show them and as a page
@@ -18,6 +19,12 @@ export type PageType = (typeof PAGE_TYPES)[number];
 
 /** The API's plural section for each page type ("/api/steels/…"). */
 export const PAGE_SECTIONS: Record<PageType, 'steels' | 'abrasives' | 'methods'> = { steel: 'steels', abrasive: 'abrasives', method: 'methods' };
+
+/** The path of a page route (`/steels/:slug`). */
+export const slugParams = z.object({ slug: slugSchema }).strict();
+
+/** The path of one revision of a page (`/steels/:slug/revisions/:id`). */
+export const revisionParams = z.object({ slug: slugSchema, id: z.coerce.number().int().positive() }).strict();
 
 const keysOf = <T extends Record<string, string>>(table: T) => Object.keys(table) as [keyof T & string, ...(keyof T & string)[]];
 const text = (max: number) => z.string().trim().min(1, 'required').max(max, `at most ${max} characters`);

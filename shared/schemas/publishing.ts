@@ -88,6 +88,9 @@ export type FlagResolutionInput = z.infer<typeof flagResolutionSchema>;
 
 /** Pages a member can follow for the weekly digest. */
 export const FOLLOWABLE_PAGES = ['steel', 'abrasive'] as const;
+
+/** The path of a follow to remove (`/me/follows/:pageType/:slug`). */
+export const followParams = z.object({ pageType: z.enum(FOLLOWABLE_PAGES), slug: slugSchema }).strict();
 export type FollowablePage = (typeof FOLLOWABLE_PAGES)[number];
 export const followInputSchema = z.object({ pageType: z.enum(FOLLOWABLE_PAGES), slug: slugSchema }).strict();
 
@@ -150,4 +153,7 @@ export const auditQuerySchema = z
 export const siteSettingsSchema = z
   .object({ trustPublisherImports: z.boolean() })
   .strict();
+
+/** PUT /publishers/settings: any of the settings, nothing else. */
+export const siteSettingsChangeSchema = siteSettingsSchema.partial().strict();
 export type SiteSettings = z.infer<typeof siteSettingsSchema>;

@@ -24,6 +24,18 @@ export class ApiError extends Error {
   }
 }
 
+/** The API version the client speaks: every call goes to /api/v1/… (README, "API"). */
+export const API_BASE = '/api/v1';
+
+/**
+ * The URL of an endpoint on the API version the client speaks: endpoint files name paths as
+ * `/api/results`, and this sends them to `/api/v1/results`. Every request and download link
+ * the client makes goes through it.
+ */
+export function apiUrl(path: string): string {
+  return path.startsWith('/api/') && !path.startsWith(`${API_BASE}/`) ? `${API_BASE}${path.slice('/api'.length)}` : path;
+}
+
 let csrfToken: string | null = null;
 
 /** Remember the CSRF token that came with the current session (called by the session query). */
@@ -32,7 +44,7 @@ export function setCsrfToken(token: string | null): void {
 }
 
 async function fetchCsrfToken(): Promise<string | null> {
-  const res = await fetch('/api/session', { credentials: 'same-origin', headers: { Accept: 'application/json' } });
+  const res = await fetch(apiUrl('/api/session'), { credentials: 'same-origin', headers: { Accept: 'application/json' } });
   if (!res.ok) return null;
   const body = (await res.json()) as { csrfToken?: string };
   csrfToken = body.csrfToken ?? null;
@@ -85,7 +97,7 @@ export async function apiRequest<T>(url: string, options: RequestOptions = {}): 
       const token = csrfToken ?? (await fetchCsrfToken());
       if (token) headers['X-CSRF-Token'] = token;
     }
-    return fetch(url, {
+    return fetch(apiUrl(url), {
       method,
       headers,
       credentials: 'same-origin',

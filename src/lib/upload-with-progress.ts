@@ -3,7 +3,7 @@
  * XMLHttpRequest's upload.onprogress. Same rules as the API client: same-origin cookies, the
  * session's CSRF token, failures thrown as ApiError (with the server's whole body kept).
  */
-import { ApiError } from '@/lib/api-client';
+import { ApiError, apiUrl } from '@/lib/api-client';
 import { getSession } from '@/lib/auth';
 
 /** A refused upload; `body` is the server's JSON answer (an import's report, for example). */
@@ -20,7 +20,7 @@ export async function uploadWithProgress<T>(url: string, form: FormData, onProgr
   const { csrfToken } = await getSession();
   return new Promise<T>((resolve, reject) => {
     const xhr = new XMLHttpRequest();
-    xhr.open('POST', url);
+    xhr.open('POST', apiUrl(url));
     xhr.withCredentials = true;
     xhr.setRequestHeader('Accept', 'application/json');
     xhr.setRequestHeader('X-CSRF-Token', csrfToken);
@@ -30,7 +30,7 @@ export async function uploadWithProgress<T>(url: string, form: FormData, onProgr
     xhr.upload.onload = () => onProgress?.(1);
     xhr.onerror = () => reject(new TypeError('The upload could not reach the server.'));
     xhr.onload = () => {
-      let body: unknown = null;
+      let body: unknown;
       try {
         body = xhr.responseText ? JSON.parse(xhr.responseText) : null;
       } catch {

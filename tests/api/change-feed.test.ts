@@ -12,7 +12,7 @@ import { Op } from 'sequelize';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
 import { ChangeRow } from '../../server/changes/change-row';
 import { Result, Steel, User } from '../../server/models';
-import { toCsv } from '../../shared/csv';
+import { toCsv } from '../../shared/csv-writer';
 import { applyForPublisher } from '../../server/commands/apply-for-publisher';
 import { bulkApproveResults } from '../../server/commands/bulk-approve-results';
 import { createToken } from '../../server/commands/create-token';

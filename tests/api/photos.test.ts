@@ -51,7 +51,7 @@ describe('photos of a result', () => {
     expect(await exifr.gps(original)).toMatchObject({ latitude: 51.5 });
 
     const res = await upload(resultId, original, 'IMG_0001 holiday.jpg').expect(201);
-    expect(res.body).toMatchObject({ id: expect.any(Number), url: `/api/photos/${res.body.id}`, thumbUrl: `/api/photos/${res.body.id}/thumb`, alt: 'Edge at 100× under the microscope' });
+    expect(res.body).toMatchObject({ id: expect.any(Number), url: `/api/v1/photos/${res.body.id}`, thumbUrl: `/api/v1/photos/${res.body.id}/thumb`, alt: 'Edge at 100× under the microscope' });
 
     const image = await author.agent.get(res.body.url).buffer(true).parse((r, cb) => {
       const chunks: Buffer[] = [];

@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import Papa from 'papaparse';
-import { IMPORT_COLUMNS, toCsv } from '../../shared/csv';
+import { IMPORT_COLUMNS } from '../../shared/csv';
+import { toCsv } from '../../shared/csv-writer';
 import { parseGrit } from '../../shared/grit';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
 import { Abrasive, Result } from '../../server/models';

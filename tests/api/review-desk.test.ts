@@ -2,7 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
 import { AuditEntry, Result, User } from '../../server/models';
-import { IMPORT_COLUMNS, toCsv } from '../../shared/csv';
+import { IMPORT_COLUMNS } from '../../shared/csv';
+import { toCsv } from '../../shared/csv-writer';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let member: Awaited<ReturnType<typeof signIn>>;

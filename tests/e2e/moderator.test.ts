@@ -8,7 +8,8 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startE2eApp, type E2eApp } from '../setup/e2e-app';
-import { IMPORT_COLUMNS, toCsv } from '../../shared/csv';
+import { IMPORT_COLUMNS } from '../../shared/csv';
+import { toCsv } from '../../shared/csv-writer';
 
 let app: E2eApp;
 let base = '';

@@ -10,7 +10,8 @@ import type { Page } from 'playwright-core';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startE2eApp, type E2eApp } from '../setup/e2e-app';
-import { IMPORT_COLUMNS, toCsv } from '../../shared/csv';
+import { IMPORT_COLUMNS } from '../../shared/csv';
+import { toCsv } from '../../shared/csv-writer';
 
 let app: E2eApp;
 let base = '';
@@ -59,7 +60,7 @@ describe('the publisher’s journey in a browser', () => {
     await page.getByRole('heading', { name: 'Import results', level: 1 }).waitFor();
     // The header offers the import to publishers.
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Import' }).waitFor();
-    expect(await page.getByRole('link', { name: 'Download the template (CSV)' }).getAttribute('href')).toBe('/api/import/template.csv');
+    expect(await page.getByRole('link', { name: 'Download the template (CSV)' }).getAttribute('href')).toBe('/api/v1/import/template.csv');
 
     await page.getByLabel('CSV file of results').setInputFiles(csvFile('mixed.csv', [row(0), row(1), row(2, { steel: 'no-such-steel' }), row(3, { readings_g: '' })]));
     await page.getByRole('button', { name: 'Check the file' }).click();

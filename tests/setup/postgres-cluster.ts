@@ -63,7 +63,7 @@ export async function startCluster(): Promise<Cluster> {
     const log = path.join(dir, 'server.log');
     const detail = fs.existsSync(log) ? fs.readFileSync(log, 'utf8') : String((err as { stderr?: Buffer }).stderr ?? '');
     fs.rmSync(dir, { recursive: true, force: true });
-    throw new Error(`could not start a PostgreSQL cluster: ${(err as Error).message}\n${detail}`);
+    throw new Error(`could not start a PostgreSQL cluster: ${(err as Error).message}\n${detail}`, { cause: err });
   }
   return {
     url: `postgres://postgres@127.0.0.1:${port}/`,

@@ -25,6 +25,7 @@ import { devRouter } from './dev';
 import { adminRouter } from './admin';
 import type { MailCatcher } from '../../mail/mail-catcher';
 import { emptyQuerySchema } from '@shared/schemas/common';
+import { openApiJson } from '../../openapi/document';
 import type { AnswerCache } from '../../middleware/answer-cache';
 
 export interface ApiOptions {
@@ -47,6 +48,11 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
   router.get('/session', validate({ query: emptyQuerySchema }), (req, res) => {
     const user = req.user as User | undefined;
     res.set('Cache-Control', 'no-store').json({ user: user ? presentAccount(user) : null, csrfToken: csrfTokenOf(req) });
+  });
+
+  // This API's OpenAPI 3.1 document (server/openapi/), the same for everyone.
+  router.get('/openapi.json', validate({ query: emptyQuerySchema }), (_req, res) => {
+    res.type('application/json').set('Cache-Control', 'no-cache').send(openApiJson());
   });
 
   // The busiest reads first: Express tries each route of every router in turn until one matches.

@@ -5,7 +5,7 @@ import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
 import { csrfProtection } from '../../middleware/auth';
 import { notFound } from '../../errors';
-import { User } from '../../models';
+import { activeAccounts } from '../../queries/accounts';
 import { presentAccount } from '../../presenters/user';
 import { emptyQuerySchema } from '@shared/schemas/common';
 
@@ -49,7 +49,7 @@ export function authRouter(ctx: AppContext, auth: passport.PassportStatic): Rout
 
   router.get('/demo-accounts', validate({ query: emptyQuerySchema }), async (_req, res) => {
     if (ctx.env.isProduction) throw notFound('Demo accounts');
-    const users = await User.findAll({ where: { banned: false }, order: [['role', 'ASC'], ['handle', 'ASC']] });
+    const users = await activeAccounts();
     res.json(users.map(presentAccount));
   });
 

@@ -25,6 +25,7 @@ export interface DataTableProps<T> {
   caption?: ReactNode;
   data: T[];
   /** Columns; their value types differ per column, hence `any` for the value. */
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- each column's value type differs
   columns: ColumnDef<T, any>[];
   initialSorting?: SortingState;
   /** A stable key per row (an id or slug), so React keeps rows across re-sorts. */

@@ -7,6 +7,7 @@ import { validate } from '../../../middleware/validate';
 import { forbidden } from '../../../errors';
 import { auditLog } from '../../../queries/audit';
 import { presentAuditEntry } from '../../../presenters/publishing';
+import { setPageLinks } from '../../../presenters/page-links';
 
 /** The audit log: read-only, for moderators and admins. There is deliberately no route that changes it. */
 export function auditRouter(): Router {
@@ -14,7 +15,7 @@ export function auditRouter(): Router {
   router.get('/audit', requireUser, validate({ query: auditQuerySchema }), async (req, res) => {
     if (!can(actorOf(req), 'read:audit')) throw forbidden('The audit log is for moderators.');
     const page = await auditLog(req.valid.query as z.infer<typeof auditQuerySchema>);
-    res.set('Cache-Control', 'no-store').json({ ...page, items: page.items.map(presentAuditEntry) });
+    setPageLinks(req, res, page).set('Cache-Control', 'no-store').json({ ...page, items: page.items.map(presentAuditEntry) });
   });
   return router;
 }

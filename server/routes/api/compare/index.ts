@@ -16,6 +16,8 @@ import { compareCell } from '../../../queries/compare-cell';
 import { comparePaired } from '../../../queries/compare-paired';
 import { compareDifference } from '../../../queries/compare-difference';
 import { comparePoints } from '../../../queries/compare-points';
+import { setPageLinks } from '../../../presenters/page-links';
+import { presentResult } from '../../../presenters/result';
 
 /**
  * The comparison under /api/compare: the table (and pivot), its export, a cell's results, the
@@ -28,9 +30,9 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   const kept = answers.keep('compare', { forEveryone: true });
 
   router.get('/compare', kept, validate({ query: compareQuerySchema }), async (req, res) => {
-    const { body, etag } = await compareBody(req.valid.query as z.infer<typeof compareQuerySchema>);
+    const { body, etag, page } = await compareBody(req.valid.query as z.infer<typeof compareQuerySchema>);
     // Express would hash the body again for its ETag; this one was made once, with the body.
-    res.set('ETag', etag);
+    setPageLinks(req, res, page).set('ETag', etag);
     if (req.fresh) {
       res.status(304).end();
       return;
@@ -49,7 +51,9 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   });
 
   router.get('/compare/cell', validate({ query: compareCellQuerySchema }), async (req, res) => {
-    res.json(await compareCell(req.valid.query as z.infer<typeof compareCellQuerySchema>, actorOf(req)));
+    const { results, ...cell } = await compareCell(req.valid.query as z.infer<typeof compareCellQuerySchema>);
+    const viewer = actorOf(req);
+    setPageLinks(req, res, cell).json({ ...cell, items: results.map((r) => presentResult(r, viewer)) });
   });
 
   router.get('/compare/paired', validate({ query: comparePairedQuerySchema }), async (req, res) => {

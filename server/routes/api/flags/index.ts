@@ -8,10 +8,10 @@ import { validate } from '../../../middleware/validate';
 import { forbidden } from '../../../errors';
 import { flagItem, resolveFlag } from '../../../commands/flag-item';
 import { openFlags } from '../../../queries/review-desk';
+import { presentOpenFlags } from '../../../presenters/review-desk';
 import { presentFlag } from '../../../presenters/publishing';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Flags: any member flags an approved result or a page; moderators list and close them. */
 export function flagsRouter(ctx: AppContext): Router {
@@ -24,7 +24,7 @@ export function flagsRouter(ctx: AppContext): Router {
 
   router.get('/flags', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     if (!can(actorOf(req), 'resolve:flag')) throw forbidden('Flags are read by moderators.');
-    res.json({ items: await openFlags() });
+    res.json({ items: presentOpenFlags(await openFlags()) });
   });
 
   router.post('/flags/:id/resolve', requireUser, validate({ params: idParams, body: flagResolutionSchema }), async (req, res) => {

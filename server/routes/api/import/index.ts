@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { z } from 'zod';
 import { can } from '@shared/permissions';
-import { toCsv } from '@shared/csv';
+import { toCsv } from '@shared/csv-writer';
 import { importLimits, importQuerySchema } from '@shared/schemas/import';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';

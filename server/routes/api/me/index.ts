@@ -1,8 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { resultInputSchema, type ResultInput } from '@shared/schemas/result';
-import { FOLLOWABLE_PAGES, followInputSchema, notificationSettingsSchema, unsubscribeSchema } from '@shared/schemas/publishing';
-import { slugSchema } from '@shared/schemas/result';
+import { followParams, followInputSchema, notificationSettingsSchema, unsubscribeSchema } from '@shared/schemas/publishing';
 import { EMAIL_TOPICS } from '@shared/schemas/publishing';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
@@ -10,6 +9,7 @@ import { validate } from '../../../middleware/validate';
 import { badRequest } from '../../../errors';
 import type { User } from '../../../models';
 import { ownPage, resultsForExport } from '../../../queries/profiles';
+import { presentOwnPage } from '../../../presenters/profile';
 import { findDuplicates } from '../../../queries/duplicates';
 import { followPage, unfollowPage } from '../../../commands/follow-page';
 import { updateNotificationSettings } from '../../../commands/update-notification-settings';
@@ -17,14 +17,13 @@ import { verifyUnsubscribe } from '../../../mail/unsubscribe';
 import { resultsCsv } from '../../../presenters/result-csv';
 import { emptyQuerySchema } from '@shared/schemas/common';
 
-const followParams = z.object({ pageType: z.enum(FOLLOWABLE_PAGES), slug: slugSchema }).strict();
 
 /** The member's own page and settings: drafts and decisions, follows, e-mail, export, duplicate check, unsubscribe. */
 export function meRouter(ctx: AppContext): Router {
   const router = Router();
 
   router.get('/me', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
-    res.set('Cache-Control', 'no-store').json(await ownPage(req.user as User));
+    res.set('Cache-Control', 'no-store').json(presentOwnPage(await ownPage(req.user as User)));
   });
 
   router.get('/me/results.csv', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {

@@ -1,10 +1,9 @@
 import { Router, type Response } from 'express';
 import { z } from 'zod';
-import { slugSchema } from '@shared/schemas/result';
 import { can, type Actor } from '@shared/permissions';
 import { gritBandPhi } from '@shared/grit';
 import { matchesComposition, parseCompositionFilter } from '@shared/composition-filter';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import {
   abrasiveListQuerySchema,
   PAGE_SECTIONS,
@@ -14,6 +13,8 @@ import {
   pageProtectSchema,
   pageRevertSchema,
   pageReviewSchema,
+  revisionParams,
+  slugParams,
   steelListQuerySchema,
   type PageEdit,
   type PageMerge,
@@ -28,14 +29,16 @@ import { validate } from '../../../middleware/validate';
 import type { AnswerCache } from '../../../middleware/answer-cache';
 import { forbidden, notFound } from '../../../errors';
 import { keptUntil } from '../../../queries/kept-until';
-import { Method, PAGE_TEXT_COLUMNS, PageRevision, type Abrasive, type Steel } from '../../../models';
+import type { Abrasive, Method, Steel } from '../../../models';
 import {
   approvedCounts,
   eventsOf,
   findPageOfType,
   findRevisionOf,
   linkCheckerFor,
-  PAGE_MODELS,
+  methodsWithoutBodies,
+  pageById,
+  revisionById,
   listAbrasives,
   listMethods,
   listSteels,
@@ -63,9 +66,6 @@ import { revertPage } from '../../../commands/revert-page';
 import { protectPage } from '../../../commands/protect-page';
 import { mergePages } from '../../../commands/merge-pages';
 
-const slugParams = z.object({ slug: slugSchema }).strict();
-const revisionParams = z.object({ slug: slugSchema, id: z.coerce.number().int().positive() }).strict();
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Every method that is a version of the same protocol as `method` (linked by `replacesId`), oldest first. */
 function versionsOf(method: Method, all: Method[]): Method[] {
@@ -92,7 +92,7 @@ async function presentPage(type: PageType, page: PageModel, viewer: Actor | null
     return presentAbrasive(page as Abrasive, results.count, { ...extras, results });
   }
   // Every method, for the version chain and the slugs it names: without their bodies.
-  const methods = await Method.findAll({ attributes: { exclude: PAGE_TEXT_COLUMNS } });
+  const methods = await methodsWithoutBodies();
   return presentMethod(page as Method, new Map(methods.map((m) => [m.id, m.slug])), { ...extras, versions: versionsOf(page as Method, methods) });
 }
 
@@ -187,7 +187,7 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
         res
           .status(301)
           .set('Cache-Control', 'no-store')
-          .location(`/api/${section}/${survivor.slug}`)
+          .location(`${req.baseUrl}/${section}/${survivor.slug}`)
           .json({ redirectTo: survivor.slug, mergedInto: { slug: survivor.slug, name: survivor.name } });
         return;
       }
@@ -281,9 +281,9 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
 
   router.get('/page-revisions/:id', validate({ params: idParams }), async (req, res) => {
     const viewer = actorOf(req);
-    const revision = await PageRevision.findByPk((req.valid.params as z.infer<typeof idParams>).id);
+    const revision = await revisionById((req.valid.params as z.infer<typeof idParams>).id);
     if (!revision || !can(viewer, 'read:page-revision', { authorId: revision.authorId, status: revision.status })) throw notFound('Revision');
-    const page = (await (PAGE_MODELS[revision.pageType] as typeof Method).findByPk(revision.pageId)) as PageModel | null;
+    const page = await pageById(revision.pageType, revision.pageId);
     if (!page) throw notFound('Page');
     res.json(presentRevision(await findRevisionOf(revision.pageType, page.id, revision.id), page, viewer));
   });

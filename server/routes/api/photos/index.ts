@@ -2,16 +2,16 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { can } from '@shared/permissions';
 import { photoFieldsSchema, photoLimits } from '@shared/schemas/publishing';
+import { idParams } from '@shared/schemas/common';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { forbidden, notFound } from '../../../errors';
-import { Photo, Result } from '../../../models';
+import { photosOf, photoWithResult, resultForPhotos } from '../../../queries/photos';
 import { receiveFile } from '../../../storage/upload';
 import { removePhoto, uploadPhoto } from '../../../commands/upload-photo';
 import { presentPhoto } from '../../../presenters/publishing';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Photos of results: upload (the author), list, the image and its thumbnail, removal. */
 export function photosRouter(ctx: AppContext): Router {
@@ -24,7 +24,7 @@ export function photosRouter(ctx: AppContext): Router {
     async (req, _res, next) => {
       // Refuse before reading the upload: only the author sends a file.
       const { id } = req.valid.params as z.infer<typeof idParams>;
-      const result = await Result.findByPk(id, { attributes: ['id', 'authorId', 'status'] });
+      const result = await resultForPhotos(id);
       const actor = actorOf(req);
       if (!result || !can(actor, 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Result');
       if (!can(actor, 'upload:photo', { authorId: result.authorId, status: result.status })) {
@@ -44,16 +44,16 @@ export function photosRouter(ctx: AppContext): Router {
 
   router.get('/results/:id/photos', validate({ params: idParams }), async (req, res) => {
     const { id } = req.valid.params as z.infer<typeof idParams>;
-    const result = await Result.findByPk(id, { attributes: ['id', 'authorId', 'status'] });
+    const result = await resultForPhotos(id);
     if (!result || !can(actorOf(req), 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Result');
-    const photos = await Photo.findAll({ where: { resultId: id, removedAt: null }, order: [['id', 'ASC']] });
+    const photos = await photosOf(id);
     res.json({ items: photos.map(presentPhoto), max: photoLimits.perResult, canAdd: can(actorOf(req), 'upload:photo', { authorId: result.authorId, status: result.status }) });
   });
 
   for (const variant of ['image', 'thumb'] as const) {
     router.get(variant === 'image' ? '/photos/:id' : '/photos/:id/thumb', validate({ params: idParams }), async (req, res) => {
       const { id } = req.valid.params as z.infer<typeof idParams>;
-      const photo = await Photo.findByPk(id, { include: [{ model: Result, as: 'result', attributes: ['id', 'authorId', 'status'] }] });
+      const photo = await photoWithResult(id);
       const result = photo?.result;
       if (!photo || photo.removedAt || !result || !can(actorOf(req), 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Photo');
       const object = await ctx.storage.get(variant === 'image' ? photo.objectKey : photo.thumbKey);

@@ -1,14 +1,13 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { limits } from '@shared/validations';
+import { handleParams } from '@shared/schemas/common';
 import { actorOf } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { notFound } from '../../../errors';
-import { User } from '../../../models';
+import { memberByHandle } from '../../../queries/accounts';
 import { publicProfile, resultsForExport } from '../../../queries/profiles';
 import { resultsCsv } from '../../../presenters/result-csv';
-
-const handleParams = z.object({ handle: z.string().min(1).max(limits.handleMax).regex(/^[a-z0-9-]+$/, 'not a handle') }).strict();
+import { presentProfile } from '../../../presenters/profile';
 
 /** Public member profiles and each member's published results as CSV. */
 export function profilesRouter(): Router {
@@ -16,12 +15,12 @@ export function profilesRouter(): Router {
 
   router.get('/profiles/:handle', validate({ params: handleParams }), async (req, res) => {
     const { handle } = req.valid.params as z.infer<typeof handleParams>;
-    res.json(await publicProfile(handle, actorOf(req)));
+    res.json(presentProfile(await publicProfile(handle), actorOf(req)));
   });
 
   router.get('/profiles/:handle/results.csv', validate({ params: handleParams }), async (req, res) => {
     const { handle } = req.valid.params as z.infer<typeof handleParams>;
-    const user = await User.findOne({ where: { handle } });
+    const user = await memberByHandle(handle);
     if (!user || user.banned) throw notFound('Member');
     res.type('text/csv; charset=utf-8').attachment(`edgeledger-${handle}-results.csv`).send(resultsCsv(await resultsForExport(user.id, false)));
   });

@@ -1,12 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { can } from '@shared/permissions';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import {
   applicationDecisionSchema,
   applicationListQuerySchema,
   publisherApplicationSchema,
-  siteSettingsSchema,
+  siteSettingsChangeSchema,
   type ApplicationDecisionInput,
   type PublisherApplicationInput,
 } from '@shared/schemas/publishing';
@@ -14,7 +14,7 @@ import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { forbidden } from '../../../errors';
-import { PublisherApplication, User } from '../../../models';
+import { applicationById, applications, publishers } from '../../../queries/accounts';
 import { applyForPublisher } from '../../../commands/apply-for-publisher';
 import { decidePublisherApplication } from '../../../commands/decide-publisher-application';
 import { updateSiteSettings } from '../../../commands/update-site-settings';
@@ -23,27 +23,26 @@ import { badgeOf } from '../../../queries/profiles';
 import { presentApplication } from '../../../presenters/publishing';
 import { presentAccount } from '../../../presenters/user';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Publishers: the public list, applications and their decisions, and the publishing settings (admin). */
 export function publishersRouter(ctx: AppContext): Router {
   const router = Router();
 
   router.get('/publishers', validate({ query: emptyQuerySchema }), async (_req, res) => {
-    const users = await User.findAll({ where: { role: 'publisher', banned: false }, order: [['handle', 'ASC']] });
+    const users = await publishers();
     res.json({ items: await Promise.all(users.map(async (u) => ({ ...presentAccount(u), badge: await badgeOf(u) }))) });
   });
 
   router.post('/publishers/applications', requireUser, validate({ body: publisherApplicationSchema }), async (req, res) => {
     const application = await applyForPublisher(ctx, actorOf(req)!, req.valid.body as PublisherApplicationInput);
-    const full = await PublisherApplication.findByPk(application.id, { include: ['applicant', 'decidedBy'] });
+    const full = await applicationById(application.id);
     res.status(201).json(presentApplication(full!));
   });
 
   router.get('/publishers/applications', requireUser, validate({ query: applicationListQuerySchema }), async (req, res) => {
     if (!can(actorOf(req), 'decide:publisher-application')) throw forbidden('Publisher applications are decided by admins.');
     const { status } = req.valid.query as z.infer<typeof applicationListQuerySchema>;
-    const rows = await PublisherApplication.findAll({ where: status ? { status } : {}, include: ['applicant', 'decidedBy'], order: [['createdAt', 'ASC']], limit: 500 });
+    const rows = await applications(status);
     res.json({ items: rows.map(presentApplication) });
   });
 
@@ -57,8 +56,8 @@ export function publishersRouter(ctx: AppContext): Router {
     res.json(await siteSettings());
   });
 
-  router.put('/publishers/settings', requireUser, validate({ body: siteSettingsSchema.partial().strict() }), async (req, res) => {
-    res.json(await updateSiteSettings(ctx, actorOf(req)!, req.valid.body as Partial<z.infer<typeof siteSettingsSchema>>));
+  router.put('/publishers/settings', requireUser, validate({ body: siteSettingsChangeSchema }), async (req, res) => {
+    res.json(await updateSiteSettings(ctx, actorOf(req)!, req.valid.body as z.infer<typeof siteSettingsChangeSchema>));
   });
 
   return router;

@@ -10,19 +10,20 @@ import { can } from '@shared/permissions';
 import { submitResult } from '../../../commands/submit-result';
 import { reviewResult } from '../../../commands/review-result';
 import { findResult, listResults } from '../../../queries/results';
-import { presentResult, presentResultRevision } from '../../../presenters/result';
+import { presentPendingRevisions, presentResult, presentResultRevision } from '../../../presenters/result';
 import { editResult, saveDraft } from '../../../commands/edit-result';
 import { reviewResultRevision } from '../../../commands/review-result-revision';
 import { pendingResultRevisions, resultRevisions } from '../../../queries/result-revisions';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { setPageLinks } from '../../../presenters/page-links';
 import { reviewDeskRevisions } from '../../../queries/pages';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import { bulkApproveSchema, retractInputSchema, reviewDeskQuerySchema, type ReviewDeskQuery } from '@shared/schemas/publishing';
-import { deskResultItems, openFlags, pendingImports } from '../../../queries/review-desk';
+import { openFlags, pendingImports, pendingResults } from '../../../queries/review-desk';
+import { presentDeskResults, presentDeskRevisions, presentOpenFlags, presentPendingImports } from '../../../presenters/review-desk';
 import { bulkApproveResults } from '../../../commands/bulk-approve-results';
 import { retractResult } from '../../../commands/retract-result';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
-const revisionParams = z.object({ id: z.coerce.number().int().positive(), rev: z.coerce.number().int().positive() }).strict();
+const resultRevisionParams = z.object({ id: z.coerce.number().int().positive(), rev: z.coerce.number().int().positive() }).strict();
 
 /** Results: post, list, read, review; and the review desk's queue. */
 export function resultsRouter(ctx: AppContext): Router {
@@ -53,13 +54,13 @@ export function resultsRouter(ctx: AppContext): Router {
 
   router.get('/results/:id/revisions', validate({ params: idParams, query: emptyQuerySchema }), async (req, res) => {
     const { id } = req.valid.params as z.infer<typeof idParams>;
-    res.json(await resultRevisions(id, actorOf(req)));
+    res.json({ items: (await resultRevisions(id, actorOf(req))).map(({ revision, replaces }) => presentResultRevision(revision, replaces)) });
   });
 
-  router.post('/results/:id/revisions/:rev/review', requireUser, validate({ params: revisionParams, body: reviewInputSchema }), async (req, res) => {
+  router.post('/results/:id/revisions/:rev/review', requireUser, validate({ params: resultRevisionParams, body: reviewInputSchema }), async (req, res) => {
     const actor = actorOf(req)!;
     if (!can(actor, 'read:review-desk')) throw forbidden('Only moderators review corrections.');
-    const { id, rev } = req.valid.params as z.infer<typeof revisionParams>;
+    const { id, rev } = req.valid.params as z.infer<typeof resultRevisionParams>;
     const done = await reviewResultRevision(ctx, req.user as User, id, rev, req.valid.body as ReviewInput);
     res.json({ result: presentResult(done.result, actor), revision: presentResultRevision(done.revision, null) });
   });
@@ -67,7 +68,7 @@ export function resultsRouter(ctx: AppContext): Router {
   router.get('/results', validate({ query: resultListQuerySchema }), async (req, res) => {
     const viewer = actorOf(req);
     const page = await listResults(req.valid.query as z.infer<typeof resultListQuerySchema>, viewer);
-    res.json({ ...page, items: page.items.map((r) => presentResult(r, viewer)) });
+    setPageLinks(req, res, page).json({ ...page, items: page.items.map((r) => presentResult(r, viewer)) });
   });
 
   router.get('/results/:id', validate({ params: idParams }), async (req, res) => {
@@ -91,12 +92,12 @@ export function resultsRouter(ctx: AppContext): Router {
     // `revisions`: proposed page edits (kind 'page-revision'), beside the results in `items`;
     // `flags`: open flags; `imports`: publishers' imports with results still pending.
     res.json({
-      items: show('result') ? await deskResultItems(filters, actor) : [],
-      revisions: show('page-revision') ? await reviewDeskRevisions(actor) : [],
-      flags: show('flag') ? await openFlags(filters) : [],
-      imports: show('result') ? await pendingImports() : [],
+      items: show('result') ? presentDeskResults(await pendingResults(filters), actor) : [],
+      revisions: show('page-revision') ? presentDeskRevisions(await reviewDeskRevisions(), actor) : [],
+      flags: show('flag') ? presentOpenFlags(await openFlags(filters)) : [],
+      imports: show('result') ? presentPendingImports(await pendingImports()) : [],
       // Corrections of published results, each with the changes against the published version.
-      resultRevisions: show('result') ? await pendingResultRevisions(actor) : [],
+      resultRevisions: show('result') ? presentPendingRevisions(await pendingResultRevisions(), actor) : [],
     });
   });
 

@@ -6,13 +6,12 @@ import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { forbidden } from '../../../errors';
-import { ApiToken } from '../../../models';
+import { tokensOf } from '../../../queries/accounts';
 import { createToken } from '../../../commands/create-token';
 import { revokeToken } from '../../../commands/revoke-token';
 import { presentToken } from '../../../presenters/publishing';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /** Token management needs the signed-in session: a leaked token must not mint or hide others. */
 function requireSessionPublisher(req: Request) {
@@ -26,7 +25,7 @@ export function tokensRouter(ctx: AppContext): Router {
 
   router.get('/tokens', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     requireSessionPublisher(req);
-    const tokens = await ApiToken.findAll({ where: { userId: actorOf(req)!.id }, order: [['createdAt', 'DESC']] });
+    const tokens = await tokensOf(actorOf(req)!.id);
     res.set('Cache-Control', 'no-store').json({ items: tokens.map(presentToken) });
   });
 

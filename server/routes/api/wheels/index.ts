@@ -7,10 +7,10 @@ import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { addWheel, deleteMeasurement, editMeasurement, measureWheel } from '../../../commands/log-wheel';
 import { notFound } from '../../../errors';
-import { Wheel, WheelMeasurement } from '../../../models';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { wheelsOf as own } from '../../../queries/wheels';
+import type { Wheel } from '../../../models';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 const measurementParams = z.object({ id: z.coerce.number().int().positive(), measurementId: z.coerce.number().int().positive() }).strict();
 
 function presentWheel(wheel: Wheel) {
@@ -30,8 +30,6 @@ function presentWheel(wheel: Wheel) {
 /** A member's wheel log: their wheels, measured diameters over time, and today's gaps. */
 export function wheelsRouter(ctx: AppContext): Router {
   const router = Router();
-  const own = (ownerId: number, id?: number) =>
-    Wheel.findAll({ where: { ownerId, ...(id ? { id } : {}) }, include: [{ model: WheelMeasurement, as: 'measurements' }], order: [['id', 'ASC']] });
 
   router.get('/wheels', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
     res.json({ items: (await own(actorOf(req)!.id)).map(presentWheel) });

@@ -20,9 +20,8 @@ import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { validate } from '../../../middleware/validate';
 import { addGrinder, addJig, addWorkshopWheel, reportPrice, retireWheel, saveSetup } from '../../../commands/equip-workshop';
-import { priceSummary, readWorkshop } from '../../../queries/workshop';
+import { abrasiveBySlug, priceSummary, readWorkshop } from '../../../queries/workshop';
 import { notFound } from '../../../errors';
-import { Abrasive } from '../../../models';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
@@ -64,7 +63,7 @@ export function workshopRouter(ctx: AppContext): Router {
 
   router.get('/price-reports', validate({ query: priceReportQuerySchema }), async (req, res) => {
     const { abrasive: slug } = req.valid.query as z.infer<typeof priceReportQuerySchema>;
-    const abrasive = await Abrasive.findOne({ where: { slug }, attributes: ['id', 'slug'] });
+    const abrasive = await abrasiveBySlug(slug);
     if (!abrasive) throw notFound('Abrasive');
     res.json({ abrasive: abrasive.slug, groups: await priceSummary(abrasive.id) });
   });

@@ -42,7 +42,7 @@ const VIEWS: { id: CompareViewMode; label: string }[] = [
 function exportHref(params: Record<string, string | undefined>, format: 'csv' | 'json'): string {
   const q = new URLSearchParams({ format });
   for (const [k, v] of Object.entries(params)) if (v) q.set(k, v);
-  return `/api/compare/export?${q.toString()}`;
+  return `/api/v1/compare/export?${q.toString()}`;
 }
 
 /**

@@ -34,4 +34,4 @@ export function reportOf(error: unknown): ImportReport | null {
 }
 
 /** Where the template file is served. */
-export const IMPORT_TEMPLATE_URL = '/api/import/template.csv';
+export const IMPORT_TEMPLATE_URL = '/api/v1/import/template.csv';

@@ -81,7 +81,7 @@ export default function ProfilePage() {
         )}
         {p.recent.length ? (
           <p className="text-sm">
-            <a href={`/api/profiles/${encodeURIComponent(p.handle)}/results.csv`} download>
+            <a href={`/api/v1/profiles/${encodeURIComponent(p.handle)}/results.csv`} download>
               Download as CSV
             </a>
           </p>

@@ -120,7 +120,6 @@ export default function SideAngle() {
 function SideDrawing({ setup, perSideDeg }: { setup: SideSetup; perSideDeg: number }) {
   const titleId = useId();
   const r = setup.barDiameterMm / 2;
-  const h = setup.gapMm + r;
   const L = setup.projectionMm;
   const e = setup.offsetMm ?? 0;
   const a = (perSideDeg * Math.PI) / 180;

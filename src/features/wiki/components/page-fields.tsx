@@ -180,7 +180,7 @@ export function SteelFields() {
 
 function GritPreview() {
   const [standard, grade] = useWatch<PageFormValues>({ name: ['grit.standard', 'grit.grade'] }) as [GritStandard, string];
-  let text = '';
+  let text: string;
   try {
     text = grade ? `${grade} ≈ ${formatMicrometres(parseGrit(grade, standard).micrometres)}` : '';
   } catch (err) {

@@ -12,6 +12,7 @@ export type PageFormValues = {
   baseRevision: number;
   sources: Record<string, string>;
   citations: { title: string; organisation: string; year: number | null; standard: string; url: string; supports: string }[];
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- the form's other fields differ per page type
 } & Record<string, any>;
 
 const blankToNull = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? null : v);

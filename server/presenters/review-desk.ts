@@ -1,0 +1,27 @@
+import type { Actor } from '@shared/permissions';
+import type { Flag, ImportBatch, PageRevision, Result } from '../models';
+import type { PageModel } from '../models/reference-pages';
+import { presentResult } from './result';
+import { presentFlag } from './publishing';
+import { presentAccount } from './user';
+import { presentDeskRevision } from './pages';
+
+/** The desk's result items: the presented result, marked as a result, with the import it came in. */
+export function presentDeskResults({ results, importOf }: { results: Result[]; importOf: Map<number, number> }, viewer: Actor) {
+  return results.map((r) => ({ kind: 'result' as const, ...presentResult(r, viewer), importId: importOf.get(r.id) ?? null }));
+}
+
+/** Proposed page edits as `kind: 'page-revision'` items: the page, the author, the fields changed, whether the page moved on. */
+export function presentDeskRevisions(queue: { revision: PageRevision; page: PageModel | null; changed: string[] }[], viewer: Actor) {
+  return queue.map(({ revision, page, changed }) => presentDeskRevision(revision, page, changed, viewer));
+}
+
+/** Open flags as `kind: 'flag'` items with what each is about. */
+export function presentOpenFlags(rows: { flag: Flag; subject: { title: string; path: string } | null }[]) {
+  return rows.map(({ flag, subject }) => ({ kind: 'flag' as const, ...presentFlag(flag, subject) }));
+}
+
+/** Imports with results still pending. */
+export function presentPendingImports(rows: { batch: ImportBatch; pending: number }[]) {
+  return rows.map(({ batch, pending }) => ({ id: batch.id, publisher: batch.publisher ? presentAccount(batch.publisher) : null, rows: batch.rows, pending, createdAt: batch.createdAt }));
+}
