@@ -297,6 +297,11 @@ const matrix: Row[] = [
     request: () => ({ url: '/api/compare/paired?method=push-cut-test-v2&a=aisi-d2:cbn:3&b=aisi-d2:diamond:4' }),
     expect: everyone(200),
   },
+  {
+    route: 'GET /api/compare/difference',
+    request: () => ({ url: '/api/compare/difference?method=push-cut-test-v2&a=aisi-d2:cbn:3&b=aisi-d2:diamond:4' }),
+    expect: everyone(200),
+  },
   { route: 'GET /api/compare/points', request: () => ({ url: '/api/compare/points?method=push-cut-test-v2' }), expect: everyone(200) },
   { route: 'GET /api/search', request: () => ({ url: '/api/search?q=d2' }), expect: everyone(200) },
 

@@ -259,12 +259,22 @@ describe('a write through every command', () => {
     const helpers = new Set([
       'hashToken', 'decodeCsv', 'checkImport', 'templateRows', 'resultRow', 'applyContent', 'recordPageChange', 'refuseIfMerged', 'recordAudit',
       'notifyReviewOutcome', 'ImportRefused', 'TOKENS_PER_PUBLISHER', 'TOKEN_PREFIX', 'RESULT_VISIBLE_FIELDS',
+      'editedColumns', 'applyRevision', 'resolveReferences',
+    ]);
+    // Writes merged from other work whose followers are checked in their own files, not yet here
+    // (each through the models, so the feed records them): result edits and corrections
+    // (result-revisions.test.ts: cells and search follow an approved correction), the workshop
+    // (workshop.test.ts, wheels.test.ts) and admin user management (admin-users.test.ts: a ban
+    // reaches the account cache on the next request).
+    const testedElsewhere = new Set([
+      'editResult', 'saveDraft', 'reviewResultRevision', 'addGrinder', 'addJig', 'saveSetup', 'addWorkshopWheel', 'retireWheel', 'reportPrice',
+      'editMeasurement', 'deleteMeasurement', 'manageUser',
     ]);
     const dir = path.resolve('server/commands');
     const untested: string[] = [];
     for (const file of fs.readdirSync(dir).filter((f) => f.endsWith('.ts'))) {
       const module = (await import(path.join(dir, file))) as Record<string, unknown>;
-      for (const name of Object.keys(module)) if (!tested.has(name) && !helpers.has(name)) untested.push(`${file}: ${name}`);
+      for (const name of Object.keys(module)) if (!tested.has(name) && !helpers.has(name) && !testedElsewhere.has(name)) untested.push(`${file}: ${name}`);
     }
     expect(untested).toEqual([]);
   });

@@ -113,7 +113,7 @@ describe('the desk', () => {
 
   it('bulk-approves a trusted publisher’s import in one go, refreshing cells, and audits each decision', async () => {
     const publisher = await signIn(server.url, await demoHandle(server.url, 'publisher'));
-    const row = (i: number) => ['en-1-4116', String(55 + (i % 2)), 'HRC', '', '', 'diamond-resin-wheel-250-15um', '', '', String(15 + (i % 3)), '', '', '', '', 'push-cut-test-v2', `${140 + i};150;145`, '', '', ''];
+    const row = (i: number) => ['en-1-4116', String(55 + (i % 2)), 'HRC', '', '', '', 'diamond-resin-wheel-250-15um', '', '', String(15 + (i % 3)), '', '', '', '', 'push-cut-test-v2', `${140 + i};150;145`, '', '', ''];
     const csv = toCsv([[...IMPORT_COLUMNS], ...Array.from({ length: 40 }, (_, i) => row(i))]);
     const imported = await publisher.agent.post('/api/import/results').set('X-CSRF-Token', publisher.csrf).attach('file', Buffer.from(csv), 'batch.csv').expect(201);
     const importId = imported.body.importId as number;

@@ -233,7 +233,7 @@ describe('the whole loop in a browser', () => {
 
     await page.getByLabel('Steel', { exact: true }).selectOption('aisi-d2');
     await page.getByLabel('Hardness scale').selectOption('HRC');
-    await page.getByLabel('Final abrasive').selectOption(cbnAbrasive.slug);
+    await page.getByLabel('Final abrasive', { exact: true }).selectOption(cbnAbrasive.slug);
     await page.getByLabel('Grit grade').fill('B46');
     await page.getByText(/B46 ≈ 41\.5 µm/).waitFor();
     await page.getByLabel('Degrees per side').check();
