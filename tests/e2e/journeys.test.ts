@@ -303,6 +303,8 @@ describe('the whole loop in a browser', () => {
 
     await opened.getByRole('button', { name: 'Approve' }).click();
     await item.waitFor({ state: 'detached' });
+    // The desk confirms the decision and offers the next result rather than jumping to it.
+    await page.getByRole('link', { name: /^Open the next result/ }).click();
 
     // A returned result shows its state and the note to its author.
     const next = page.getByRole('region', { name: /^Result \d+:/ });
