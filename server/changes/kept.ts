@@ -16,8 +16,8 @@ export const KEPT = {
   figures: ['cells'],
   /** Kept answers of the comparison: cells, page names, and accounts for the publishers-only view. */
   compare: ['cells', 'page', 'account'],
-  /** Visitors' kept page and list answers. */
-  pages: ['page', 'cells'],
+  /** Visitors' kept page and list answers (an abrasive page shows the prices members paid). */
+  pages: ['page', 'cells', 'price'],
   /** Kept search answers: dropped once the search index has taken the change. */
   search: ['cells', 'page'],
 } as const satisfies Record<string, readonly Topic[]>;

@@ -32,12 +32,12 @@ export function initModels(sequelize: Sequelize) {
   // Every write through these models records its change in its transaction (server/changes/).
   // The comparison cells are not here: the feed itself refreshes them from the result changes.
   const recorded: [ModelStatic<Model>, Parameters<typeof recordWritesOf>[1]][] = [
-    [Result, resultsOf], [ResultEvent, resultTrailOf],
+    [Result, resultsOf], [ResultEvent, resultTrailOf], [ResultRevision, resultTrailOf],
     [Steel, pagesOf('steel')], [Abrasive, pagesOf('abrasive')], [Method, pagesOf('method')], [PageRevision, pageRowsOf], [PageEvent, pageRowsOf],
     [User, rowsOf('account')], [ApiToken, rowsOf('token')], [SiteSetting, settingsOf], [Flag, rowsOf('flag')], [Photo, rowsOf('photo')],
     [Follow, rowsOf('follow')], [PublisherApplication, rowsOf('application')], [ImportBatch, rowsOf('import')], [ImportBatchResult, rowsOf('import', 'batchId')],
     [Wheel, rowsOf('wheel')], [WheelMeasurement, rowsOf('wheel', 'wheelId')], [NotificationSetting, rowsOf('mail-settings', 'userId')], [AuditEntry, rowsOf('audit')],
-    [Grinder, rowsOf('wheel')], [Jig, rowsOf('wheel')], [Setup, rowsOf('wheel')], [PriceReport, rowsOf('wheel')],
+    [Grinder, rowsOf('workshop', 'ownerId')], [Jig, rowsOf('workshop', 'ownerId')], [Setup, rowsOf('workshop', 'ownerId')], [PriceReport, rowsOf('price', 'abrasiveId')],
   ];
   for (const [model, describe] of recorded) recordWritesOf(model, describe);
 }
