@@ -31,6 +31,8 @@ export function ResultsTable({ results, label, caption, showStatus, hideAuthor }
           </Link>
         ),
       }),
+      // One's own results: the state comes right after the date, so a phone shows it without scrolling.
+      ...(showStatus ? [column.accessor('status', { header: 'State', cell: (info) => <StatusBadge status={info.getValue()} /> })] : []),
       column.accessor('steelName', { header: 'Steel' }),
       column.accessor((r) => r.derived.hrc, {
         id: 'hrc',
@@ -62,10 +64,6 @@ export function ResultsTable({ results, label, caption, showStatus, hideAuthor }
       ...(hideAuthor ? [] : [column.accessor((r) => r.author.displayName, { id: 'author', header: 'Tester' })]),
       ...(showStatus
         ? [
-            column.accessor('status', {
-              header: 'State',
-              cell: (info) => <StatusBadge status={info.getValue()} />,
-            }),
             column.accessor((r) => r.review?.note ?? '', {
               id: 'reviewNote',
               header: 'Reviewer’s note',
