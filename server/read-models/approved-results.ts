@@ -1,5 +1,5 @@
 import { Op } from 'sequelize';
-import { bandStartOf, cellColumns, type BandedMember } from '@shared/aggregate';
+import { bandStartOf, cellColumnsOfArrays, type BandedMember, type CellArrays } from '@shared/aggregate';
 import { Result, User } from '../models';
 import { keptUntil } from '../queries/kept-until';
 import { memberAttributes, type CellKey, type CellRecord } from '../aggregates/comparison-cells';
@@ -319,15 +319,22 @@ export class ApprovedResults {
 
   /**
    * The cells (figures as the comparison_cells table stores them) of the results that `filter`
-   * selects, grouped by `step`, computed by the same code as the stored cells.
+   * selects, grouped by `step`, computed by the same code as the stored cells. Two passes over
+   * the columns and none over result rows: the first finds the matching rows and their cells,
+   * the second gathers each cell's figures side by side into reused typed arrays (in row order,
+   * so sums round as before), whose medians and quartiles are then selected in place.
    */
   async cells(filter: ResultFilter, step: 1 | 0.5): Promise<CellRecord[]> {
     const publishers = filter.publishers ? await this.publishers() : null;
     await this.ready();
+    // From here on synchronous: the scratch arrays are this call's alone.
     const c = this.cols;
     const { method, steel, material, gritPhi, half, author, abrasive, cell } = c.i;
-    const { gritUm, medianG, retention, hrc, angle, created } = c.f;
-    const materials = filter.materials ? new Set([...filter.materials].map((m) => this.materialNo.get(m) ?? -1)) : null;
+    const { hrc, angle, created } = c.f;
+    const steels = mask(filter.steelIds);
+    const materials = filter.materials ? mask(new Set([...filter.materials].map((m) => this.materialNo.get(m) ?? -1))) : null;
+    const abrasives = mask(filter.abrasiveIds);
+    const authors = mask(publishers);
     const above = filter.gritPhiAbove ?? -Infinity;
     const below = filter.gritPhiBelow ?? Infinity;
     const hrcMin = filter.hrcMin ?? -Infinity;
@@ -336,39 +343,81 @@ export class ApprovedResults {
     const angleMax = filter.angleMax ?? Infinity;
     const from = filter.createdFrom ?? -Infinity;
     const before = filter.createdBefore ?? Infinity;
-    // Rows by cell: a cell (whole φ, or each half band in it) number maps to its rows.
-    const groups = new Map<number, number[]>();
+    const methodId = filter.methodId;
+    // A group is a whole-φ cell's number, or (half steps) twice it plus the half band.
+    const groupCount = step === 1 ? this.cellKeys.length : 2 * this.cellKeys.length;
+    const counts = new Int32Array(groupCount);
+    const firstSeen: number[] = [];
+    const scratch = this.scratchFor(c.size);
+    const matched = scratch.rows;
+    let m = 0;
     for (let r = 0; r < c.size; r++) {
-      if (method[r] !== filter.methodId) continue;
-      if (filter.steelIds && !filter.steelIds.has(steel[r])) continue;
-      if (materials && !materials.has(material[r])) continue;
+      if (method[r] !== methodId) continue;
+      if (steels && steels[steel[r]] !== 1) continue;
+      if (materials && materials[material[r]] !== 1) continue;
       if (!(gritPhi[r] > above && gritPhi[r] < below)) continue;
       if (!(hrc[r] >= hrcMin && hrc[r] <= hrcMax)) continue;
       if (!(angle[r] >= angleMin && angle[r] <= angleMax)) continue;
       if (!(created[r] >= from && created[r] < before)) continue;
-      if (filter.abrasiveIds && !filter.abrasiveIds.has(abrasive[r])) continue;
-      if (publishers && !publishers.has(author[r])) continue;
+      if (abrasives && abrasives[abrasive[r]] !== 1) continue;
+      if (authors && authors[author[r]] !== 1) continue;
       const g = step === 1 ? cell[r] : 2 * cell[r] + half[r];
-      const list = groups.get(g);
-      if (list) list.push(r);
-      else groups.set(g, [r]);
+      if (counts[g]++ === 0) firstSeen.push(g);
+      matched[m++] = r;
     }
-    const out: CellRecord[] = [];
-    for (const [g, rows] of groups) {
+    // Each group's slice of the gathered arrays, in first-seen order.
+    const start = new Int32Array(groupCount);
+    let at = 0;
+    for (const g of firstSeen) {
+      start[g] = at;
+      at += counts[g];
+    }
+    const next = start.slice();
+    const { gritUm, medianG, retention } = c.f;
+    const into = scratch.arrays;
+    for (let k = 0; k < m; k++) {
+      const r = matched[k];
+      const g = step === 1 ? cell[r] : 2 * cell[r] + half[r];
+      const to = next[g]++;
+      into.authorIds[to] = author[r];
+      into.medianG[to] = medianG[r];
+      into.retentionCuts[to] = retention[r];
+      into.hrc[to] = hrc[r];
+      into.perSideDeg[to] = angle[r];
+      into.gritUm[to] = gritUm[r];
+    }
+    return firstSeen.map((g) => {
       const key = this.cellKeys[step === 1 ? g : g >> 1];
       const bandStart = step === 1 ? 2 * key.gritPhi : 2 * key.gritPhi + (g & 1);
-      const members = rows.map((r) => ({
-        authorId: author[r],
-        sharpnessMedianG: medianG[r],
-        retentionCuts: Number.isNaN(retention[r]) ? null : retention[r],
-        hrc: hrc[r],
-        perSideDeg: angle[r],
-        gritUm: gritUm[r],
-      }));
-      out.push({ methodId: key.methodId, steelId: key.steelId, material: key.material, bandWidth: step === 1 ? 2 : 1, bandStart, ...cellColumns(members) });
-    }
-    return out;
+      const lo = start[g];
+      const hi = lo + counts[g];
+      const slice = Object.fromEntries(Object.entries(into).map(([k, a]) => [k, a.subarray(lo, hi)])) as unknown as CellArrays;
+      return { methodId: key.methodId, steelId: key.steelId, material: key.material, bandWidth: step === 1 ? 2 : 1, bandStart, ...cellColumnsOfArrays(slice) };
+    });
   }
+
+  /** Typed arrays for one scan, reused from call to call (grown with the data). */
+  private scratch: { rows: Int32Array; arrays: CellArrays } | null = null;
+  private scratchFor(size: number): { rows: Int32Array; arrays: CellArrays } {
+    if (!this.scratch || this.scratch.rows.length < size) {
+      const n = Math.max(1024, Math.ceil(size * 1.25));
+      this.scratch = {
+        rows: new Int32Array(n),
+        arrays: { authorIds: new Int32Array(n), medianG: new Float64Array(n), retentionCuts: new Float64Array(n), hrc: new Float64Array(n), perSideDeg: new Float64Array(n), gritUm: new Float64Array(n) },
+      };
+    }
+    return this.scratch;
+  }
+}
+
+/** A set of small non-negative ids as a byte per id (1: in the set), or null for no set. */
+function mask(ids: ReadonlySet<number> | null | undefined): Uint8Array | null {
+  if (!ids) return null;
+  let max = 0;
+  for (const id of ids) if (id > max) max = id;
+  const m = new Uint8Array(max + 1);
+  for (const id of ids) if (id >= 0) m[id] = 1;
+  return m;
 }
 
 /** The process's read model of approved results. */
