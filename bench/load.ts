@@ -336,13 +336,28 @@ interface Figure extends Run {
   hitRatio: number | null;
   healthP99: number;
   created: number;
+  cpuMsPerReq: number;
+  helloCpuMsPerReq: number;
 }
 
+/** A process's CPU time so far (user + system), ms, from /proc (Linux). */
+function cpuMs(pid: number): number {
+  const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100; // utime, stime in ticks of 1/100 s (USER_HZ)
+}
+
+let serverPid = 0;
+let helloPid = 0;
+
 async function phase(name: string, cache: 'on' | 'off', next: () => Req, connections = 10): Promise<Figure> {
+  const helloCpu = cpuMs(helloPid);
   const hello = await drive(`http://${HOST}:${PORTS.hello}/`, 3, connections);
+  const helloCpuPerReq = (cpuMs(helloPid) - helloCpu) / (hello.rps * 3);
   const before = await cacheStats();
   const probe = probeHealth();
+  const cpuBefore = cpuMs(serverPid);
   const run = await drive(base, PHASE_SECONDS, connections, next);
+  const cpu = cpuMs(serverPid) - cpuBefore;
   const waits = await probe.stop();
   const after = await cacheStats();
   const hits = after.hits - before.hits;
@@ -353,6 +368,9 @@ async function phase(name: string, cache: 'on' | 'off', next: () => Req, connect
     ...run,
     hello: hello.rps,
     ofHello: Math.round((run.rps / hello.rps) * 1000) / 10,
+    // The server's CPU time per answer, beside hello-world's: steadier than req/s on a busy machine.
+    cpuMsPerReq: Math.round((cpu / Math.max(1, times(run))) * 100) / 100,
+    helloCpuMsPerReq: Math.round(helloCpuPerReq * 1000) / 1000,
     hitRatio: asked ? Math.round((hits / asked) * 1000) / 10 : null,
     healthP99: percentile(waits, 0.99),
     created: run.statusCodes['201'] ?? 0,
@@ -365,7 +383,7 @@ async function phase(name: string, cache: 'on' | 'off', next: () => Req, connect
     say(`  FAILED: ${name} (cache ${cache}): ${badCount} of ${times(run)} answers not 2xx/3xx; its figures measure errors. ${sample ? `For example: ${sample}` : ''}`);
   }
   say(
-    `  ${name.padEnd(22)} cache ${cache.padEnd(3)}: ${String(f.rps).padStart(5)} req/s (${f.ofHello} % of hello-world ${f.hello}), p50 ${f.p50} ms, p95 ${f.p95} ms, p99 ${f.p99} ms; ` +
+    `  ${name.padEnd(22)} cache ${cache.padEnd(3)}: ${String(f.rps).padStart(5)} req/s (${f.ofHello} % of hello-world ${f.hello}), p50 ${f.p50} ms, p95 ${f.p95} ms, p99 ${f.p99} ms; CPU ${f.cpuMsPerReq} ms/answer (hello-world ${f.helloCpuMsPerReq}); ` +
       `answer cache hits ${f.hitRatio ?? '–'} %; health p99 ${f.healthP99} ms${bad.length ? `; other answers ${JSON.stringify(Object.fromEntries(bad))}` : ''}${run.errors ? `; errors ${run.errors}` : ''}`,
   );
   return f;
@@ -395,6 +413,7 @@ const resultsBefore = await countResults();
 const provider = new LocalOAuthProvider(((subject) => () => subject)(await firstMemberSubject()));
 const oauthUrl = await provider.start(PORTS.oauth);
 const hello = startHello();
+helloPid = hello.pid!;
 await waitFor(`http://${HOST}:${PORTS.hello}/`, 10_000);
 const bundle = await buildServer();
 const figures: Figure[] = [];
@@ -403,6 +422,7 @@ for (const cache of CACHES) {
   const port = cache === 'on' ? PORTS.http : PORTS.httpCacheOff;
   base = `http://${HOST}:${port}`;
   const server = startServer(bundle, cache, oauthUrl, port);
+  serverPid = server.pid!;
   const bootStart = performance.now();
   await Promise.race([
     waitFor(`${base}/api/health`, 420_000),
