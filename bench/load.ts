@@ -313,7 +313,8 @@ function probeHealth(): { stop: () => Promise<number[]> } {
   };
 }
 
-const cacheStats = async () => ((await (await fetch(`${base}/api/health`)).json()) as { answerCache: { hits: number; misses: number } }).answerCache;
+type Health = { answerCache: { hits: number; misses: number }; eventLoop: { count: number; recent: { at: number; ms: number }[] } };
+const health = async () => (await (await fetch(`${base}/api/health`)).json()) as Health;
 
 /** Asks a few of the phase's requests one by one; the first answer that is not 2xx/3xx, with its body. */
 async function sampleFailure(next: () => Req): Promise<string | null> {
@@ -338,6 +339,8 @@ interface Figure extends Run {
   created: number;
   cpuMsPerReq: number;
   helloCpuMsPerReq: number;
+  stalls: number;
+  longestStallMs: number;
 }
 
 /** A process's CPU time so far (user + system), ms, from /proc (Linux). */
@@ -353,15 +356,19 @@ async function phase(name: string, cache: 'on' | 'off', next: () => Req, connect
   const helloCpu = cpuMs(helloPid);
   const hello = await drive(`http://${HOST}:${PORTS.hello}/`, 3, connections);
   const helloCpuPerReq = (cpuMs(helloPid) - helloCpu) / (hello.rps * 3);
-  const before = await cacheStats();
+  const before = await health();
+  const startedAt = Date.now();
   const probe = probeHealth();
   const cpuBefore = cpuMs(serverPid);
   const run = await drive(base, PHASE_SECONDS, connections, next);
   const cpu = cpuMs(serverPid) - cpuBefore;
   const waits = await probe.stop();
-  const after = await cacheStats();
-  const hits = after.hits - before.hits;
-  const asked = hits + after.misses - before.misses;
+  const after = await health();
+  const hits = after.answerCache.hits - before.answerCache.hits;
+  const asked = hits + after.answerCache.misses - before.answerCache.misses;
+  // The server's own count of event-loop stalls over 20 ms during the phase, and the longest.
+  const stalls = after.eventLoop.count - before.eventLoop.count;
+  const longestStall = Math.max(0, ...after.eventLoop.recent.filter((s) => s.at >= startedAt).map((s) => s.ms));
   const f: Figure = {
     phase: name,
     cache,
@@ -373,6 +380,8 @@ async function phase(name: string, cache: 'on' | 'off', next: () => Req, connect
     helloCpuMsPerReq: Math.round(helloCpuPerReq * 1000) / 1000,
     hitRatio: asked ? Math.round((hits / asked) * 1000) / 10 : null,
     healthP99: percentile(waits, 0.99),
+    stalls,
+    longestStallMs: longestStall,
     created: run.statusCodes['201'] ?? 0,
   };
   const bad = Object.entries(run.statusCodes).filter(([c]) => !['200', '201', '301'].includes(c));
@@ -384,7 +393,7 @@ async function phase(name: string, cache: 'on' | 'off', next: () => Req, connect
   }
   say(
     `  ${name.padEnd(22)} cache ${cache.padEnd(3)}: ${String(f.rps).padStart(5)} req/s (${f.ofHello} % of hello-world ${f.hello}), p50 ${f.p50} ms, p95 ${f.p95} ms, p99 ${f.p99} ms; CPU ${f.cpuMsPerReq} ms/answer (hello-world ${f.helloCpuMsPerReq}); ` +
-      `answer cache hits ${f.hitRatio ?? '–'} %; health p99 ${f.healthP99} ms${bad.length ? `; other answers ${JSON.stringify(Object.fromEntries(bad))}` : ''}${run.errors ? `; errors ${run.errors}` : ''}`,
+      `answer cache hits ${f.hitRatio ?? '–'} %; health p99 ${f.healthP99} ms; loop stalls > 20 ms ${f.stalls} (longest ${f.longestStallMs} ms)${bad.length ? `; other answers ${JSON.stringify(Object.fromEntries(bad))}` : ''}${run.errors ? `; errors ${run.errors}` : ''}`,
   );
   return f;
 }

@@ -1,8 +1,9 @@
 /**
- * `npx tsx bench/profile-summary.ts <file.cpuprofile> [top]`: the functions that took the most
+ * `npx tsx bench/profile-summary.ts <file.cpuprofile> [top] [lastSeconds]`: the functions that took the most
  * CPU time in a V8 CPU profile (node --cpu-prof, or the load bench's BENCH_PROFILE), by self
  * time and by total time (self plus callees, each function counted once per stack), with their
- * file and line. Idle and garbage collection are listed as V8 names them.
+ * file and line. Idle and garbage collection are listed as V8 names them. With lastSeconds, only
+ * the samples of the profile's last that many seconds (the bench's last phase, without the boot).
  */
 import fs from 'node:fs';
 
@@ -17,7 +18,7 @@ interface Profile {
   timeDeltas: number[];
 }
 
-const [file, topArg] = process.argv.slice(2);
+const [file, topArg, lastArg] = process.argv.slice(2);
 if (!file) {
   console.error('usage: tsx bench/profile-summary.ts <file.cpuprofile> [top]');
   process.exit(2);
@@ -36,7 +37,11 @@ const label = (n: Node) => {
 const self = new Map<string, number>();
 const total = new Map<string, number>();
 let all = 0;
+const at: number[] = [];
+profile.timeDeltas.reduce((t, d, i) => (at[i] = t + d), 0);
+const since = lastArg ? at[at.length - 1] - Number(lastArg) * 1e6 : -Infinity;
 profile.samples.forEach((id, i) => {
+  if (at[i] < since) return;
   const ms = (profile.timeDeltas[i] ?? 0) / 1000;
   all += ms;
   const leaf = byId.get(id)!;
