@@ -81,6 +81,39 @@ class Columns {
       this.i[c] = next;
     }
   }
+  /**
+   * A new Columns of the rows `order` names, in that order: a row of this one as its index, a
+   * row of `other` as −(index + 1). Column by column, so each copy is one tight loop.
+   */
+  take(order: Int32Array, other?: Columns): Columns {
+    const next = new Columns(Math.max(1024, order.length));
+    const copy = <A extends Float64Array | Int32Array>(to: A, from: A, alt: A | undefined) => {
+      for (let k = 0; k < order.length; k++) {
+        const o = order[k];
+        to[k] = o >= 0 ? from[o] : alt![-o - 1];
+      }
+    };
+    for (const c of FLOAT_COLUMNS) copy(next.f[c], this.f[c], other?.f[c]);
+    for (const c of INT_COLUMNS) copy(next.i[c], this.i[c], other?.i[c]);
+    next.size = order.length;
+    return next;
+  }
+  /** Its rows in cell order (cell number, half band, id): each cell's rows, and each half band's, side by side. */
+  inCellOrder(): Columns {
+    const { cell, half, id } = this.i;
+    return this.take(Int32Array.from({ length: this.size }, (_, r) => r).sort((a, b) => cell[a] - cell[b] || half[a] - half[b] || id[a] - id[b]));
+  }
+  /** This one and `other`, both in cell order, merged into one in cell order (one pass). */
+  mergedInCellOrder(other: Columns): Columns {
+    const before = (a: Columns, r: number, b: Columns, s: number) => a.i.cell[r] - b.i.cell[s] || a.i.half[r] - b.i.half[s] || a.i.id[r] - b.i.id[s];
+    const order = new Int32Array(this.size + other.size);
+    let i = 0;
+    let j = 0;
+    for (let k = 0; k < order.length; k++) {
+      order[k] = j >= other.size || (i < this.size && before(this, i, other, j) < 0) ? i++ : -(j++ + 1);
+    }
+    return this.take(order, other);
+  }
   /** Keeps only the rows `keep` accepts, in order. */
   compact(keep: (row: number) => boolean): void {
     let to = 0;
@@ -218,7 +251,7 @@ export class ApprovedResults {
       after = rows[rows.length - 1].id;
     }
     const newest = new Newest().merged(new Set(), fresh, Array.from({ length: fresh.size }, (_, r) => r));
-    this.cols = fresh;
+    this.cols = fresh.inCellOrder();
     this.newestFirst = newest;
   }
 
@@ -244,9 +277,11 @@ export class ApprovedResults {
       if (!keep) removed.add(id[row]);
       return keep;
     });
-    const first = this.cols.size;
-    for (const r of rows) this.append(this.cols, r);
-    this.newestFirst = this.newestFirst.merged(removed, this.cols, Array.from({ length: rows.length }, (_, k) => first + k));
+    // The cells' rows read again, put in cell order and merged in: the columns stay in cell order.
+    const added = new Columns(rows.length);
+    for (const r of rows) this.append(added, r);
+    this.cols = this.cols.mergedInCellOrder(added.inCellOrder());
+    this.newestFirst = this.newestFirst.merged(removed, added, Array.from({ length: added.size }, (_, k) => k));
   }
 
   /**
@@ -319,15 +354,18 @@ export class ApprovedResults {
 
   /**
    * The cells (figures as the comparison_cells table stores them) of the results that `filter`
-   * selects, grouped by `step`, computed by the same code as the stored cells. Two passes over
-   * the columns and none over result rows: the first finds the matching rows and their cells,
-   * the second gathers each cell's figures side by side into reused typed arrays (in row order,
-   * so sums round as before), whose medians and quartiles are then selected in place.
+   * selects, grouped by `step`, computed by the same code as the stored cells. One pass over the
+   * columns and none over result rows: the matching rows' figures are gathered cell by cell into
+   * reused typed arrays, whose medians and quartiles are then selected in place.
    */
   async cells(filter: ResultFilter, step: 1 | 0.5): Promise<CellRecord[]> {
     const publishers = filter.publishers ? await this.publishers() : null;
     await this.ready();
-    // From here on synchronous: the scratch arrays are this call's alone.
+    return this.scan(filter, step, publishers);
+  }
+
+  /** `cells`, once built: synchronous, so the scratch arrays are this call's alone. */
+  private scan(filter: ResultFilter, step: 1 | 0.5, publishers: ReadonlySet<number> | null): CellRecord[] {
     const c = this.cols;
     const { method, steel, material, gritPhi, half, author, abrasive, cell } = c.i;
     const { hrc, angle, created } = c.f;
@@ -344,12 +382,12 @@ export class ApprovedResults {
     const from = filter.createdFrom ?? -Infinity;
     const before = filter.createdBefore ?? Infinity;
     const methodId = filter.methodId;
-    // A group is a whole-φ cell's number, or (half steps) twice it plus the half band.
-    const groupCount = step === 1 ? this.cellKeys.length : 2 * this.cellKeys.length;
-    const counts = new Int32Array(groupCount);
-    const firstSeen: number[] = [];
-    const scratch = this.scratchFor(c.size);
-    const matched = scratch.rows;
+    // The columns are in cell order, so each group (a whole-φ cell, or a half band in it) is one
+    // run of rows: its matches are gathered side by side as the scan meets them.
+    const { gritUm, medianG, retention } = c.f;
+    const into = this.scratchFor(c.size);
+    const groups: { g: number; from: number; to: number }[] = [];
+    let current = -1;
     let m = 0;
     for (let r = 0; r < c.size; r++) {
       if (method[r] !== methodId) continue;
@@ -362,49 +400,41 @@ export class ApprovedResults {
       if (abrasives && abrasives[abrasive[r]] !== 1) continue;
       if (authors && authors[author[r]] !== 1) continue;
       const g = step === 1 ? cell[r] : 2 * cell[r] + half[r];
-      if (counts[g]++ === 0) firstSeen.push(g);
-      matched[m++] = r;
+      if (g !== current) {
+        if (groups.length) groups[groups.length - 1].to = m;
+        groups.push({ g, from: m, to: m });
+        current = g;
+      }
+      into.authorIds[m] = author[r];
+      into.medianG[m] = medianG[r];
+      into.retentionCuts[m] = retention[r];
+      into.hrc[m] = hrc[r];
+      into.perSideDeg[m] = angle[r];
+      into.gritUm[m] = gritUm[r];
+      m++;
     }
-    // Each group's slice of the gathered arrays, in first-seen order.
-    const start = new Int32Array(groupCount);
-    let at = 0;
-    for (const g of firstSeen) {
-      start[g] = at;
-      at += counts[g];
-    }
-    const next = start.slice();
-    const { gritUm, medianG, retention } = c.f;
-    const into = scratch.arrays;
-    for (let k = 0; k < m; k++) {
-      const r = matched[k];
-      const g = step === 1 ? cell[r] : 2 * cell[r] + half[r];
-      const to = next[g]++;
-      into.authorIds[to] = author[r];
-      into.medianG[to] = medianG[r];
-      into.retentionCuts[to] = retention[r];
-      into.hrc[to] = hrc[r];
-      into.perSideDeg[to] = angle[r];
-      into.gritUm[to] = gritUm[r];
-    }
-    return firstSeen.map((g) => {
+    if (groups.length) groups[groups.length - 1].to = m;
+    return groups.map(({ g, from: lo, to: hi }) => {
       const key = this.cellKeys[step === 1 ? g : g >> 1];
       const bandStart = step === 1 ? 2 * key.gritPhi : 2 * key.gritPhi + (g & 1);
-      const lo = start[g];
-      const hi = lo + counts[g];
-      const slice = Object.fromEntries(Object.entries(into).map(([k, a]) => [k, a.subarray(lo, hi)])) as unknown as CellArrays;
+      const slice: CellArrays = {
+        authorIds: into.authorIds.subarray(lo, hi),
+        medianG: into.medianG.subarray(lo, hi),
+        retentionCuts: into.retentionCuts.subarray(lo, hi),
+        hrc: into.hrc.subarray(lo, hi),
+        perSideDeg: into.perSideDeg.subarray(lo, hi),
+        gritUm: into.gritUm.subarray(lo, hi),
+      };
       return { methodId: key.methodId, steelId: key.steelId, material: key.material, bandWidth: step === 1 ? 2 : 1, bandStart, ...cellColumnsOfArrays(slice) };
     });
   }
 
   /** Typed arrays for one scan, reused from call to call (grown with the data). */
-  private scratch: { rows: Int32Array; arrays: CellArrays } | null = null;
-  private scratchFor(size: number): { rows: Int32Array; arrays: CellArrays } {
-    if (!this.scratch || this.scratch.rows.length < size) {
+  private scratch: CellArrays | null = null;
+  private scratchFor(size: number): CellArrays {
+    if (!this.scratch || this.scratch.medianG.length < size) {
       const n = Math.max(1024, Math.ceil(size * 1.25));
-      this.scratch = {
-        rows: new Int32Array(n),
-        arrays: { authorIds: new Int32Array(n), medianG: new Float64Array(n), retentionCuts: new Float64Array(n), hrc: new Float64Array(n), perSideDeg: new Float64Array(n), gritUm: new Float64Array(n) },
-      };
+      this.scratch = { authorIds: new Int32Array(n), medianG: new Float64Array(n), retentionCuts: new Float64Array(n), hrc: new Float64Array(n), perSideDeg: new Float64Array(n), gritUm: new Float64Array(n) };
     }
     return this.scratch;
   }
