@@ -21,8 +21,13 @@
  *    and one JSON line last.
  *
  * BENCH_RESULTS (default 100000), BENCH_SECONDS (per phase, default 8), BENCH_KEEP=<dir> (build
- * or reuse the database there and keep it). Ports 3701–3706 on 127.0.0.1. Figures describe this
- * machine at this moment; they are never assertions.
+ * or reuse the database there and keep it), BENCH_ONLY=<phases> (some of compare, live, list,
+ * visitors, members, search, mix, comma-separated: only those), BENCH_CACHE=on|off (only that
+ * server), BENCH_PROFILE=<dir> (the server writes a CPU profile there when it stops; summarise
+ * it with `npx tsx bench/profile-summary.ts <file>`). Ports BENCH_PORT (default 3701) to
+ * BENCH_PORT + 5 on 127.0.0.1. A phase whose answers are mostly not 2xx is reported as FAILED
+ * with one such answer, and the bench exits 1. Figures describe this machine at this moment;
+ * they are never assertions.
  */
 import fs from 'node:fs';
 import os from 'node:os';
@@ -41,8 +46,15 @@ import { rand, traffic, vocabulary, type Req } from './traffic';
 const TOTAL = Number(process.env.BENCH_RESULTS ?? 100_000);
 const PHASE_SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
 const PHASES = (process.env.BENCH_PHASES ?? 'data,load').split(',');
+const ALL_PHASES = ['compare', 'live', 'list', 'visitors', 'members', 'search', 'mix'] as const;
+const ONLY = process.env.BENCH_ONLY ? process.env.BENCH_ONLY.split(',').map((p) => p.trim()) : [...ALL_PHASES];
+for (const p of ONLY) if (!(ALL_PHASES as readonly string[]).includes(p)) throw new Error(`BENCH_ONLY: unknown phase "${p}" (known: ${ALL_PHASES.join(', ')})`);
+const CACHES = (process.env.BENCH_CACHE ? [process.env.BENCH_CACHE] : ['on', 'off']) as ('on' | 'off')[];
+for (const c of CACHES) if (c !== 'on' && c !== 'off') throw new Error(`BENCH_CACHE must be on or off (got "${c}")`);
+const PROFILE = process.env.BENCH_PROFILE ? path.resolve(process.env.BENCH_PROFILE) : null;
 // The server with the answer cache off listens on its own port: the first one's may still be closing.
-const PORTS = { http: 3701, oauth: 3702, smtp: 3703, s3: 3704, hello: 3705, httpCacheOff: 3706 };
+const PORT = Number(process.env.BENCH_PORT ?? 3701);
+const PORTS = { http: PORT, oauth: PORT + 1, smtp: PORT + 2, s3: PORT + 3, hello: PORT + 4, httpCacheOff: PORT + 5 };
 const HOST = '127.0.0.1';
 let base = `http://${HOST}:${PORTS.http}`;
 const started = performance.now();
@@ -67,7 +79,10 @@ async function buildDatabase() {
   const db = new Database({ storage: file });
   await db.migrate();
   await loadDemoData(db);
-  const templates = (await Result.findAll({ raw: true })) as unknown as Record<string, unknown>[];
+  // Plain values, not raw rows: a raw row holds the JSON columns (input, progression) as the
+  // text SQLite stores, and writing that text back stored it encoded twice (a string holding
+  // JSON), which the presenter could not read: the home list answered 500 to every request.
+  const templates = (await Result.findAll()).map((r) => r.get({ plain: true })) as unknown as Record<string, unknown>[];
   const members = await User.findAll({ where: { banned: false } });
   const reviewer = members.find((m) => m.role === 'moderator')!;
   const DAY = 24 * 3600 * 1000;
@@ -117,6 +132,30 @@ function firstMemberSubject(): Promise<string> {
   });
 }
 
+/**
+ * Databases built before the templates were read as plain values hold the results' JSON columns
+ * encoded twice ('"[]"'): decoded once here, in place, so a kept database stays usable.
+ */
+function repairDoubleEncodedJson(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const db = new sqlite3.Database(file, (err) => {
+      if (err) return reject(err);
+      const done = (e: Error | null, n = 0) => db.close(() => (e ? reject(e) : resolve(n)));
+      db.all(`SELECT id, input, progression FROM results WHERE substr(input, 1, 1) = '"' OR substr(progression, 1, 1) = '"'`, (e, rows: { id: number; input: string; progression: string }[]) => {
+        if (e || !rows.length) return done(e);
+        const once = (v: string) => (v.startsWith('"') ? (JSON.parse(v) as string) : v);
+        db.serialize(() => {
+          db.run('BEGIN');
+          const update = db.prepare('UPDATE results SET input = ?, progression = ? WHERE id = ?');
+          for (const r of rows) update.run(once(r.input), once(r.progression), r.id);
+          update.finalize();
+          db.run('COMMIT', (c: Error | null) => done(c, rows.length));
+        });
+      });
+    });
+  });
+}
+
 function countResults(): Promise<number> {
   return new Promise((resolve, reject) => {
     const db = new sqlite3.Database(file, sqlite3.OPEN_READONLY, (err) => {
@@ -146,7 +185,8 @@ async function waitFor(url: string, timeoutMs: number) {
 
 function startServer(bundle: string, answerCache: 'on' | 'off', oauthUrl: string, port: number): ChildProcess {
   const log = fs.openSync(path.join(root, 'server.log'), 'a');
-  const proc = spawn(process.execPath, [...serverNodeFlags(), bundle], {
+  const profile = PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE}`] : [];
+  const proc = spawn(process.execPath, [...serverNodeFlags(), ...profile, bundle], {
     env: {
       ...process.env,
       // Production as deployed: every hosted setting given (production refuses the local stand-ins).
@@ -273,7 +313,21 @@ function probeHealth(): { stop: () => Promise<number[]> } {
   };
 }
 
-const cacheStats = async () => ((await (await fetch(`${base}/api/health`)).json()) as { answerCache: { hits: number; misses: number } }).answerCache;
+type Health = { answerCache: { hits: number; misses: number }; eventLoop: { count: number; recent: { at: number; ms: number }[] } };
+const health = async () => (await (await fetch(`${base}/api/health`)).json()) as Health;
+
+/** Asks a few of the phase's requests one by one; the first answer that is not 2xx/3xx, with its body. */
+async function sampleFailure(next: () => Req): Promise<string | null> {
+  for (let i = 0; i < 5; i++) {
+    const r = next();
+    const res = await fetch(`${base}${r.path}`, { method: r.method, headers: r.headers, body: r.body, redirect: 'manual' });
+    const body = await res.text();
+    if (res.status >= 400) return `${r.method} ${r.path} → ${res.status} ${body.slice(0, 300)}`;
+  }
+  return null;
+}
+
+const failures: string[] = [];
 
 interface Figure extends Run {
   phase: string;
@@ -283,34 +337,68 @@ interface Figure extends Run {
   hitRatio: number | null;
   healthP99: number;
   created: number;
+  cpuMsPerReq: number;
+  helloCpuMsPerReq: number;
+  stalls: number;
+  longestStallMs: number;
 }
 
+/** A process's CPU time so far (user + system), ms, from /proc (Linux). */
+function cpuMs(pid: number): number {
+  const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100; // utime, stime in ticks of 1/100 s (USER_HZ)
+}
+
+let serverPid = 0;
+let helloPid = 0;
+
 async function phase(name: string, cache: 'on' | 'off', next: () => Req, connections = 10): Promise<Figure> {
+  const helloCpu = cpuMs(helloPid);
   const hello = await drive(`http://${HOST}:${PORTS.hello}/`, 3, connections);
-  const before = await cacheStats();
+  const helloCpuPerReq = (cpuMs(helloPid) - helloCpu) / (hello.rps * 3);
+  const before = await health();
+  const startedAt = Date.now();
   const probe = probeHealth();
+  const cpuBefore = cpuMs(serverPid);
   const run = await drive(base, PHASE_SECONDS, connections, next);
+  const cpu = cpuMs(serverPid) - cpuBefore;
   const waits = await probe.stop();
-  const after = await cacheStats();
-  const hits = after.hits - before.hits;
-  const asked = hits + after.misses - before.misses;
+  const after = await health();
+  const hits = after.answerCache.hits - before.answerCache.hits;
+  const asked = hits + after.answerCache.misses - before.answerCache.misses;
+  // The server's own count of event-loop stalls over 20 ms during the phase, and the longest.
+  const stalls = after.eventLoop.count - before.eventLoop.count;
+  const longestStall = Math.max(0, ...after.eventLoop.recent.filter((s) => s.at >= startedAt).map((s) => s.ms));
   const f: Figure = {
     phase: name,
     cache,
     ...run,
     hello: hello.rps,
     ofHello: Math.round((run.rps / hello.rps) * 1000) / 10,
+    // The server's CPU time per answer, beside hello-world's: steadier than req/s on a busy machine.
+    cpuMsPerReq: Math.round((cpu / Math.max(1, times(run))) * 100) / 100,
+    helloCpuMsPerReq: Math.round(helloCpuPerReq * 1000) / 1000,
     hitRatio: asked ? Math.round((hits / asked) * 1000) / 10 : null,
     healthP99: percentile(waits, 0.99),
+    stalls,
+    longestStallMs: longestStall,
     created: run.statusCodes['201'] ?? 0,
   };
   const bad = Object.entries(run.statusCodes).filter(([c]) => !['200', '201', '301'].includes(c));
+  const badCount = bad.reduce((n, [, x]) => n + x, 0);
+  if (badCount * 2 > times(run)) {
+    const sample = await sampleFailure(next);
+    failures.push(`${name} (cache ${cache})`);
+    say(`  FAILED: ${name} (cache ${cache}): ${badCount} of ${times(run)} answers not 2xx/3xx; its figures measure errors. ${sample ? `For example: ${sample}` : ''}`);
+  }
   say(
-    `  ${name.padEnd(22)} cache ${cache.padEnd(3)}: ${String(f.rps).padStart(5)} req/s (${f.ofHello} % of hello-world ${f.hello}), p50 ${f.p50} ms, p95 ${f.p95} ms, p99 ${f.p99} ms; ` +
-      `answer cache hits ${f.hitRatio ?? '–'} %; health p99 ${f.healthP99} ms${bad.length ? `; other answers ${JSON.stringify(Object.fromEntries(bad))}` : ''}${run.errors ? `; errors ${run.errors}` : ''}`,
+    `  ${name.padEnd(22)} cache ${cache.padEnd(3)}: ${String(f.rps).padStart(5)} req/s (${f.ofHello} % of hello-world ${f.hello}), p50 ${f.p50} ms, p95 ${f.p95} ms, p99 ${f.p99} ms; CPU ${f.cpuMsPerReq} ms/answer (hello-world ${f.helloCpuMsPerReq}); ` +
+      `answer cache hits ${f.hitRatio ?? '–'} %; health p99 ${f.healthP99} ms; loop stalls > 20 ms ${f.stalls} (longest ${f.longestStallMs} ms)${bad.length ? `; other answers ${JSON.stringify(Object.fromEntries(bad))}` : ''}${run.errors ? `; errors ${run.errors}` : ''}`,
   );
   return f;
 }
+
+const times = (run: Run) => Object.values(run.statusCodes).reduce((a, b) => a + b, 0);
 
 function rssMb(pid: number): number {
   const status = fs.readFileSync(`/proc/${pid}/status`, 'utf8');
@@ -323,21 +411,27 @@ if (!fs.existsSync(file)) {
   say(`Building a database of ${TOTAL} approved results in ${root} …`);
   const built = await buildDatabase();
   say(`Database ready: ${built.cells} comparison cells.`);
-} else say(`Reusing the database in ${root}.`);
+} else {
+  say(`Reusing the database in ${root}.`);
+  const repaired = await repairDoubleEncodedJson();
+  if (repaired) say(`  Repaired ${repaired} results whose JSON columns an earlier build had encoded twice.`);
+}
 if (!PHASES.includes('load')) process.exit(0);
 const resultsBefore = await countResults();
 
 const provider = new LocalOAuthProvider(((subject) => () => subject)(await firstMemberSubject()));
 const oauthUrl = await provider.start(PORTS.oauth);
 const hello = startHello();
+helloPid = hello.pid!;
 await waitFor(`http://${HOST}:${PORTS.hello}/`, 10_000);
 const bundle = await buildServer();
 const figures: Figure[] = [];
 const servers: { cache: 'on' | 'off'; bootS: number; rssMb: number }[] = [];
-for (const cache of ['on', 'off'] as const) {
+for (const cache of CACHES) {
   const port = cache === 'on' ? PORTS.http : PORTS.httpCacheOff;
   base = `http://${HOST}:${port}`;
   const server = startServer(bundle, cache, oauthUrl, port);
+  serverPid = server.pid!;
   const bootStart = performance.now();
   await Promise.race([
     waitFor(`${base}/api/health`, 420_000),
@@ -353,13 +447,16 @@ for (const cache of ['on', 'off'] as const) {
   const t = traffic(await vocabulary(base), sessions);
   // Warm-up (the JIT, the pages' caches), uncounted.
   await drive(base, 3, 10, t.mixed);
-  figures.push(await phase('compare (precomputed)', cache, () => t.compare()));
-  figures.push(await phase('compare (live filters)', cache, () => t.compareLive()));
-  figures.push(await phase('home list pages', cache, () => t.list()));
-  figures.push(await phase('pages, visitors', cache, () => (rand() < 0.5 ? t.steel() : t.abrasive())));
-  figures.push(await phase('pages, members', cache, () => (rand() < 0.5 ? t.steel(true) : t.abrasive(true))));
-  figures.push(await phase('unique search, 1 conn', cache, t.search, 1));
-  figures.push(await phase('mix 70/20/10', cache, t.mixed));
+  const phases: Record<(typeof ALL_PHASES)[number], () => Promise<Figure>> = {
+    compare: () => phase('compare (precomputed)', cache, () => t.compare()),
+    live: () => phase('compare (live filters)', cache, () => t.compareLive()),
+    list: () => phase('home list pages', cache, () => t.list()),
+    visitors: () => phase('pages, visitors', cache, () => (rand() < 0.5 ? t.steel() : t.abrasive())),
+    members: () => phase('pages, members', cache, () => (rand() < 0.5 ? t.steel(true) : t.abrasive(true))),
+    search: () => phase('unique search, 1 conn', cache, t.search, 1),
+    mix: () => phase('mix 70/20/10', cache, t.mixed),
+  };
+  for (const p of ALL_PHASES) if (ONLY.includes(p)) figures.push(await phases[p]());
   servers.push({ cache, bootS, rssMb: rssMb(server.pid!) });
   server.kill('SIGTERM');
   await new Promise((resolve) => server.once('exit', resolve));
@@ -374,9 +471,13 @@ const stored = resultsAfter - resultsBefore;
 // acknowledged (warm-ups write too); only the reverse would be a lost write.
 const lost = Math.max(0, acknowledged - stored);
 const serverErrors = figures.reduce((n, f) => n + Object.entries(f.statusCodes).filter(([c]) => Number(c) >= 500).reduce((a, [, x]) => a + x, 0), 0);
-const by = (name: string, cache: 'on' | 'off') => figures.find((f) => f.phase === name && f.cache === cache)!;
-const members = (cache: 'on' | 'off') => Math.round((by('pages, members', cache).rps / by('pages, visitors', cache).rps) * 1000) / 10;
-say(`Members' pages at ${members('on')} % of visitors' throughput (cache on), ${members('off')} % (cache off).`);
+const by = (name: string, cache: 'on' | 'off') => figures.find((f) => f.phase === name && f.cache === cache);
+const members = (cache: 'on' | 'off') => {
+  const m = by('pages, members', cache);
+  const v = by('pages, visitors', cache);
+  return m && v ? Math.round((m.rps / v.rps) * 1000) / 10 : null;
+};
+if (CACHES.some((c) => members(c) !== null)) say(`Members' pages at ${CACHES.map((c) => `${members(c)} % of visitors' throughput (cache ${c})`).join(', ')}.`);
 say(`Writes acknowledged ${acknowledged}, stored ${stored}: lost ${lost}; 5xx answers ${serverErrors}. Server RSS at the end: ${servers.map((s) => `${s.rssMb} MB (cache ${s.cache})`).join(', ')}. Bench took ${seconds()} s.`);
 
 console.log(
@@ -387,7 +488,9 @@ console.log(
     figures: figures.map(({ statusCodes: _s, ...f }) => f),
     membersOfVisitors: { on: members('on'), off: members('off') },
     writes: { acknowledged, stored, lost, serverErrors },
+    failed: failures,
     seconds: seconds(),
   }),
 );
-process.exit(0);
+if (failures.length) console.error(`FAILED: ${failures.join('; ')}: most answers were not 2xx/3xx.`);
+process.exit(failures.length || lost ? 1 : 0);

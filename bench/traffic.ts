@@ -20,11 +20,16 @@ export interface Vocabulary {
 }
 
 export async function vocabulary(base: string): Promise<Vocabulary> {
-  const json = async <T>(p: string) => (await (await fetch(`${base}${p}`)).json()) as T;
+  const json = async <T>(p: string) => {
+    const res = await fetch(`${base}${p}`);
+    if (!res.ok) throw new Error(`the bench's vocabulary: GET ${p} answered ${res.status} ${(await res.text()).slice(0, 300)}`);
+    return (await res.json()) as T;
+  };
   const steels = (await json<{ items: Vocabulary['steels'] }>('/api/steels')).items;
   const abrasives = (await json<{ items: Vocabulary['abrasives'] }>('/api/abrasives')).items;
   const methods = (await json<{ items: Vocabulary['methods'] }>('/api/methods')).items;
   const total = (await json<{ total: number }>('/api/results?status=approved')).total;
+  if (!Number.isInteger(total)) throw new Error(`the bench's vocabulary: GET /api/results?status=approved gave no total (${total})`);
   const words = new Set<string>();
   const add = (text: string) => {
     for (const w of text.toLowerCase().split(/[^a-z0-9µ.]+/)) if (w.length >= 2 && !['invented', 'bench'].includes(w)) words.add(w);

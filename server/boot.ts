@@ -1,3 +1,4 @@
+import { watchEventLoop } from './event-loop';
 import path from 'node:path';
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
@@ -112,6 +113,8 @@ export async function boot(env: Env, log: (line: string) => void = console.log, 
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
     s.once('error', reject);
   });
+  // From here on a stall of the loop is a request's (or a follower's) doing: counted for /api/health.
+  watchEventLoop();
   // A slow client may not hold a socket: its headers within 10 s, its whole request within 30 s
   // (Node's defaults are 60 s and 5 minutes).
   server.headersTimeout = 10_000;

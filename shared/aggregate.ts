@@ -1,4 +1,4 @@
-import { median, summarize, type Summary } from './stats';
+import { medianInPlace, summarizeInPlace, type Summary } from './stats';
 import { gritBandPhi } from './grit';
 
 /** One approved result as it enters a comparison cell. */
@@ -23,20 +23,92 @@ export interface CellAggregate {
   angleRange: [number, number];
 }
 
+/**
+ * One cell's results as parallel typed arrays (`medianG.length` results): each result's author,
+ * median reading, retention count (NaN where it reports none), hardness, angle and particle size.
+ * The read models gather a cell into these without an object per result.
+ */
+export interface CellArrays {
+  authorIds: Int32Array;
+  medianG: Float64Array;
+  retentionCuts: Float64Array;
+  hrc: Float64Array;
+  perSideDeg: Float64Array;
+  gritUm: Float64Array;
+}
+
+/** The arrays of `members` (gritUm 0 where a member has none: only `cellColumns` reads it). */
+function arraysOf(members: readonly (CellMember & { gritUm?: number })[]): CellArrays {
+  const n = members.length;
+  const a: CellArrays = { authorIds: new Int32Array(n), medianG: new Float64Array(n), retentionCuts: new Float64Array(n), hrc: new Float64Array(n), perSideDeg: new Float64Array(n), gritUm: new Float64Array(n) };
+  members.forEach((m, i) => {
+    a.authorIds[i] = m.authorId;
+    a.medianG[i] = m.sharpnessMedianG;
+    a.retentionCuts[i] = m.retentionCuts ?? NaN;
+    a.hrc[i] = m.hrc;
+    a.perSideDeg[i] = m.perSideDeg;
+    a.gritUm[i] = m.gritUm ?? 0;
+  });
+  return a;
+}
+
+const rangeOf = (values: Float64Array): [number, number] => {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < values.length; i++) {
+    if (values[i] < lo) lo = values[i];
+    if (values[i] > hi) hi = values[i];
+  }
+  return [lo, hi];
+};
+
+/** Per id, the number of the count that last met it: ids are counted without a set or a sort. */
+let lastCount = new Int32Array(1024);
+let counts = 0;
+
+/** How many different ids `ids` holds (non-negative integers, as account ids are). */
+function distinctCount(ids: Int32Array): number {
+  let max = 0;
+  for (let i = 0; i < ids.length; i++) if (ids[i] > max) max = ids[i];
+  if (max >= lastCount.length) lastCount = new Int32Array(Math.max(max + 1, 2 * lastCount.length));
+  if (++counts === 2 ** 31 - 1) {
+    lastCount.fill(0);
+    counts = 1;
+  }
+  let distinct = 0;
+  for (let i = 0; i < ids.length; i++) {
+    if (lastCount[ids[i]] !== counts) {
+      lastCount[ids[i]] = counts;
+      distinct++;
+    }
+  }
+  return distinct;
+}
+
+/**
+ * Aggregates one cell's results held in typed arrays, which it reorders (medians and retention
+ * counts selected in place): the one implementation of a cell's figures.
+ */
+export function aggregateCellArrays(a: CellArrays): CellAggregate {
+  const n = a.medianG.length;
+  const testers = distinctCount(a.authorIds);
+  // The reported retention counts to the front, in order.
+  let retentionN = 0;
+  for (let i = 0; i < n; i++) if (!Number.isNaN(a.retentionCuts[i])) a.retentionCuts[retentionN++] = a.retentionCuts[i];
+  return {
+    n,
+    testers,
+    sharpnessG: summarizeInPlace(a.medianG),
+    retentionMedianCuts: retentionN ? medianInPlace(a.retentionCuts.subarray(0, retentionN)) : null,
+    retentionN,
+    hrcRange: rangeOf(a.hrc),
+    angleRange: rangeOf(a.perSideDeg),
+  };
+}
+
 /** Aggregates the results of one cell: statistics of their medians, testers, ranges. */
 export function aggregateCell(members: readonly CellMember[]): CellAggregate {
-  const retention = members.map((m) => m.retentionCuts).filter((c): c is number => c !== null);
-  const hrc = members.map((m) => m.hrc);
-  const angle = members.map((m) => m.perSideDeg);
-  return {
-    n: members.length,
-    testers: new Set(members.map((m) => m.authorId)).size,
-    sharpnessG: summarize(members.map((m) => m.sharpnessMedianG)),
-    retentionMedianCuts: retention.length ? median(retention) : null,
-    retentionN: retention.length,
-    hrcRange: [Math.min(...hrc), Math.max(...hrc)],
-    angleRange: [Math.min(...angle), Math.max(...angle)],
-  };
+  return aggregateCellArrays(arraysOf(members));
 }
 
 /** A result as it is grouped into cells: its cell key parts beside its figures. */
@@ -108,13 +180,13 @@ export interface CellColumns {
 
 /** The stored columns of one cell from its results (which must not be empty). */
 export function cellColumns(members: readonly (CellMember & { gritUm: number })[]): CellColumns {
-  const a = aggregateCell(members);
-  let gritUmMin = Infinity;
-  let gritUmMax = -Infinity;
-  for (const m of members) {
-    if (m.gritUm < gritUmMin) gritUmMin = m.gritUm;
-    if (m.gritUm > gritUmMax) gritUmMax = m.gritUm;
-  }
+  return cellColumnsOfArrays(arraysOf(members));
+}
+
+/** `cellColumns` of one cell's results held in typed arrays, which it reorders. */
+export function cellColumnsOfArrays(arrays: CellArrays): CellColumns {
+  const [gritUmMin, gritUmMax] = rangeOf(arrays.gritUm);
+  const a = aggregateCellArrays(arrays);
   return {
     n: a.n,
     testers: a.testers,

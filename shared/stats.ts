@@ -33,16 +33,61 @@ function checkValues(values: readonly number[], field = 'values'): void {
   }
 }
 
-function sortedCopy(values: readonly number[]): number[] {
-  return [...values].sort((a, b) => a - b);
+/** Throws, naming the first value that is not a finite number (the typed arrays' `checkValues`). */
+function checkFinite(values: Float64Array, field = 'values'): void {
+  if (values.length === 0) throw new ComputationError('there are no values to summarise; give at least one', field);
+  for (let i = 0; i < values.length; i++) {
+    if (!Number.isFinite(values[i])) throw new ComputationError(`value ${i + 1} is not a finite number (got ${String(values[i])})`, field);
+  }
 }
 
-/** Type 7 quantile of ascending values: linear interpolation between order statistics at (n − 1)p. */
-function quantileOfSorted(sorted: readonly number[], p: number): number {
-  const h = (sorted.length - 1) * p;
+/**
+ * Moves the k-th smallest of a[left..right] to a[k], none larger before it and none smaller
+ * after it (Hoare's selection, FIND, with a median-of-three pivot; C. A. R. Hoare, "Algorithm 65:
+ * Find", Comm. ACM 4(7), 1961). Linear on average, no allocation.
+ */
+function select(a: Float64Array, k: number, left: number, right: number): void {
+  while (right > left) {
+    const mid = (left + right) >> 1;
+    const x = a[left];
+    const y = a[mid];
+    const z = a[right];
+    const pivot = x < y ? (y < z ? y : x < z ? z : x) : x < z ? x : y < z ? z : y;
+    let i = left;
+    let j = right;
+    while (i <= j) {
+      while (a[i] < pivot) i++;
+      while (a[j] > pivot) j--;
+      if (i <= j) {
+        const t = a[i];
+        a[i] = a[j];
+        a[j] = t;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) right = j;
+    else if (k >= i) left = i;
+    else return;
+  }
+}
+
+/**
+ * Type 7 quantile by selection: linear interpolation between the order statistics at (n − 1)p,
+ * found in place (`a` is reordered). `from`: a position before which every value is known to be
+ * no larger than those after it (a lower quantile's, selected before), so the search starts there.
+ */
+function quantileInPlace(a: Float64Array, p: number, from = 0): number {
+  const n = a.length;
+  const h = (n - 1) * p;
   const lo = Math.floor(h);
-  const hi = Math.min(lo + 1, sorted.length - 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+  select(a, lo, from, n - 1);
+  let next = a[lo];
+  if (h > lo) {
+    next = Infinity;
+    for (let i = lo + 1; i < n; i++) if (a[i] < next) next = a[i];
+  }
+  return a[lo] + (h - lo) * (next - a[lo]);
 }
 
 /**
@@ -55,7 +100,7 @@ export function quantile(values: readonly number[], p: number): number {
   if (typeof p !== 'number' || !Number.isFinite(p) || p < 0 || p > 1) {
     throw new ComputationError(`a quantile's p must lie between 0 and 1 (got ${String(p)})`, 'p');
   }
-  return quantileOfSorted(sortedCopy(values), p);
+  return quantileInPlace(Float64Array.from(values), p);
 }
 
 /** The median (the 0.5 quantile; the mean of the middle two for an even count). */
@@ -64,13 +109,13 @@ export function median(values: readonly number[]): number {
 }
 
 /** Mean with a correction pass: the second pass adds back the rounding error of the first. */
-function meanOf(values: readonly number[]): number {
+function meanOf(values: ArrayLike<number>): number {
   const n = values.length;
   let sum = 0;
-  for (const v of values) sum += v;
+  for (let i = 0; i < n; i++) sum += values[i];
   let m = sum / n;
   let correction = 0;
-  for (const v of values) correction += v - m;
+  for (let i = 0; i < n; i++) correction += values[i] - m;
   m += correction / n;
   return m;
 }
@@ -89,13 +134,17 @@ export function mean(values: readonly number[]): number {
  */
 export function sampleSd(values: readonly number[]): number | null {
   checkValues(values);
+  return sdAbout(values, meanOf(values));
+}
+
+/** The corrected two-pass standard deviation about the values' mean `m`; null below two values. */
+function sdAbout(values: ArrayLike<number>, m: number): number | null {
   const n = values.length;
   if (n < 2) return null;
-  const m = meanOf(values);
   let squares = 0;
   let residue = 0;
-  for (const v of values) {
-    const dev = v - m;
+  for (let i = 0; i < n; i++) {
+    const dev = values[i] - m;
     squares += dev * dev;
     residue += dev;
   }
@@ -230,11 +279,19 @@ export function studentTQuantile(p: number, df: number): number {
  * Null for a single value; throws ComputationError for empty input.
  */
 export function meanCi95(values: readonly number[]): [number, number] | null {
-  const sd = sampleSd(values);
-  if (sd === null) return null;
-  const n = values.length;
+  checkValues(values);
   const m = meanOf(values);
-  const half = (studentTQuantile(0.975, n - 1) * sd) / Math.sqrt(n);
+  return ci95About(values.length, m, sdAbout(values, m));
+}
+
+/** t(0.975, df) by degrees of freedom, computed once each (a cell's interval asks it again and again). */
+const t975 = new Map<number, number>();
+
+function ci95About(n: number, m: number, sd: number | null): [number, number] | null {
+  if (sd === null) return null;
+  let t = t975.get(n - 1);
+  if (t === undefined) t975.set(n - 1, (t = studentTQuantile(0.975, n - 1)));
+  const half = (t * sd) / Math.sqrt(n);
   return [m - half, m + half];
 }
 
@@ -245,14 +302,27 @@ export function meanCi95(values: readonly number[]): [number, number] | null {
  */
 export function summarize(values: readonly number[]): Summary {
   checkValues(values);
-  const sorted = sortedCopy(values);
-  return {
-    n: values.length,
-    median: quantileOfSorted(sorted, 0.5),
-    q1: quantileOfSorted(sorted, 0.25),
-    q3: quantileOfSorted(sorted, 0.75),
-    mean: meanOf(values),
-    sd: sampleSd(values),
-    ci95: meanCi95(values),
-  };
+  return summarizeInPlace(Float64Array.from(values));
+}
+
+/**
+ * `summarize` of values held in a typed array, which it reorders (the quartiles are found by
+ * selection, not by sorting a copy): the read models' way, with no allocation per value.
+ */
+export function summarizeInPlace(values: Float64Array): Summary {
+  checkFinite(values);
+  // Mean and spread first, in the values' own order (the sums' rounding depends on it).
+  const m = meanOf(values);
+  const sd = sdAbout(values, m);
+  const n = values.length;
+  const q1 = quantileInPlace(values, 0.25);
+  const median = quantileInPlace(values, 0.5, Math.floor((n - 1) * 0.25));
+  const q3 = quantileInPlace(values, 0.75, Math.floor((n - 1) * 0.5));
+  return { n, median, q1, q3, mean: m, sd, ci95: ci95About(n, m, sd) };
+}
+
+/** The median of values held in a typed array, which it reorders (selection). */
+export function medianInPlace(values: Float64Array): number {
+  checkFinite(values);
+  return quantileInPlace(values, 0.5);
 }

@@ -1,5 +1,5 @@
 import { Op } from 'sequelize';
-import { bandStartOf, cellColumns, type BandedMember } from '@shared/aggregate';
+import { bandStartOf, cellColumnsOfArrays, type BandedMember, type CellArrays } from '@shared/aggregate';
 import { Result, User } from '../models';
 import { keptUntil } from '../queries/kept-until';
 import { memberAttributes, type CellKey, type CellRecord } from '../aggregates/comparison-cells';
@@ -13,9 +13,9 @@ type CellChange = { keys: CellKey[] } | { all: true };
  * The approved results' filterable columns as typed arrays in memory: what the comparison's
  * live filters (hardness, angle, dates, bond, publishers) need, so that a view filtered by them
  * is a scan of a few MB rather than a read of result rows (decision 017). Built once at
- * start-up, then kept current by `apply` after each commit that changed approved results: the
- * whole-φ cells a commit named are read again (through the covering index of 0008) and their
- * rows replaced. A read waits for the updates under way, so an answer never predates a commit
+ * start-up (its rows in cell order, decision 026), then kept current by `apply` after each
+ * commit that changed approved results: the whole-φ cells a commit named are read again
+ * (through the covering index of 0008) and their rows replaced. A read waits for the updates under way, so an answer never predates a commit
  * that was acknowledged before it was asked.
  */
 
@@ -80,6 +80,39 @@ class Columns {
       next.set(this.i[c].subarray(0, this.size));
       this.i[c] = next;
     }
+  }
+  /**
+   * A new Columns of the rows `order` names, in that order: a row of this one as its index, a
+   * row of `other` as −(index + 1). Column by column, so each copy is one tight loop.
+   */
+  take(order: Int32Array, other?: Columns): Columns {
+    const next = new Columns(Math.max(1024, order.length));
+    const copy = <A extends Float64Array | Int32Array>(to: A, from: A, alt: A | undefined) => {
+      for (let k = 0; k < order.length; k++) {
+        const o = order[k];
+        to[k] = o >= 0 ? from[o] : alt![-o - 1];
+      }
+    };
+    for (const c of FLOAT_COLUMNS) copy(next.f[c], this.f[c], other?.f[c]);
+    for (const c of INT_COLUMNS) copy(next.i[c], this.i[c], other?.i[c]);
+    next.size = order.length;
+    return next;
+  }
+  /** Its rows in cell order (cell number, half band, id): each cell's rows, and each half band's, side by side. */
+  inCellOrder(): Columns {
+    const { cell, half, id } = this.i;
+    return this.take(Int32Array.from({ length: this.size }, (_, r) => r).sort((a, b) => cell[a] - cell[b] || half[a] - half[b] || id[a] - id[b]));
+  }
+  /** This one and `other`, both in cell order, merged into one in cell order (one pass). */
+  mergedInCellOrder(other: Columns): Columns {
+    const before = (a: Columns, r: number, b: Columns, s: number) => a.i.cell[r] - b.i.cell[s] || a.i.half[r] - b.i.half[s] || a.i.id[r] - b.i.id[s];
+    const order = new Int32Array(this.size + other.size);
+    let i = 0;
+    let j = 0;
+    for (let k = 0; k < order.length; k++) {
+      order[k] = j >= other.size || (i < this.size && before(this, i, other, j) < 0) ? i++ : -(j++ + 1);
+    }
+    return this.take(order, other);
   }
   /** Keeps only the rows `keep` accepts, in order. */
   compact(keep: (row: number) => boolean): void {
@@ -218,7 +251,7 @@ export class ApprovedResults {
       after = rows[rows.length - 1].id;
     }
     const newest = new Newest().merged(new Set(), fresh, Array.from({ length: fresh.size }, (_, r) => r));
-    this.cols = fresh;
+    this.cols = fresh.inCellOrder();
     this.newestFirst = newest;
   }
 
@@ -244,9 +277,11 @@ export class ApprovedResults {
       if (!keep) removed.add(id[row]);
       return keep;
     });
-    const first = this.cols.size;
-    for (const r of rows) this.append(this.cols, r);
-    this.newestFirst = this.newestFirst.merged(removed, this.cols, Array.from({ length: rows.length }, (_, k) => first + k));
+    // The cells' rows read again, put in cell order and merged in: the columns stay in cell order.
+    const added = new Columns(rows.length);
+    for (const r of rows) this.append(added, r);
+    this.cols = this.cols.mergedInCellOrder(added.inCellOrder());
+    this.newestFirst = this.newestFirst.merged(removed, added, Array.from({ length: added.size }, (_, k) => k));
   }
 
   /**
@@ -319,15 +354,25 @@ export class ApprovedResults {
 
   /**
    * The cells (figures as the comparison_cells table stores them) of the results that `filter`
-   * selects, grouped by `step`, computed by the same code as the stored cells.
+   * selects, grouped by `step`, computed by the same code as the stored cells. One pass over the
+   * columns and none over result rows: the matching rows' figures are gathered cell by cell into
+   * reused typed arrays, whose medians and quartiles are then selected in place.
    */
   async cells(filter: ResultFilter, step: 1 | 0.5): Promise<CellRecord[]> {
     const publishers = filter.publishers ? await this.publishers() : null;
     await this.ready();
+    return this.scan(filter, step, publishers);
+  }
+
+  /** `cells`, once built: synchronous, so the scratch arrays are this call's alone. */
+  private scan(filter: ResultFilter, step: 1 | 0.5, publishers: ReadonlySet<number> | null): CellRecord[] {
     const c = this.cols;
     const { method, steel, material, gritPhi, half, author, abrasive, cell } = c.i;
-    const { gritUm, medianG, retention, hrc, angle, created } = c.f;
-    const materials = filter.materials ? new Set([...filter.materials].map((m) => this.materialNo.get(m) ?? -1)) : null;
+    const { hrc, angle, created } = c.f;
+    const steels = mask(filter.steelIds);
+    const materials = filter.materials ? mask(new Set([...filter.materials].map((m) => this.materialNo.get(m) ?? -1))) : null;
+    const abrasives = mask(filter.abrasiveIds);
+    const authors = mask(publishers);
     const above = filter.gritPhiAbove ?? -Infinity;
     const below = filter.gritPhiBelow ?? Infinity;
     const hrcMin = filter.hrcMin ?? -Infinity;
@@ -336,39 +381,73 @@ export class ApprovedResults {
     const angleMax = filter.angleMax ?? Infinity;
     const from = filter.createdFrom ?? -Infinity;
     const before = filter.createdBefore ?? Infinity;
-    // Rows by cell: a cell (whole φ, or each half band in it) number maps to its rows.
-    const groups = new Map<number, number[]>();
+    const methodId = filter.methodId;
+    // The columns are in cell order, so each group (a whole-φ cell, or a half band in it) is one
+    // run of rows: its matches are gathered side by side as the scan meets them.
+    const { gritUm, medianG, retention } = c.f;
+    const into = this.scratchFor(c.size);
+    const groups: { g: number; from: number; to: number }[] = [];
+    let current = -1;
+    let m = 0;
     for (let r = 0; r < c.size; r++) {
-      if (method[r] !== filter.methodId) continue;
-      if (filter.steelIds && !filter.steelIds.has(steel[r])) continue;
-      if (materials && !materials.has(material[r])) continue;
+      if (method[r] !== methodId) continue;
+      if (steels && steels[steel[r]] !== 1) continue;
+      if (materials && materials[material[r]] !== 1) continue;
       if (!(gritPhi[r] > above && gritPhi[r] < below)) continue;
       if (!(hrc[r] >= hrcMin && hrc[r] <= hrcMax)) continue;
       if (!(angle[r] >= angleMin && angle[r] <= angleMax)) continue;
       if (!(created[r] >= from && created[r] < before)) continue;
-      if (filter.abrasiveIds && !filter.abrasiveIds.has(abrasive[r])) continue;
-      if (publishers && !publishers.has(author[r])) continue;
+      if (abrasives && abrasives[abrasive[r]] !== 1) continue;
+      if (authors && authors[author[r]] !== 1) continue;
       const g = step === 1 ? cell[r] : 2 * cell[r] + half[r];
-      const list = groups.get(g);
-      if (list) list.push(r);
-      else groups.set(g, [r]);
+      if (g !== current) {
+        if (groups.length) groups[groups.length - 1].to = m;
+        groups.push({ g, from: m, to: m });
+        current = g;
+      }
+      into.authorIds[m] = author[r];
+      into.medianG[m] = medianG[r];
+      into.retentionCuts[m] = retention[r];
+      into.hrc[m] = hrc[r];
+      into.perSideDeg[m] = angle[r];
+      into.gritUm[m] = gritUm[r];
+      m++;
     }
-    const out: CellRecord[] = [];
-    for (const [g, rows] of groups) {
+    if (groups.length) groups[groups.length - 1].to = m;
+    return groups.map(({ g, from: lo, to: hi }) => {
       const key = this.cellKeys[step === 1 ? g : g >> 1];
       const bandStart = step === 1 ? 2 * key.gritPhi : 2 * key.gritPhi + (g & 1);
-      const members = rows.map((r) => ({
-        authorId: author[r],
-        sharpnessMedianG: medianG[r],
-        retentionCuts: Number.isNaN(retention[r]) ? null : retention[r],
-        hrc: hrc[r],
-        perSideDeg: angle[r],
-        gritUm: gritUm[r],
-      }));
-      out.push({ methodId: key.methodId, steelId: key.steelId, material: key.material, bandWidth: step === 1 ? 2 : 1, bandStart, ...cellColumns(members) });
-    }
-    return out;
+      const slice: CellArrays = {
+        authorIds: into.authorIds.subarray(lo, hi),
+        medianG: into.medianG.subarray(lo, hi),
+        retentionCuts: into.retentionCuts.subarray(lo, hi),
+        hrc: into.hrc.subarray(lo, hi),
+        perSideDeg: into.perSideDeg.subarray(lo, hi),
+        gritUm: into.gritUm.subarray(lo, hi),
+      };
+      return { methodId: key.methodId, steelId: key.steelId, material: key.material, bandWidth: step === 1 ? 2 : 1, bandStart, ...cellColumnsOfArrays(slice) };
+    });
   }
+
+  /** Typed arrays for one scan, reused from call to call (grown with the data). */
+  private scratch: CellArrays | null = null;
+  private scratchFor(size: number): CellArrays {
+    if (!this.scratch || this.scratch.medianG.length < size) {
+      const n = Math.max(1024, Math.ceil(size * 1.25));
+      this.scratch = { authorIds: new Int32Array(n), medianG: new Float64Array(n), retentionCuts: new Float64Array(n), hrc: new Float64Array(n), perSideDeg: new Float64Array(n), gritUm: new Float64Array(n) };
+    }
+    return this.scratch;
+  }
+}
+
+/** A set of small non-negative ids as a byte per id (1: in the set), or null for no set. */
+function mask(ids: ReadonlySet<number> | null | undefined): Uint8Array | null {
+  if (!ids) return null;
+  let max = 0;
+  for (const id of ids) if (id > max) max = id;
+  const m = new Uint8Array(max + 1);
+  for (const id of ids) if (id >= 0) m[id] = 1;
+  return m;
 }
 
 /** The process's read model of approved results. */

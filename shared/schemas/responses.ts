@@ -17,7 +17,13 @@ export const errorSchema = z
 
 /** GET /health. */
 export const healthSchema = z
-  .object({ ok: z.literal(true), searchDocuments: z.number().int().nonnegative(), pendingWrites: z.number().int().nonnegative() })
+  .object({
+    ok: z.literal(true),
+    searchDocuments: z.number().int().nonnegative(),
+    pendingWrites: z.number().int().nonnegative(),
+    /** Event-loop stalls longer than `overMs` since start, and the latest (end time, ms since the epoch; length, ms). */
+    eventLoop: z.object({ overMs: z.number(), count: z.number().int().nonnegative(), recent: z.array(z.object({ at: z.number(), ms: z.number() })) }),
+  })
   .meta({ id: 'Health', examples: [{ ok: true, searchDocuments: 1200, pendingWrites: 0 }] });
 
 /** The public face of an account: never its e-mail address. */

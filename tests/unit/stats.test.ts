@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import * as ss from 'simple-statistics';
-import { mean, meanCi95, median, quantile, sampleSd, studentTCdf, studentTQuantile, summarize } from '@shared/stats';
+import { mean, meanCi95, median, medianInPlace, quantile, sampleSd, studentTCdf, studentTQuantile, summarize, summarizeInPlace } from '@shared/stats';
 import { computationError } from '../setup/computation-error';
 
 function relativeError(actual: number, expected: number): number {
@@ -212,5 +212,31 @@ describe('summarize', () => {
         }
       }),
     );
+  });
+});
+
+describe('the in-place summary of a typed array (selection instead of sorting)', () => {
+  it('gives the quartiles and median of simple-statistics (type 7), and the mean and sd of the list summary, for lists with many ties', () => {
+    fc.assert(
+      fc.property(fc.array(fc.integer({ min: 100, max: 130 }).map((g) => g + 0.25), { minLength: 1, maxLength: 400 }), (values) => {
+        const s = summarizeInPlace(Float64Array.from(values));
+        // simple-statistics' quantileSorted interpolates as type 7 (general-purpose library); the
+        // quarter-gram values keep every interpolation exact, so the figures must be equal.
+        const sorted = [...values].sort((a, b) => a - b);
+        expect(s.q1).toBe(ss.quantileSorted(sorted, 0.25));
+        expect(s.median).toBe(ss.quantileSorted(sorted, 0.5));
+        expect(s.q3).toBe(ss.quantileSorted(sorted, 0.75));
+        expect(s.mean).toBe(mean(values));
+        expect(s.sd).toBe(sampleSd(values));
+        expect(s.ci95).toEqual(meanCi95(values));
+        expect(medianInPlace(Float64Array.from(values))).toBe(ss.median(values));
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('refuses an empty array or a value that is not finite, naming it', () => {
+    expect(computationError(() => summarizeInPlace(new Float64Array(0))).field).toBe('values');
+    expect(computationError(() => medianInPlace(Float64Array.from([1, NaN]))).message).toContain('value 2');
   });
 });

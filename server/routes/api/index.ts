@@ -25,6 +25,7 @@ import { devRouter } from './dev';
 import { adminRouter } from './admin';
 import type { MailCatcher } from '../../mail/mail-catcher';
 import { emptyQuerySchema } from '@shared/schemas/common';
+import { eventLoopStalls } from '../../event-loop';
 import { openApiJson } from '../../openapi/document';
 import type { AnswerCache } from '../../middleware/answer-cache';
 
@@ -42,7 +43,7 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
   router.use(csrfProtection);
 
   router.get('/health', validate({ query: emptyQuerySchema }), (_req, res) => {
-    res.json({ ok: true, searchDocuments: ctx.search.size, pendingWrites: ctx.db.queue.size, answerCache: answers.stats() });
+    res.json({ ok: true, searchDocuments: ctx.search.size, pendingWrites: ctx.db.queue.size, answerCache: answers.stats(), eventLoop: eventLoopStalls() });
   });
 
   router.get('/session', validate({ query: emptyQuerySchema }), (req, res) => {
