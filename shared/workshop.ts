@@ -245,3 +245,27 @@ export function coolantPlan(steps: CoolantStep[]): { changes: CoolantChange[]; s
   const suggested = fewest && fewest.cost < changes.length ? fewest.order : steps;
   return { changes, suggested, suggestedChanges: changesOf(suggested) };
 }
+
+/** Where a per-side angle taken from a saved setup on one wheel came from. */
+export interface AngleSource {
+  perSideDeg: number;
+  gapMm: number;
+  diameterMm: number;
+  barDiameterMm: number;
+  projectionMm: number;
+}
+
+/**
+ * The per-side angle a saved setup grinds on one wheel today, with the setting it rests on (the
+ * gap for the wheel's latest diameter on its grinder's bar); the reason instead where the setup
+ * cannot reach that wheel or the wheel is on no grinder.
+ */
+export function angleFromSavedSetup(
+  setup: { perSideDeg: number; projectionMm: number; settings: Omit<SetupSetting, 'setupId'>[] },
+  wheelId: number,
+): AngleSource | { reason: string } {
+  const setting = setup.settings.find((s) => s.wheelIds.includes(wheelId));
+  if (!setting) return { reason: 'this wheel is on no grinder, so it has no setting for this setup' };
+  if (setting.gapMm === null) return { reason: setting.reason ?? 'this setup cannot reach this wheel' };
+  return { perSideDeg: setup.perSideDeg, gapMm: setting.gapMm, diameterMm: setting.diameterMm, barDiameterMm: setting.barDiameterMm, projectionMm: setup.projectionMm };
+}

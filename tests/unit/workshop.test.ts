@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { angleFromSetup } from '@shared/geometry';
-import { coolantPlan, replacementForecast, settingsToday, sharpeningCost, type CoolantStep, type WorkshopWheel } from '@shared/workshop';
+import { angleFromSavedSetup, coolantPlan, replacementForecast, settingsToday, sharpeningCost, type CoolantStep, type WorkshopWheel } from '@shared/workshop';
 
 const grinder = { id: 1, name: 'Wet grinder', spindleRpm: 90, barDiameterMm: 12 };
 const setup = { id: 7, name: 'Kitchen knife 15°', projectionMm: 140, perSideDeg: 15, offsetMm: 0 };
@@ -91,5 +91,24 @@ describe('coolant along a progression', () => {
     const plan = coolantPlan(steps);
     expect(plan.suggested).toEqual(steps);
     expect(plan.suggestedChanges).toHaveLength(2);
+  });
+});
+
+describe('the result form\'s angle from a saved setup on a wheel', () => {
+  it('gives the setup\'s angle with the gap for that wheel today, which grinds it (forward formula, shared/geometry.ts)', () => {
+    const worn = wheel(3, 250, [['2026-01-10', 246], ['2026-06-10', 240]]);
+    const settings = settingsToday([setup], [wheel(1, 250, [], false), worn], [grinder]).map(({ setupId: _s, ...rest }) => rest);
+    const source = angleFromSavedSetup({ ...setup, settings }, 3);
+    if (!('perSideDeg' in source)) throw new Error(source.reason);
+    expect(source).toMatchObject({ perSideDeg: 15, diameterMm: 240, barDiameterMm: 12, projectionMm: 140 });
+    // independent check: the gap put back through the forward model grinds 15° on the 240 mm wheel
+    expect(angleFromSetup({ wheelDiameterMm: 240, barDiameterMm: 12, gapMm: source.gapMm, projectionMm: 140 }).perSideDeg).toBeCloseTo(15, 9);
+  });
+
+  it('names why not: a wheel on no grinder, a setup that cannot reach', () => {
+    expect(angleFromSavedSetup({ ...setup, settings: [] }, 1)).toEqual({ reason: expect.stringMatching(/no grinder/) });
+    const short = { ...setup, projectionMm: 10, perSideDeg: 5 };
+    const settings = settingsToday([short], [wheel(5, 250)], [grinder]);
+    expect(angleFromSavedSetup({ ...short, settings }, 5)).toEqual({ reason: expect.stringMatching(/inside the wheel/) });
   });
 });

@@ -16,7 +16,7 @@ import { useAbrasives } from '@/features/abrasives/api/get-abrasives';
 import { useWorkshop, type Workshop, type WorkshopWheelView } from '../api/get-workshop';
 import { useAddToWorkshop } from '../api/add-to-workshop';
 import { useMeasurement } from '../api/measurements';
-import { formatLength, toMillimetres, useLengthUnit, type LengthUnit } from '../lengths';
+import { formatLength, toMillimetres, useLengthUnit, type LengthUnit } from '@/lib/lengths';
 
 const today = () => new Date().toISOString().slice(0, 10);
 const money = (amount: number, currency: string, digits = 2) => `${formatNumber(amount, digits)}\u00a0${currency}`;
