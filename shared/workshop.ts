@@ -141,6 +141,9 @@ export function replacementForecast(wheel: WorkshopWheel): { onDate: string; mmP
   return { onDate: new Date(Math.round(tMin) * DAY_MS).toISOString().slice(0, 10), mmPer30Days: -slope * 30, points: n };
 }
 
+/** Below this many, an estimate is said plainly to rest on little (as the decision view's "thin evidence"). */
+export const FEW = 5;
+
 /** What a wheel's sharpenings cost, and what the figure rests on. */
 export interface SharpeningCost {
   costPerSharpening: number;

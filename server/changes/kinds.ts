@@ -45,7 +45,7 @@ export interface SettingChange {
 }
 
 /** Kinds of rows that change by id, with nothing more to say. */
-export const ROW_KINDS = ['account', 'token', 'flag', 'photo', 'follow', 'application', 'import', 'wheel', 'mail-settings', 'audit'] as const;
+export const ROW_KINDS = ['account', 'token', 'flag', 'photo', 'follow', 'application', 'import', 'wheel', 'price-report', 'mail-settings', 'audit'] as const;
 export type RowKind = (typeof ROW_KINDS)[number];
 
 /** Other rows written, by id: accounts, API tokens, flags, photos, follows, … */

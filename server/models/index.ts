@@ -37,7 +37,7 @@ export function initModels(sequelize: Sequelize) {
     [User, rowsOf('account')], [ApiToken, rowsOf('token')], [SiteSetting, settingsOf], [Flag, rowsOf('flag')], [Photo, rowsOf('photo')],
     [Follow, rowsOf('follow')], [PublisherApplication, rowsOf('application')], [ImportBatch, rowsOf('import')], [ImportBatchResult, rowsOf('import', 'batchId')],
     [Wheel, rowsOf('wheel')], [WheelMeasurement, rowsOf('wheel', 'wheelId')], [NotificationSetting, rowsOf('mail-settings', 'userId')], [AuditEntry, rowsOf('audit')],
-    [Grinder, rowsOf('wheel')], [Jig, rowsOf('wheel')], [Setup, rowsOf('wheel')], [PriceReport, rowsOf('wheel')],
+    [Grinder, rowsOf('wheel')], [Jig, rowsOf('wheel')], [Setup, rowsOf('wheel')], [PriceReport, rowsOf('price-report')],
   ];
   for (const [model, describe] of recorded) recordWritesOf(model, describe);
 }

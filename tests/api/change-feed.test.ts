@@ -21,6 +21,7 @@ import { flagItem, resolveFlag } from '../../server/commands/flag-item';
 import { followPage, unfollowPage } from '../../server/commands/follow-page';
 import { importResults, templateRows } from '../../server/commands/import-results';
 import { addWheel, measureWheel } from '../../server/commands/log-wheel';
+import { addGrinder, addJig, addWorkshopWheel, reportPrice, retireWheel, saveSetup } from '../../server/commands/equip-workshop';
 import { mergePages } from '../../server/commands/merge-pages';
 import { protectPage } from '../../server/commands/protect-page';
 import { recordRefusal } from '../../server/commands/record-audit';
@@ -237,6 +238,22 @@ describe('a write through every command', () => {
     expect(kinds(await changesOf(() => measureWheel(server.ctx, member.asActor(), wheelId, { measuredOn: '2026-11-02', diameterMm: 249 } as never)))).toEqual(['wheel']);
   });
 
+  it('the workshop: grinders, jigs, setups and wheels are the member\'s own rows; a price report is public and its own kind', async () => {
+    const actor = member.asActor();
+    let grinderId = 0;
+    let jigId = 0;
+    let wheelId = 0;
+    const grinder = { name: 'Feed grinder', spindleRpm: 90, barDiameterMm: 12, barMount: 'with-rotation' as const };
+    expect(kinds(await changesOf(async () => void (grinderId = (await addGrinder(server.ctx, actor, grinder)).id)))).toEqual(['wheel']);
+    expect(kinds(await changesOf(async () => void (jigId = (await addJig(server.ctx, actor, { name: 'Feed jig', offsetMm: 0 })).id)))).toEqual(['wheel']);
+    expect(kinds(await changesOf(() => saveSetup(server.ctx, actor, { name: 'Feed setup', jigId, projectionMm: 140, perSideDeg: 15 })))).toEqual(['wheel']);
+    const wheel = { name: 'Feed CBN', abrasive: 'cbn-electroplated-wheel-250-b126', grinderId, originalDiameterMm: 250, ratedSpeedMps: 20 };
+    expect(kinds(await changesOf(async () => void (wheelId = (await addWorkshopWheel(server.ctx, actor, wheel)).id)))).toEqual(['wheel']);
+    expect(kinds(await changesOf(() => retireWheel(server.ctx, actor, wheelId, { retiredOn: '2026-11-03', retiredAfterSharpenings: 800 })))).toEqual(['wheel']);
+    const price = { abrasive: 'cbn-electroplated-wheel-250-b126', price: 180, currency: 'EUR', paidOn: '2026-10-01', condition: 'new' as const };
+    expect(kinds(await changesOf(() => reportPrice(server.ctx, actor, price)))).toEqual(['price-report']);
+  });
+
   it('updateSiteSettings', async () => {
     expect(kinds(await changesOf(() => updateSiteSettings(server.ctx, admin.asActor(), { trustPublisherImports: true })))).toEqual(['audit', 'setting']);
   });
@@ -254,7 +271,7 @@ describe('a write through every command', () => {
       'applyForPublisher', 'bulkApproveResults', 'createToken', 'decidePublisherApplication', 'flagItem', 'resolveFlag', 'followPage', 'unfollowPage',
       'importResults', 'addWheel', 'measureWheel', 'mergePages', 'protectPage', 'recordRefusal', 'retractResult', 'revertPage', 'reviewPageRevision',
       'reviewResult', 'revisePage', 'revokeToken', 'sendDigest', 'signInFromProvider', 'submitResult', 'updateNotificationSettings', 'updateSiteSettings',
-      'uploadPhoto', 'removePhoto',
+      'uploadPhoto', 'removePhoto', 'addGrinder', 'addJig', 'saveSetup', 'addWorkshopWheel', 'retireWheel', 'reportPrice',
     ]);
     const helpers = new Set([
       'hashToken', 'decodeCsv', 'checkImport', 'templateRows', 'resultRow', 'applyContent', 'recordPageChange', 'refuseIfMerged', 'recordAudit',
@@ -263,11 +280,11 @@ describe('a write through every command', () => {
     ]);
     // Writes merged from other work whose followers are checked in their own files, not yet here
     // (each through the models, so the feed records them): result edits and corrections
-    // (result-revisions.test.ts: cells and search follow an approved correction), the workshop
-    // (workshop.test.ts, wheels.test.ts) and admin user management (admin-users.test.ts: a ban
+    // (result-revisions.test.ts: cells and search follow an approved correction), the wheel log's
+    // corrections (wheels.test.ts) and admin user management (admin-users.test.ts: a ban
     // reaches the account cache on the next request).
     const testedElsewhere = new Set([
-      'editResult', 'saveDraft', 'reviewResultRevision', 'addGrinder', 'addJig', 'saveSetup', 'addWorkshopWheel', 'retireWheel', 'reportPrice',
+      'editResult', 'saveDraft', 'reviewResultRevision',
       'editMeasurement', 'deleteMeasurement', 'manageUser',
     ]);
     const dir = path.resolve('server/commands');

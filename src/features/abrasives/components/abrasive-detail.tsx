@@ -13,6 +13,7 @@ import { PageReferences, SourceMark } from '@/features/wiki/components/page-refe
 import { MergedNote, useMergedRedirect } from '@/features/wiki/components/merged-redirect';
 import type { WikiParts } from '@/features/wiki/types';
 import type { AbrasiveDetail as Abrasive } from '@/types/api';
+import { PricesPaid } from '@/features/workshop/components/prices-paid';
 
 /** What the abrasive page adds: the wiki parts, a price note and its results grouped by steel. */
 type AbrasivePage = Omit<Abrasive, 'revision'> & WikiParts & {
@@ -144,6 +145,8 @@ export function AbrasiveDetail({ abrasive: data }: { abrasive: Abrasive }) {
           </TableFrame>
         </section>
       ) : null}
+
+      <PricesPaid abrasive={abrasive.slug} />
 
       {abrasive.citations ? <PageReferences citations={abrasive.citations} /> : null}
     </div>
