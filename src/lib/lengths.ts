@@ -50,3 +50,9 @@ export function lengthText(mm: number, unit: LengthUnit): string {
   const value = unit === 'in' ? mm / MM_PER_INCH : mm;
   return String(Number(value.toFixed(unit === 'in' ? 4 : 3)));
 }
+
+/** A computation's message, written in mm (shared/geometry.ts), with each "N mm" in the chosen unit. */
+export function lengthsIn(message: string, unit: LengthUnit): string {
+  if (unit === 'mm') return message;
+  return message.replace(/(-?\d+(?:\.\d+)?) mm\b/g, (_, n: string) => formatLength(Number(n), unit));
+}

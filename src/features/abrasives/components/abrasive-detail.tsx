@@ -14,6 +14,7 @@ import { MergedNote, useMergedRedirect } from '@/features/wiki/components/merged
 import type { WikiParts } from '@/features/wiki/types';
 import type { AbrasiveDetail as Abrasive } from '@/types/api';
 import { PricesPaid } from '@/features/workshop/components/prices-paid';
+import { formatLength, useLengthUnit } from '@/lib/lengths';
 
 /** What the abrasive page adds: the wiki parts, a price note and its results grouped by steel. */
 type AbrasivePage = Omit<Abrasive, 'revision'> & WikiParts & {
@@ -36,6 +37,7 @@ export function AbrasiveDetail({ abrasive: data }: { abrasive: Abrasive }) {
   const isWheel = abrasive.form === 'wheel';
   const range = gritRangeText(abrasive.gritRange);
   const mergedFrom = useMergedRedirect('abrasives', abrasive.slug);
+  const [unit] = useLengthUnit();
   const mark = (field: string) => (abrasive.citations ? <SourceMark sources={abrasive.sources} field={field} citations={abrasive.citations} /> : null);
   return (
     <div className="flex flex-col gap-8">
@@ -63,7 +65,7 @@ export function AbrasiveDetail({ abrasive: data }: { abrasive: Abrasive }) {
             ? [
                 {
                   term: 'Size',
-                  value: `Ø ${formatNumber(abrasive.wheelDiameterMm, 0)} mm${abrasive.widthMm ? ` × ${formatNumber(abrasive.widthMm, 0)} mm wide` : ''}`,
+                  value: `Ø ${formatLength(abrasive.wheelDiameterMm, unit, false, unit === 'in' ? 2 : 0)}${abrasive.widthMm ? ` × ${formatLength(abrasive.widthMm, unit, false, unit === 'in' ? 2 : 0)} wide` : ''}`,
                 },
               ]
             : []),

@@ -1,18 +1,19 @@
-import type { ReactNode } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import { ComputationError } from '@shared/computation-error';
 import type { EdgeAngle } from '@shared/geometry';
 import { Field, Input, controlA11y } from '@/components/ui/field';
 import { Facts } from '@/components/ui/facts';
-import { formatDegrees, formatNumber } from '@/lib/format';
+import { formatDegrees } from '@/lib/format';
+import { lengthsIn, lengthText, toMillimetres, useLengthUnit, type LengthUnit } from '@/lib/lengths';
 
 export type Outcome<T> = { value: T; error?: undefined; field?: undefined } | { value?: undefined; error: string; field?: string };
 
-/** Run a computation; a ComputationError becomes a message for the field it names. */
-export function attempt<T>(run: () => T): Outcome<T> {
+/** Run a computation; a ComputationError becomes a message for the field it names, its lengths in `unit`. */
+export function attempt<T>(run: () => T, unit: LengthUnit = 'mm'): Outcome<T> {
   try {
     return { value: run() };
   } catch (err) {
-    if (err instanceof ComputationError) return { error: err.message, field: err.field };
+    if (err instanceof ComputationError) return { error: lengthsIn(err.message, unit), field: err.field };
     throw err;
   }
 }
@@ -23,8 +24,43 @@ export function toNumber(text: string): number {
   return t === '' ? Number.NaN : Number(t);
 }
 
-export function mm(value: number, digits = 1): string {
-  return `${formatNumber(value, digits)}\u00a0mm`;
+const mapValues = <F extends string, A, B>(o: Record<F, A>, f: (a: A) => B) => Object.fromEntries(Object.entries(o).map(([k, v]) => [k, f(v as A)])) as Record<F, B>;
+
+/**
+ * A tool's length boxes in the unit the person chose (src/lib/lengths.ts): the typed text, the
+ * values in mm the computations take, the boxes not yet a number, and a setter. When the unit changes, what was typed is
+ * rewritten in the new unit, so the setup stays the same one.
+ */
+export function useLengthBoxes<F extends string>(initialMm: Record<F, number>) {
+  const [unit] = useLengthUnit();
+  const [state, setState] = useState(() => ({ unit, text: mapValues(initialMm, (mm) => lengthText(mm, unit)) }));
+  let current = state;
+  if (state.unit !== unit) {
+    current = { unit, text: mapValues(state.text, (t) => (Number.isFinite(toMillimetres(t, state.unit)) ? lengthText(toMillimetres(t, state.unit), unit) : t)) };
+    setState(current);
+  }
+  const { mm, missing } = useMemo(() => {
+    const values = mapValues(current.text, (t) => toMillimetres(t, unit));
+    return { mm: values, missing: (Object.keys(values) as F[]).filter((k) => !Number.isFinite(values[k])) };
+  }, [current.text, unit]);
+  return {
+    unit,
+    text: current.text,
+    /** The values in mm (NaN where a box is empty or not a number) and the boxes that are so. */
+    mm,
+    missing,
+    set: (field: F, value: string) => setState((s) => ({ ...s, text: { ...s.text, [field]: value } })),
+  };
+}
+
+/** A drawing of a setup in its frame, or what it waits for, with its caption. */
+export function DrawingFigure({ children, waiting, caption }: { children: ReactNode | null; waiting: string; caption: string }) {
+  return (
+    <figure className="min-w-0 rounded-md border border-rule bg-panel p-3">
+      {children ?? <p className="p-6 text-muted">{waiting}</p>}
+      <figcaption className="mt-2 text-sm text-muted">{caption}</figcaption>
+    </figure>
+  );
 }
 
 /** A labelled number box in millimetres or degrees, with its error underneath. */
@@ -39,7 +75,7 @@ export function NumberField({
 }: {
   id: string;
   label: string;
-  unit: 'mm' | '°';
+  unit: LengthUnit | '°';
   hint?: string;
   value: string;
   onChange: (v: string) => void;
@@ -60,11 +96,12 @@ export function NumberField({
 
 
 /**
- * A setup's measurements (each a number box in mm) beside a drawing, with the angle they grind:
+ * A setup's measurements (each a number box in the chosen unit) beside a drawing, with the angle they grind:
  * the top section of the angle tools.
  */
 export function SetupSection<F extends string>({
   id,
+  unit,
   labels,
   text,
   onChange,
@@ -73,6 +110,7 @@ export function SetupSection<F extends string>({
   drawing,
 }: {
   id: string;
+  unit: LengthUnit;
   labels: Record<F, { label: string; hint: string }>;
   text: Record<F, string>;
   onChange: (field: F, value: string) => void;
@@ -92,7 +130,7 @@ export function SetupSection<F extends string>({
               key={field}
               id={`${id}-${field}`}
               label={labels[field].label}
-              unit="mm"
+              unit={unit}
               hint={labels[field].hint}
               value={text[field]}
               onChange={(v) => onChange(field, v)}

@@ -2,7 +2,7 @@ import { useId, useState } from 'react';
 import { angleFromSavedSetup, type AngleSource } from '@shared/workshop';
 import { Field, Select, sentence } from '@/components/ui/field';
 import { formatDegrees } from '@/lib/format';
-import { formatLength, useLengthUnit, type LengthUnit } from '@/lib/lengths';
+import { formatLength, lengthsIn, useLengthUnit, type LengthUnit } from '@/lib/lengths';
 import { useWorkshop, type WorkshopWheelView } from '../api/get-workshop';
 
 /**
@@ -60,7 +60,7 @@ export function AngleFromWorkshop({ onPick, currentDeg }: { onPick: (source: Ang
       {source ? (
         <p className={`text-sm sm:col-span-2 ${'reason' in source ? 'text-danger' : ''}`} aria-live="polite">
           {'reason' in source
-            ? `${sentence(source.reason)}: the angle was not filled in.`
+            ? `${sentence(lengthsIn(source.reason, unit))}: the angle was not filled in.`
             : describeSource(source, setup!.name, wheel!.name, unit) + (currentDeg === source.perSideDeg ? '' : ' You have since changed the angle by hand.')}
         </p>
       ) : null}

@@ -19,7 +19,7 @@ import { useWorkshop, type Workshop, type WorkshopWheelView } from '../api/get-w
 import { useAddToWorkshop } from '../api/add-to-workshop';
 import { useMeasurement } from '../api/measurements';
 import { useRetireWheel } from '../api/retire-wheel';
-import { formatLength, lengthText, toMillimetres, useLengthUnit, type LengthUnit } from '@/lib/lengths';
+import { formatLength, lengthsIn, lengthText, toMillimetres, useLengthUnit, type LengthUnit } from '@/lib/lengths';
 import { EntryForm, num, type EntryField } from './entry-form';
 
 const today = () => new Date().toISOString().slice(0, 10);
@@ -68,7 +68,7 @@ function SettingsToday({ workshop, unit }: { workshop: Workshop; unit: LengthUni
                         Set the gap to <strong className="text-lg">{formatLength(s.gapMm, unit)}</strong>
                       </>
                     ) : (
-                      <span className="text-danger">{s.reason}</span>
+                      <span className="text-danger">{lengthsIn(s.reason ?? '', unit)}</span>
                     )}
                   </p>
                   <p className="text-sm">
