@@ -5,7 +5,7 @@ import { paths } from '@/config/paths';
 import { Caution } from '@/components/ui/caution';
 import { Facts } from '@/components/ui/facts';
 import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
-import { formatGrams, formatMicrometres, formatNumber, label } from '@/lib/format';
+import { formatGrams, formatMicrometres, label } from '@/lib/format';
 import { WikiToolbar } from '@/features/wiki/components/wiki-toolbar';
 import { ServerHtml } from '@/components/ui/server-html';
 import { wikiHtmlClasses } from '@/features/wiki/components/wiki-html';
