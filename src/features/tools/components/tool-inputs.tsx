@@ -33,23 +33,31 @@ const mapValues = <F extends string, A, B>(o: Record<F, A>, f: (a: A) => B) => O
  */
 export function useLengthBoxes<F extends string>(initialMm: Record<F, number>) {
   const [unit] = useLengthUnit();
-  const [state, setState] = useState(() => ({ unit, text: mapValues(initialMm, (mm) => lengthText(mm, unit)) }));
+  // `exact`: the length in mm a box's text was written from, kept until the person types in it, so
+  // that switching units and back gives the same millimetres, not a rounded inch.
+  const [state, setState] = useState(() => ({ unit, text: mapValues(initialMm, (mm) => lengthText(mm, unit)), exact: { ...initialMm } as Partial<Record<F, number>> }));
   let current = state;
   if (state.unit !== unit) {
-    current = { unit, text: mapValues(state.text, (t) => (Number.isFinite(toMillimetres(t, state.unit)) ? lengthText(toMillimetres(t, state.unit), unit) : t)) };
+    const mmOf = (field: F) => state.exact[field] ?? toMillimetres(state.text[field], state.unit);
+    const fields = Object.keys(state.text) as F[];
+    current = {
+      unit,
+      text: Object.fromEntries(fields.map((f) => [f, Number.isFinite(mmOf(f)) ? lengthText(mmOf(f), unit) : state.text[f]])) as Record<F, string>,
+      exact: Object.fromEntries(fields.filter((f) => Number.isFinite(mmOf(f))).map((f) => [f, mmOf(f)])) as Partial<Record<F, number>>,
+    };
     setState(current);
   }
   const { mm, missing } = useMemo(() => {
-    const values = mapValues(current.text, (t) => toMillimetres(t, unit));
+    const values = Object.fromEntries((Object.keys(current.text) as F[]).map((f) => [f, current.exact[f] ?? toMillimetres(current.text[f], unit)])) as Record<F, number>;
     return { mm: values, missing: (Object.keys(values) as F[]).filter((k) => !Number.isFinite(values[k])) };
-  }, [current.text, unit]);
+  }, [current.text, current.exact, unit]);
   return {
     unit,
     text: current.text,
     /** The values in mm (NaN where a box is empty or not a number) and the boxes that are so. */
     mm,
     missing,
-    set: (field: F, value: string) => setState((s) => ({ ...s, text: { ...s.text, [field]: value } })),
+    set: (field: F, value: string) => setState((s) => ({ ...s, text: { ...s.text, [field]: value }, exact: { ...s.exact, [field]: undefined } })),
   };
 }
 
