@@ -98,7 +98,8 @@ function ProgressionCoolant({ control, abrasives, onReorder }: { control: Contro
   if (!final || steps.length === 0 || known.some((a) => !a)) return null;
   const asStep = (a: AbrasiveSummary, grit?: string): CoolantStep => ({ label: a.name, coolant: a.coolant as Coolant, micrometres: sizeOf(grit, a) });
   const plan = progressionCoolant(known.map((a, i) => asStep(a!, steps[i].gritGrade)), asStep(final));
-  const names = [...known.map((a, i) => `step ${i + 1} (${a!.name})`), `the final abrasive (${final.name})`];
+  // The steps are listed just above: their numbers say which, without their long names again.
+  const names = [...known.map((_, i) => `step ${i + 1}`), 'the final abrasive'];
   const changeText = (changes: CoolantChange[], order: number[]) =>
     changes.map((c) => `after ${names[order[c.afterStep]]}, from ${coolantWord(c.from)} to ${coolantWord(c.to)}`).join('; ');
   const fewer = plan.suggestedChanges.length < plan.changes.length;

@@ -4,7 +4,6 @@ import { FEW } from '@shared/workshop';
 import { paths } from '@/config/paths';
 import { useUser } from '@/lib/auth';
 import { formatDate, formatNumber } from '@/lib/format';
-import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
 import { usePriceReports, useReportPrice } from '../api/price-reports';
 import { EntryForm, num } from './entry-form';
 
@@ -33,36 +32,25 @@ export function PricesPaid({ abrasive }: { abrasive: string }) {
       {prices.isError ? <p className="text-danger">The prices could not be loaded.</p> : null}
       {prices.data && groups.length === 0 ? <p className="text-muted">No prices reported yet.</p> : null}
       {groups.length ? (
-        <TableFrame label="Median price paid by currency and condition">
-          <table className="w-full border-collapse">
-            <thead>
-              <tr>
-                <th scope="col" className={thClass}>Condition</th>
-                <th scope="col" className={`${thClass} text-right`}>Median price</th>
-                <th scope="col" className={thClass}>From</th>
-                <th scope="col" className={thClass}>Paid between</th>
-              </tr>
-            </thead>
-            <tbody>
-              {groups.map((g) => (
-                <tr key={`${g.currency}-${g.condition}`}>
-                  <td className={tdClass}>{g.condition === 'new' ? 'New' : 'Used'}</td>
-                  <td className={`${tdClass} text-right tabular-nums`}>
-                    {formatNumber(g.medianPrice, 2)}&nbsp;{g.currency}
-                  </td>
-                  <td className={tdClass}>n = {g.n}: {howMuch(g.n)}</td>
-                  <td className={tdClass}>{g.from === g.to ? formatDate(g.from) : `${formatDate(g.from)} – ${formatDate(g.to)}`}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </TableFrame>
+        <ul className="flex max-w-3xl flex-col gap-2" aria-label="Median price paid by currency and condition">
+          {groups.map((g) => (
+            <li key={`${g.currency}-${g.condition}`} className="rounded-md border border-rule bg-panel px-4 py-2">
+              <strong className="font-semibold">
+                {g.condition === 'new' ? 'New' : 'Used'}: {formatNumber(g.medianPrice, 2)}&nbsp;{g.currency}
+              </strong>{' '}
+              <span>median, n = {g.n} ({howMuch(g.n)})</span>
+              <span className="block text-sm text-muted">
+                Paid {g.from === g.to ? `on ${formatDate(g.from)}` : `between ${formatDate(g.from)} and ${formatDate(g.to)}`}
+              </span>
+            </li>
+          ))}
+        </ul>
       ) : null}
       <p className="text-sm text-muted">Each currency on its own, never converted. Prices change with time and place; no shop is named.</p>
       {user ? (
         <EntryForm
           title="Report a price you paid"
-          className="max-w-3xl sm:grid-cols-2"
+          className="w-full max-w-3xl sm:grid-cols-2"
           schema={priceReportInputSchema}
           send={report}
           fields={[

@@ -214,7 +214,7 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
           <EntryForm
             key={`${editing?.id ?? 'new'}-${unit}`}
             title={editing ? `Correct the entry of ${editing.measuredOn}` : 'Log a measurement'}
-            className="grid-cols-2"
+            className="sm:grid-cols-2"
             fields={[
               { key: 'measuredOn', label: 'Date', type: 'date' },
               { key: 'diameterMm', label: `Diameter (${unit})`, inputMode: 'decimal' },
@@ -235,7 +235,7 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
             <summary className="cursor-pointer font-medium">Retire this wheel</summary>
             <EntryForm
               title={`Retire ${wheel.name}`}
-              className="mt-2 grid-cols-2 border-0 p-0"
+              className="mt-2 border-0 p-0 sm:grid-cols-2"
               fields={[
                 { key: 'retiredOn', label: 'Retired on', type: 'date' },
                 { key: 'retiredAfterSharpenings', label: 'Sharpenings it gave', inputMode: 'numeric' },
