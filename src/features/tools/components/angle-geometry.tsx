@@ -6,7 +6,7 @@ import { formatDegrees } from '@/lib/format';
 import { formatLength, type LengthUnit } from '@/lib/lengths';
 import { LengthUnitPicker } from '@/components/ui/length-unit-picker';
 import { SafetyCautions } from './safety-cautions';
-import { DrawingFigure, NumberField, SetupSection, attempt, toNumber, useLengthBoxes } from './tool-inputs';
+import { DrawingFigure, NumberField, SetupSection, WantedAngleSection, attempt, lengthFact, toNumber, useLengthBoxes } from './tool-inputs';
 
 /** A change of angle for people: "+2.35°", or "no change" below what the display shows. */
 function changeText(deltaDeg: number): string {
@@ -96,49 +96,22 @@ export default function AngleGeometry() {
         }
       />
 
-      <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
-        <h2 id={`${id}-inverse`} className="text-2xl font-semibold">
-          Setting up for the angle you want
-        </h2>
-        <div className="grid gap-4 md:grid-cols-[16rem_1fr] md:items-start">
-          <NumberField
-            id={`${id}-wanted`}
-            label="Wanted angle per side"
-            unit="°"
-            value={wantedText}
-            onChange={setWantedText}
-            error={!Number.isFinite(wanted) ? 'Enter a number' : inverse?.gap.field === 'perSideDeg' ? inverse.gap.error : undefined}
+      <WantedAngleSection
+        id={id}
+        title="Setting up for the angle you want"
+        wantedText={wantedText}
+        onChange={setWantedText}
+        error={!Number.isFinite(wanted) ? 'Enter a number' : inverse?.gap.field === 'perSideDeg' ? inverse.gap.error : undefined}
+      >
+        {inverse ? (
+          <Facts
+            items={[
+              lengthFact('Gap for this angle', inverse.gap.value?.gapMm, inverse.gap.error, `keeping the projection of ${len(setup.values.projectionMm)}`, unit),
+              lengthFact('Or the projection for it', inverse.projection.value?.projectionMm, inverse.projection.error, `keeping the gap of ${len(setup.values.gapMm)}`, unit),
+            ]}
           />
-          {inverse && inverse.gap.field !== 'perSideDeg' ? (
-            <Facts
-              items={[
-                {
-                  term: 'Gap for this angle',
-                  value: inverse.gap.value ? (
-                    <span>
-                      <strong className="font-semibold">{len(inverse.gap.value.gapMm)}</strong>{' '}
-                      <span className="text-muted">keeping the projection of {len(setup.values.projectionMm)}</span>
-                    </span>
-                  ) : (
-                    <span className="text-danger">{inverse.gap.error}</span>
-                  ),
-                },
-                {
-                  term: 'Or the projection for it',
-                  value: inverse.projection.value ? (
-                    <span>
-                      <strong className="font-semibold">{len(inverse.projection.value.projectionMm)}</strong>{' '}
-                      <span className="text-muted">keeping the gap of {len(setup.values.gapMm)}</span>
-                    </span>
-                  ) : (
-                    <span className="text-danger">{inverse.projection.error}</span>
-                  ),
-                },
-              ]}
-            />
-          ) : null}
-        </div>
-      </section>
+        ) : null}
+      </WantedAngleSection>
 
       <section aria-labelledby={`${id}-wear`} className="flex flex-col gap-4">
         <h2 id={`${id}-wear`} className="text-2xl font-semibold">

@@ -7,7 +7,7 @@ import { formatDegrees } from '@/lib/format';
 import { formatLength, type LengthUnit } from '@/lib/lengths';
 import { LengthUnitPicker } from '@/components/ui/length-unit-picker';
 import { SafetyCautions } from './safety-cautions';
-import { DrawingFigure, NumberField, SetupSection, attempt, toNumber, useLengthBoxes } from './tool-inputs';
+import { DrawingFigure, SetupSection, WantedAngleSection, attempt, lengthFact, toNumber, useLengthBoxes } from './tool-inputs';
 
 type Field = keyof SideSetup;
 
@@ -73,38 +73,17 @@ export default function SideAngle() {
         }
       />
 
-      <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
-        <h2 id={`${id}-inverse`} className="text-2xl font-semibold">
-          The gap for the angle you want
-        </h2>
-        <div className="grid gap-4 md:grid-cols-[16rem_1fr] md:items-start">
-          <NumberField
-            id={`${id}-wanted`}
-            label="Wanted angle per side"
-            unit="°"
-            value={wantedText}
-            onChange={setWantedText}
-            error={!Number.isFinite(wanted) ? 'Enter a number' : gap?.field === 'perSideDeg' ? gap.error : undefined}
-          />
-          {gap && gap.field !== 'perSideDeg' ? (
-            <Facts
-              items={[
-                {
-                  term: 'Gap, bar to face',
-                  value: gap.value ? (
-                    <span>
-                      <strong className="font-semibold">{len(gap.value.gapMm)}</strong>{' '}
-                      <span className="text-muted">with the projection of {len(setup.values.projectionMm)}</span>
-                    </span>
-                  ) : (
-                    <span className="text-danger">{gap.error}</span>
-                  ),
-                },
-              ]}
-            />
-          ) : null}
-        </div>
-      </section>
+      <WantedAngleSection
+        id={id}
+        title="The gap for the angle you want"
+        wantedText={wantedText}
+        onChange={setWantedText}
+        error={!Number.isFinite(wanted) ? 'Enter a number' : gap?.field === 'perSideDeg' ? gap.error : undefined}
+      >
+        {gap ? (
+          <Facts items={[lengthFact('Gap, bar to face', gap.value?.gapMm, gap.error, `with the projection of ${len(setup.values.projectionMm)}`, unit)]} />
+        ) : null}
+      </WantedAngleSection>
 
       <SafetyCautions />
     </div>

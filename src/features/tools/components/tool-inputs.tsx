@@ -4,7 +4,7 @@ import type { EdgeAngle } from '@shared/geometry';
 import { Field, Input, controlA11y } from '@/components/ui/field';
 import { Facts } from '@/components/ui/facts';
 import { formatDegrees } from '@/lib/format';
-import { lengthsIn, lengthText, toMillimetres, useLengthUnit, type LengthUnit } from '@/lib/lengths';
+import { formatLength, lengthsIn, lengthText, toMillimetres, useLengthUnit, type LengthUnit } from '@/lib/lengths';
 
 export type Outcome<T> = { value: T; error?: undefined; field?: undefined } | { value?: undefined; error: string; field?: string };
 
@@ -158,6 +158,50 @@ export function SetupSection<F extends string>({
         </div>
       </div>
       {drawing}
+    </section>
+  );
+}
+
+/** A fact of the "angle you want" section: a length in the chosen unit and what it keeps, or why there is none. */
+export function lengthFact(term: string, mm: number | undefined, error: string | undefined, keeping: string, unit: LengthUnit) {
+  return {
+    term,
+    value:
+      mm !== undefined ? (
+        <span>
+          <strong className="font-semibold">{formatLength(mm, unit)}</strong> <span className="text-muted">{keeping}</span>
+        </span>
+      ) : (
+        <span className="text-danger">{error}</span>
+      ),
+  };
+}
+
+/** "The gap for the angle you want": the wanted angle's box beside what it takes (hidden while the angle itself is refused). */
+export function WantedAngleSection({
+  id,
+  title,
+  wantedText,
+  onChange,
+  error,
+  children,
+}: {
+  id: string;
+  title: string;
+  wantedText: string;
+  onChange: (v: string) => void;
+  error: string | undefined;
+  children: ReactNode;
+}) {
+  return (
+    <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
+      <h2 id={`${id}-inverse`} className="text-2xl font-semibold">
+        {title}
+      </h2>
+      <div className="grid gap-4 md:grid-cols-[16rem_1fr] md:items-start">
+        <NumberField id={`${id}-wanted`} label="Wanted angle per side" unit="°" value={wantedText} onChange={onChange} error={error} />
+        {error ? null : children}
+      </div>
     </section>
   );
 }
