@@ -1,8 +1,7 @@
 import { useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { BAR_MOUNTS, grinderInputSchema, jigInputSchema, setupInputSchema, workshopWheelInputSchema } from '@shared/schemas/workshop';
+import { BAR_MOUNTS, grinderInputSchema, jigInputSchema, retireWheelSchema, setupInputSchema, workshopWheelInputSchema } from '@shared/schemas/workshop';
 import { wheelMeasurementSchema, type WheelMeasurementInput } from '@shared/schemas/wheels';
-import { retireWheelSchema } from '@shared/schemas/workshop';
 import { FEW } from '@shared/workshop';
 import { COOLANTS, type Coolant } from '@shared/vocabulary';
 import { useSession } from '@/lib/auth';
