@@ -33,7 +33,7 @@ const sidewaysOverflow = () => page.evaluate(() => document.documentElement.scro
 async function screenshots(name: string) {
   for (const [w, h] of [[1280, 900], [390, 844]] as const) {
     await page.setViewportSize({ width: w, height: h });
-    await page.waitForTimeout(50); // let the layout settle before measuring (no assertion waits on time)
+    await page.evaluate(() => new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done)))); // the new width laid out
     expect(await sidewaysOverflow(), `${name} at ${w} px`).toBeLessThanOrEqual(0);
     await page.screenshot({ path: `/tmp/edgeledger-workshop-${name}-${w}.png`, fullPage: true });
   }
