@@ -141,6 +141,9 @@ export function replacementForecast(wheel: WorkshopWheel): { onDate: string; mmP
   return { onDate: new Date(Math.round(tMin) * DAY_MS).toISOString().slice(0, 10), mmPer30Days: -slope * 30, points: n };
 }
 
+/** Below this many, an estimate is said plainly to rest on little (as the decision view's "thin evidence"). */
+export const FEW = 5;
+
 /** What a wheel's sharpenings cost, and what the figure rests on. */
 export interface SharpeningCost {
   costPerSharpening: number;
@@ -208,10 +211,10 @@ function changesOf(steps: CoolantStep[]): CoolantChange[] {
  * the bands: within a band, the steps are grouped by coolant, and the first and last group are
  * chosen to meet the neighbouring bands.
  */
-export function coolantPlan(steps: CoolantStep[]): { changes: CoolantChange[]; suggested: CoolantStep[]; suggestedChanges: CoolantChange[] } {
+export function coolantPlan<T extends CoolantStep>(steps: T[]): { changes: CoolantChange[]; suggested: T[]; suggestedChanges: CoolantChange[] } {
   const bandOf = (s: CoolantStep) => (s.micrometres === null ? null : Math.floor(-Math.log2(s.micrometres / 1000)));
   // Runs of consecutive steps in one band (a step without a size is a band of its own).
-  const bands: CoolantStep[][] = [];
+  const bands: T[][] = [];
   for (const step of steps) {
     const last = bands[bands.length - 1];
     const b = bandOf(step);
@@ -219,7 +222,7 @@ export function coolantPlan(steps: CoolantStep[]): { changes: CoolantChange[]; s
     else bands.push([step]);
   }
   // For each band, each way to order it is: groups by coolant, with a chosen first and last coolant.
-  type State = { cost: number; order: CoolantStep[] };
+  type State = { cost: number; order: T[] };
   let best = new Map<Coolant | null, State>([[null, { cost: 0, order: [] }]]);
   for (const band of bands) {
     const kinds = [...new Set(band.map((s) => s.coolant))];
@@ -244,4 +247,40 @@ export function coolantPlan(steps: CoolantStep[]): { changes: CoolantChange[]; s
   // Keep the order as given unless another changes the trough fewer times.
   const suggested = fewest && fewest.cost < changes.length ? fewest.order : steps;
   return { changes, suggested, suggestedChanges: changesOf(suggested) };
+}
+
+/** Where a per-side angle taken from a saved setup on one wheel came from. */
+export interface AngleSource {
+  perSideDeg: number;
+  gapMm: number;
+  diameterMm: number;
+  barDiameterMm: number;
+  projectionMm: number;
+}
+
+/**
+ * The per-side angle a saved setup grinds on one wheel today, with the setting it rests on (the
+ * gap for the wheel's latest diameter on its grinder's bar); the reason instead where the setup
+ * cannot reach that wheel or the wheel is on no grinder.
+ */
+export function angleFromSavedSetup(
+  setup: { perSideDeg: number; projectionMm: number; settings: Omit<SetupSetting, 'setupId'>[] },
+  wheelId: number,
+): AngleSource | { reason: string } {
+  const setting = setup.settings.find((s) => s.wheelIds.includes(wheelId));
+  if (!setting) return { reason: 'this wheel is on no grinder, so it has no setting for this setup' };
+  if (setting.gapMm === null) return { reason: setting.reason ?? 'this setup cannot reach this wheel' };
+  return { perSideDeg: setup.perSideDeg, gapMm: setting.gapMm, diameterMm: setting.diameterMm, barDiameterMm: setting.barDiameterMm, projectionMm: setup.projectionMm };
+}
+
+/**
+ * The trough along a result's progression and its final abrasive: where the coolant must change,
+ * and an order of the progression's steps with the fewest changes that still goes coarse to fine
+ * (same-band steps may swap) and ends on the final abrasive. `order` holds the steps' indices.
+ */
+export function progressionCoolant(steps: CoolantStep[], final: CoolantStep) {
+  // The final abrasive is a band of its own (no size), so it stays last whatever its grit.
+  const indexed = [...steps, { ...final, micrometres: null }].map((step, index) => ({ ...step, index }));
+  const plan = coolantPlan(indexed);
+  return { changes: plan.changes, suggestedOrder: plan.suggested.slice(0, -1).map((s) => s.index), suggestedChanges: plan.suggestedChanges };
 }

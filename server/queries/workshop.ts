@@ -136,7 +136,7 @@ export async function readWorkshop(ownerId: number) {
       coolant: {
         order: kitSteps.map((s) => s.wheelId),
         changes: plan.changes,
-        suggestedOrder: (plan.suggested as typeof kitSteps).map((s) => s.wheelId),
+        suggestedOrder: plan.suggested.map((s) => s.wheelId),
         suggestedChanges: plan.suggestedChanges,
       },
     },

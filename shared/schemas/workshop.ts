@@ -66,7 +66,7 @@ export const workshopWheelInputSchema = z
   .refine((w) => (w.pricePaid === undefined) === (w.currency === undefined), { message: 'give a price with its currency', path: ['currency'] });
 export type WorkshopWheelInput = z.infer<typeof workshopWheelInputSchema>;
 
-/** PATCH /api/workshop/wheels/:id/retire */
+/** POST /api/workshop/wheels/:id/retire */
 export const retireWheelSchema = z.object({ retiredOn: isoDate, retiredAfterSharpenings: z.number().int().min(0).max(1_000_000) }).strict();
 export type RetireWheelInput = z.infer<typeof retireWheelSchema>;
 

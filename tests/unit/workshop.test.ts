@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { angleFromSetup } from '@shared/geometry';
-import { coolantPlan, replacementForecast, settingsToday, sharpeningCost, type CoolantStep, type WorkshopWheel } from '@shared/workshop';
+import { angleFromSavedSetup, coolantPlan, progressionCoolant, replacementForecast, settingsToday, sharpeningCost, type CoolantStep, type WorkshopWheel } from '@shared/workshop';
 
 const grinder = { id: 1, name: 'Wet grinder', spindleRpm: 90, barDiameterMm: 12 };
 const setup = { id: 7, name: 'Kitchen knife 15°', projectionMm: 140, perSideDeg: 15, offsetMm: 0 };
@@ -91,5 +91,80 @@ describe('coolant along a progression', () => {
     const plan = coolantPlan(steps);
     expect(plan.suggested).toEqual(steps);
     expect(plan.suggestedChanges).toHaveLength(2);
+  });
+});
+
+describe('the result form\'s angle from a saved setup on a wheel', () => {
+  it('gives the setup\'s angle with the gap for that wheel today, which grinds it (forward formula, shared/geometry.ts)', () => {
+    const worn = wheel(3, 250, [['2026-01-10', 246], ['2026-06-10', 240]]);
+    const settings = settingsToday([setup], [wheel(1, 250, [], false), worn], [grinder]).map(({ setupId: _s, ...rest }) => rest);
+    const source = angleFromSavedSetup({ ...setup, settings }, 3);
+    if (!('perSideDeg' in source)) throw new Error(source.reason);
+    expect(source).toMatchObject({ perSideDeg: 15, diameterMm: 240, barDiameterMm: 12, projectionMm: 140 });
+    // independent check: the gap put back through the forward model grinds 15° on the 240 mm wheel
+    expect(angleFromSetup({ wheelDiameterMm: 240, barDiameterMm: 12, gapMm: source.gapMm, projectionMm: 140 }).perSideDeg).toBeCloseTo(15, 9);
+  });
+
+  it('names why not: a wheel on no grinder, a setup that cannot reach', () => {
+    expect(angleFromSavedSetup({ ...setup, settings: [] }, 1)).toEqual({ reason: expect.stringMatching(/no grinder/) });
+    const short = { ...setup, projectionMm: 10, perSideDeg: 5 };
+    const settings = settingsToday([short], [wheel(5, 250)], [grinder]);
+    expect(angleFromSavedSetup({ ...short, settings }, 5)).toEqual({ reason: expect.stringMatching(/inside the wheel/) });
+  });
+});
+
+describe('coolant along a result\'s progression', () => {
+  const step = (label: string, coolant: CoolantStep['coolant'], micrometres: number | null): CoolantStep => ({ label, coolant, micrometres });
+
+  /** Independent solution: every order of the steps that keeps their φ bands coarse to fine, tried one by one. */
+  function fewestByBruteForce(steps: CoolantStep[], final: CoolantStep): number {
+    const band = (s: CoolantStep) => Math.floor(-Math.log2(s.micrometres! / 1000));
+    let best = Infinity;
+    const permute = (left: CoolantStep[], done: CoolantStep[]) => {
+      if (left.length === 0) {
+        const all = [...done, final];
+        if (done.some((s, i) => i > 0 && band(s) < band(done[i - 1]))) return;
+        best = Math.min(best, all.filter((s, i) => i > 0 && s.coolant !== all[i - 1].coolant).length);
+        return;
+      }
+      left.forEach((s, i) => permute([...left.slice(0, i), ...left.slice(i + 1)], [...done, s]));
+    };
+    permute(steps, []);
+    return best;
+  }
+
+  it('ends on the final abrasive, and finds as few changes as trying every order (brute force)', () => {
+    // bands: 98 µm → 3, 75 µm → 3, 17 µm → 5, 12 and 9 µm → 6 (⌊−log2(d / 1 mm)⌋, worked by hand)
+    const steps = [step('D107', 'water', 98), step('F220', 'water-inhibitor', 75), step('D15', 'water', 17), step('F800', 'water-inhibitor', 12), step('D9', 'water', 9)];
+    const final = step('strop', 'water-inhibitor', 9);
+    const plan = progressionCoolant(steps, final);
+    expect(plan.changes).toHaveLength(5);
+    expect(plan.suggestedOrder).toHaveLength(5);
+    expect(new Set(plan.suggestedOrder)).toEqual(new Set([0, 1, 2, 3, 4]));
+    expect(plan.suggestedChanges).toHaveLength(fewestByBruteForce(steps, final));
+    // by hand: F220 (inhibitor), D107 | D15 | D9, F800 (inhibitor) | strop (inhibitor): two changes
+    expect(plan.suggestedOrder).toEqual([1, 0, 2, 4, 3]);
+    expect(plan.suggestedChanges).toEqual([
+      { afterStep: 0, from: 'water-inhibitor', to: 'water' },
+      { afterStep: 3, from: 'water', to: 'water-inhibitor' },
+    ]);
+  });
+
+  it('agrees with the brute force on random progressions (mulberry32, 200 cases)', () => {
+    let seed = 7;
+    const random = () => {
+      seed = (seed + 0x6d2b79f5) | 0;
+      let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
+      t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+    };
+    const coolants: CoolantStep['coolant'][] = ['water', 'water-inhibitor', 'oil'];
+    for (let c = 0; c < 200; c++) {
+      const n = 1 + Math.floor(random() * 5);
+      const sizes = Array.from({ length: n }, () => 5 + random() * 120).sort((a, b) => b - a);
+      const steps = sizes.map((um, i) => step(`s${i}`, coolants[Math.floor(random() * 3)], um));
+      const final = step('final', coolants[Math.floor(random() * 3)], 5);
+      expect(progressionCoolant(steps, final).suggestedChanges.length).toBe(fewestByBruteForce(steps, final));
+    }
   });
 });

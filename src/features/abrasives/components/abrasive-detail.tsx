@@ -5,7 +5,7 @@ import { paths } from '@/config/paths';
 import { Caution } from '@/components/ui/caution';
 import { Facts } from '@/components/ui/facts';
 import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
-import { formatGrams, formatMicrometres, formatNumber, label } from '@/lib/format';
+import { formatGrams, formatMicrometres, label } from '@/lib/format';
 import { WikiToolbar } from '@/features/wiki/components/wiki-toolbar';
 import { ServerHtml } from '@/components/ui/server-html';
 import { wikiHtmlClasses } from '@/features/wiki/components/wiki-html';
@@ -13,6 +13,8 @@ import { PageReferences, SourceMark } from '@/features/wiki/components/page-refe
 import { MergedNote, useMergedRedirect } from '@/features/wiki/components/merged-redirect';
 import type { WikiParts } from '@/features/wiki/types';
 import type { AbrasiveDetail as Abrasive } from '@/types/api';
+import { PricesPaid } from '@/features/workshop/components/prices-paid';
+import { formatLength, useLengthUnit } from '@/lib/lengths';
 
 /** What the abrasive page adds: the wiki parts, a price note and its results grouped by steel. */
 type AbrasivePage = Omit<Abrasive, 'revision'> & WikiParts & {
@@ -35,6 +37,7 @@ export function AbrasiveDetail({ abrasive: data }: { abrasive: Abrasive }) {
   const isWheel = abrasive.form === 'wheel';
   const range = gritRangeText(abrasive.gritRange);
   const mergedFrom = useMergedRedirect('abrasives', abrasive.slug);
+  const [unit] = useLengthUnit();
   const mark = (field: string) => (abrasive.citations ? <SourceMark sources={abrasive.sources} field={field} citations={abrasive.citations} /> : null);
   return (
     <div className="flex flex-col gap-8">
@@ -62,7 +65,7 @@ export function AbrasiveDetail({ abrasive: data }: { abrasive: Abrasive }) {
             ? [
                 {
                   term: 'Size',
-                  value: `Ø ${formatNumber(abrasive.wheelDiameterMm, 0)} mm${abrasive.widthMm ? ` × ${formatNumber(abrasive.widthMm, 0)} mm wide` : ''}`,
+                  value: `Ø ${formatLength(abrasive.wheelDiameterMm, unit, false, unit === 'in' ? 2 : 0)}${abrasive.widthMm ? ` × ${formatLength(abrasive.widthMm, unit, false, unit === 'in' ? 2 : 0)} wide` : ''}`,
                 },
               ]
             : []),
@@ -144,6 +147,8 @@ export function AbrasiveDetail({ abrasive: data }: { abrasive: Abrasive }) {
           </TableFrame>
         </section>
       ) : null}
+
+      <PricesPaid abrasive={abrasive.slug} />
 
       {abrasive.citations ? <PageReferences citations={abrasive.citations} /> : null}
     </div>

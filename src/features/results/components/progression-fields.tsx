@@ -1,5 +1,8 @@
-import { useFieldArray, type Control, type FieldErrors, type UseFormRegister } from 'react-hook-form';
+import { useFieldArray, useWatch, type Control, type FieldErrors, type UseFormRegister } from 'react-hook-form';
 import { PROGRESSION_MAX } from '@shared/progression';
+import { parseGrit } from '@shared/grit';
+import { COOLANTS, type Coolant } from '@shared/vocabulary';
+import { progressionCoolant, type CoolantChange, type CoolantStep } from '@shared/workshop';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select, controlA11y } from '@/components/ui/field';
 import type { AbrasiveSummary } from '@/types/api';
@@ -12,7 +15,7 @@ import type { ResultFormValues } from './result-form-values';
  * when empty), so is its angle.
  */
 export function ProgressionFields({ control, register, errors, abrasives }: { control: Control<ResultFormValues, unknown, ResultInput>; register: UseFormRegister<ResultFormValues>; errors: FieldErrors<ResultFormValues>; abrasives: AbrasiveSummary[] }) {
-  const { fields, append, remove, move } = useFieldArray({ control, name: 'progression' });
+  const { fields, append, remove, move, replace } = useFieldArray({ control, name: 'progression' });
   return (
     <fieldset className="rounded-md border border-rule bg-panel px-4 pb-4 pt-2">
       <legend className="px-1 font-serif text-lg font-semibold">
@@ -62,6 +65,68 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
           Add a step{fields.length >= PROGRESSION_MAX ? ` (at most ${PROGRESSION_MAX})` : ''}
         </Button>
       </div>
+      <ProgressionCoolant control={control} abrasives={abrasives} onReorder={replace} />
     </fieldset>
+  );
+}
+
+const coolantWord = (c: Coolant) => (COOLANTS[c] ?? c).toLowerCase();
+
+/** A step's size for the coolant plan: its own grit when it parses, else its abrasive's. */
+function sizeOf(gritGrade: string | undefined, abrasive: AbrasiveSummary): number | null {
+  if (gritGrade?.trim()) {
+    try {
+      return parseGrit(gritGrade).micrometres;
+    } catch {
+      return abrasive.gritUm;
+    }
+  }
+  return abrasive.gritUm;
+}
+
+/**
+ * Where the trough must change along the progression and its final abrasive (plain water, water
+ * with inhibitor, …, as each abrasive's page says), and, when another order of the steps changes it
+ * less often while still going coarse to fine, that order with a button to use it.
+ */
+function ProgressionCoolant({ control, abrasives, onReorder }: { control: Control<ResultFormValues, unknown, ResultInput>; abrasives: AbrasiveSummary[]; onReorder: (steps: ResultFormValues['progression']) => void }) {
+  const [progression, finalSlug] = useWatch({ control, name: ['progression', 'abrasive'] });
+  const bySlug = new Map(abrasives.map((a) => [a.slug, a]));
+  const steps = progression ?? [];
+  const known = steps.map((s) => bySlug.get(s.abrasive));
+  const final = bySlug.get(finalSlug);
+  if (!final || steps.length === 0 || known.some((a) => !a)) return null;
+  const asStep = (a: AbrasiveSummary, grit?: string): CoolantStep => ({ label: a.name, coolant: a.coolant as Coolant, micrometres: sizeOf(grit, a) });
+  const plan = progressionCoolant(known.map((a, i) => asStep(a!, steps[i].gritGrade)), asStep(final));
+  // The steps are listed just above: their numbers say which, without their long names again.
+  const names = [...known.map((_, i) => `step ${i + 1}`), 'the final abrasive'];
+  const changeText = (changes: CoolantChange[], order: number[]) =>
+    changes.map((c) => `after ${names[order[c.afterStep]]}, from ${coolantWord(c.from)} to ${coolantWord(c.to)}`).join('; ');
+  const fewer = plan.suggestedChanges.length < plan.changes.length;
+  const identity = steps.map((_, i) => i);
+  return (
+    <div className="mt-4 rounded-md border border-rule p-3 text-sm" aria-live="polite" aria-label="Coolant along the progression">
+      <p className="font-medium">Coolant in the trough</p>
+      <p>
+        {plan.changes.length === 0
+          ? `One coolant throughout: ${coolantWord(final.coolant as Coolant)}.`
+          : `Change it ${plan.changes.length === 1 ? 'once' : `${plan.changes.length} times`}: ${changeText(plan.changes, [...identity, steps.length])}.`}
+      </p>
+      {fewer ? (
+        <div className="mt-2 flex flex-wrap items-center gap-3">
+          <p>
+            Fewer changes, still coarse to fine: {plan.suggestedOrder.map((i) => `step ${i + 1}`).join(', ')}, then the final abrasive (
+            {plan.suggestedChanges.length === 0 ? 'no change' : changeText(plan.suggestedChanges, [...plan.suggestedOrder, steps.length])}).
+          </p>
+          <Button size="sm" variant="secondary" onClick={() => onReorder(plan.suggestedOrder.map((i) => steps[i]) as ResultFormValues['progression'])}>
+            Use this order
+          </Button>
+        </div>
+      ) : null}
+      <p className="mt-2 text-muted">
+        Empty and rinse the trough between coolants. Read the safety data sheet of any additive, follow the wheel and machine makers’ instructions
+        on which coolant each wheel may run in, and your local regulations on disposing of used coolant.
+      </p>
+    </div>
   );
 }

@@ -14,6 +14,7 @@ import { formatDegrees, formatGrams, formatGritBand, formatMicrometres, formatNu
 import { Button } from '@/components/ui/button';
 import { controlA11y, Field, Input, Select, sentence } from '@/components/ui/field';
 import { describeError, Loading } from '@/components/ui/states';
+import { AngleFromWorkshop } from '@/features/workshop/components/angle-from-workshop';
 import type { AbrasiveSummary, MethodSummary, Result, ResultEdit, SteelSummary } from '@/types/api';
 import type { ResultStatus } from '@shared/schemas/result';
 import { resultInputSchema, useCreateResult, type ResultInput } from '../api/create-result';
@@ -142,6 +143,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
     control,
     handleSubmit,
     setError,
+    setValue,
     formState: { errors, isSubmitted, isValid },
   } = useForm<ResultFormValues, unknown, ResultInput>({
     mode: 'onChange',
@@ -414,6 +416,16 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
           </label>
         </div>
         <div className="mt-4 grid gap-4 sm:grid-cols-2">
+          <AngleFromWorkshop
+            currentDeg={values.edgeAngle?.perSideDeg}
+            onPick={(source, wheel) => {
+              const opts = { shouldValidate: true, shouldDirty: true };
+              setValue('angleMode', 'perSide', opts);
+              setValue('edgeAngle.perSideDeg', source.perSideDeg, opts);
+              // The wheel is the final abrasive unless the person chose another already.
+              if (!values.abrasive && wheel.abrasive && abrasives.some((a) => a.slug === wheel.abrasive!.slug)) setValue('abrasive', wheel.abrasive.slug, opts);
+            }}
+          />
           {angleMode === 'perSide' ? (
             <Field
               id="result-per-side"

@@ -2,9 +2,11 @@ import { useId, useMemo, useState } from 'react';
 import { angleFromSetup, gapForAngle, projectionForAngle, wearDrift, type WheelSetup } from '@shared/geometry';
 import { PageTitle } from '@/components/ui/page-title';
 import { Facts } from '@/components/ui/facts';
-import { formatDegrees, formatNumber } from '@/lib/format';
+import { formatDegrees } from '@/lib/format';
+import { formatLength, type LengthUnit } from '@/lib/lengths';
+import { LengthUnitPicker } from '@/components/ui/length-unit-picker';
 import { SafetyCautions } from './safety-cautions';
-import { NumberField, SetupSection, attempt, mm, toNumber } from './tool-inputs';
+import { DrawingFigure, NumberField, SetupSection, WantedAngleSection, attempt, lengthFact, toNumber, useLengthBoxes } from './tool-inputs';
 
 /** A change of angle for people: "+2.35°", or "no change" below what the display shows. */
 function changeText(deltaDeg: number): string {
@@ -13,9 +15,9 @@ function changeText(deltaDeg: number): string {
 }
 
 /** Which way to move the bar to restore the angle, from the gap now less the gap wanted (mm). */
-function moveText(excessMm: number): string {
+function moveText(excessMm: number, unit: LengthUnit): string {
   if (Math.abs(excessMm) < 0.05) return 'the bar is where it should be';
-  return `move the bar ${mm(Math.abs(excessMm))} ${excessMm > 0 ? 'closer to' : 'away from'} the wheel`;
+  return `move the bar ${formatLength(Math.abs(excessMm), unit)} ${excessMm > 0 ? 'closer to' : 'away from'} the wheel`;
 }
 
 type SetupField = keyof WheelSetup;
@@ -35,41 +37,32 @@ const SETUP_LABELS: Record<SetupField, { label: string; hint: string }> = {
 export default function AngleGeometry() {
   const id = useId();
   // A 250 mm wheel with a 12 mm bar: about 15° per side (worked with the formulas on this page).
-  const [setupText, setSetupText] = useState<Record<SetupField, string>>({
-    wheelDiameterMm: '250',
-    barDiameterMm: '12',
-    gapMm: '80',
-    projectionMm: '140',
-    offsetMm: '0',
-  });
+  const boxes = useLengthBoxes<SetupField>({ wheelDiameterMm: 250, barDiameterMm: 12, gapMm: 80, projectionMm: 140, offsetMm: 0 });
+  const { unit } = boxes;
+  const len = (mm: number) => formatLength(mm, unit);
   const [wantedText, setWantedText] = useState('15');
-  const [currentText, setCurrentText] = useState('225');
+  const now = useLengthBoxes({ currentDiameterMm: 225 });
 
-  const setup = useMemo(() => {
-    const values = Object.fromEntries(Object.entries(setupText).map(([k, v]) => [k, toNumber(v)])) as unknown as WheelSetup;
-    const missing = (Object.keys(setupText) as SetupField[]).filter((k) => !Number.isFinite(values[k]));
-    return { values, missing };
-  }, [setupText]);
-
+  const setup = useMemo(() => ({ values: boxes.mm as WheelSetup, missing: boxes.missing }), [boxes.mm, boxes.missing]);
   const setupReady = setup.missing.length === 0;
-  const angle = useMemo(() => (setupReady ? attempt(() => angleFromSetup(setup.values)) : null), [setupReady, setup.values]);
+  const angle = useMemo(() => (setupReady ? attempt(() => angleFromSetup(setup.values), unit) : null), [setupReady, setup.values, unit]);
 
   const wanted = toNumber(wantedText);
   const inverse = useMemo(() => {
     if (!setupReady || !Number.isFinite(wanted)) return null;
     const { wheelDiameterMm, barDiameterMm, gapMm, projectionMm, offsetMm } = setup.values;
     return {
-      gap: attempt(() => gapForAngle({ wheelDiameterMm, barDiameterMm, projectionMm, perSideDeg: wanted, offsetMm })),
-      projection: attempt(() => projectionForAngle({ wheelDiameterMm, barDiameterMm, gapMm, perSideDeg: wanted, offsetMm })),
+      gap: attempt(() => gapForAngle({ wheelDiameterMm, barDiameterMm, projectionMm, perSideDeg: wanted, offsetMm }), unit),
+      projection: attempt(() => projectionForAngle({ wheelDiameterMm, barDiameterMm, gapMm, perSideDeg: wanted, offsetMm }), unit),
     };
-  }, [setupReady, setup.values, wanted]);
+  }, [setupReady, setup.values, wanted, unit]);
 
-  const current = toNumber(currentText);
+  const current = now.mm.currentDiameterMm;
   const drift = useMemo(() => {
     if (!setupReady || !Number.isFinite(current)) return null;
     const { wheelDiameterMm, barDiameterMm, gapMm, projectionMm, offsetMm } = setup.values;
-    return attempt(() => wearDrift({ originalDiameterMm: wheelDiameterMm, currentDiameterMm: current, barDiameterMm, gapMm, projectionMm, offsetMm }));
-  }, [setupReady, setup.values, current]);
+    return attempt(() => wearDrift({ originalDiameterMm: wheelDiameterMm, currentDiameterMm: current, barDiameterMm, gapMm, projectionMm, offsetMm }), unit);
+  }, [setupReady, setup.values, current, unit]);
 
   const setupError = (field: SetupField): string | undefined => {
     if (setup.missing.includes(field)) return 'Enter a number';
@@ -86,68 +79,39 @@ export default function AngleGeometry() {
         Angle geometry
       </PageTitle>
 
+      <LengthUnitPicker />
+
       <SetupSection
         id={id}
+        unit={unit}
         labels={SETUP_LABELS}
-        text={setupText}
-        onChange={(field, v) => setSetupText((s) => ({ ...s, [field]: v }))}
+        text={boxes.text}
+        onChange={boxes.set}
         errorFor={setupError}
         angle={angle?.value}
         drawing={
-        <figure className="min-w-0 rounded-md border border-rule bg-panel p-3">
-          {angle?.value ? (
-            <SetupDrawing setup={setup.values} perSideDeg={angle.value.perSideDeg} />
-          ) : (
-            <p className="p-6 text-muted">The drawing appears when the setup is one the blade can reach.</p>
-          )}
-          <figcaption className="mt-2 text-sm text-muted">Drawn to scale from your numbers. The wheel’s axis is O, the bar’s axis S.</figcaption>
-        </figure>
+          <DrawingFigure waiting="The drawing appears when the setup is one the blade can reach." caption="Drawn to scale from your numbers. The wheel’s axis is O, the bar’s axis S.">
+            {angle?.value ? <SetupDrawing setup={setup.values} perSideDeg={angle.value.perSideDeg} lengthUnit={unit} /> : null}
+          </DrawingFigure>
         }
       />
 
-      <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
-        <h2 id={`${id}-inverse`} className="text-2xl font-semibold">
-          Setting up for the angle you want
-        </h2>
-        <div className="grid gap-4 md:grid-cols-[16rem_1fr] md:items-start">
-          <NumberField
-            id={`${id}-wanted`}
-            label="Wanted angle per side"
-            unit="°"
-            value={wantedText}
-            onChange={setWantedText}
-            error={!Number.isFinite(wanted) ? 'Enter a number' : inverse?.gap.field === 'perSideDeg' ? inverse.gap.error : undefined}
+      <WantedAngleSection
+        id={id}
+        title="Setting up for the angle you want"
+        wantedText={wantedText}
+        onChange={setWantedText}
+        error={!Number.isFinite(wanted) ? 'Enter a number' : inverse?.gap.field === 'perSideDeg' ? inverse.gap.error : undefined}
+      >
+        {inverse ? (
+          <Facts
+            items={[
+              lengthFact('Gap for this angle', inverse.gap.value?.gapMm, inverse.gap.error, `keeping the projection of ${len(setup.values.projectionMm)}`, unit),
+              lengthFact('Or the projection for it', inverse.projection.value?.projectionMm, inverse.projection.error, `keeping the gap of ${len(setup.values.gapMm)}`, unit),
+            ]}
           />
-          {inverse && inverse.gap.field !== 'perSideDeg' ? (
-            <Facts
-              items={[
-                {
-                  term: 'Gap for this angle',
-                  value: inverse.gap.value ? (
-                    <span>
-                      <strong className="font-semibold">{mm(inverse.gap.value.gapMm)}</strong>{' '}
-                      <span className="text-muted">keeping the projection of {mm(setup.values.projectionMm)}</span>
-                    </span>
-                  ) : (
-                    <span className="text-danger">{inverse.gap.error}</span>
-                  ),
-                },
-                {
-                  term: 'Or the projection for it',
-                  value: inverse.projection.value ? (
-                    <span>
-                      <strong className="font-semibold">{mm(inverse.projection.value.projectionMm)}</strong>{' '}
-                      <span className="text-muted">keeping the gap of {mm(setup.values.gapMm)}</span>
-                    </span>
-                  ) : (
-                    <span className="text-danger">{inverse.projection.error}</span>
-                  ),
-                },
-              ]}
-            />
-          ) : null}
-        </div>
-      </section>
+        ) : null}
+      </WantedAngleSection>
 
       <section aria-labelledby={`${id}-wear`} className="flex flex-col gap-4">
         <h2 id={`${id}-wear`} className="text-2xl font-semibold">
@@ -162,10 +126,10 @@ export default function AngleGeometry() {
           <NumberField
             id={`${id}-current`}
             label="Wheel diameter now"
-            unit="mm"
+            unit={unit}
             hint="Smaller than the diameter above."
-            value={currentText}
-            onChange={setCurrentText}
+            value={now.text.currentDiameterMm}
+            onChange={(v) => now.set('currentDiameterMm', v)}
             error={!Number.isFinite(current) ? 'Enter a number' : drift?.field === 'currentDiameterMm' ? drift.error : undefined}
           />
           <div aria-live="polite">
@@ -182,13 +146,13 @@ export default function AngleGeometry() {
                       </span>
                     ),
                   },
-                  { term: 'Gap to the rim now', value: mm(drift.value.currentGapMm) },
+                  { term: 'Gap to the rim now', value: len(drift.value.currentGapMm) },
                   {
                     term: 'Gap that restores the angle',
                     value: (
                       <span>
-                        <strong className="font-semibold">{mm(drift.value.restoringGapMm)}</strong>{' '}
-                        <span className="text-muted">({moveText(drift.value.currentGapMm - drift.value.restoringGapMm)})</span>
+                        <strong className="font-semibold">{len(drift.value.restoringGapMm)}</strong>{' '}
+                        <span className="text-muted">({moveText(drift.value.currentGapMm - drift.value.restoringGapMm, unit)})</span>
                       </span>
                     ),
                   },
@@ -214,7 +178,7 @@ export default function AngleGeometry() {
  * The setup drawn to scale: wheel, bar, blade from behind the bar to the rim, the tangent at the
  * contact point and the angle between them. Coordinates in mm with y up, turned into SVG's y down.
  */
-function SetupDrawing({ setup, perSideDeg }: { setup: WheelSetup; perSideDeg: number }) {
+function SetupDrawing({ setup, perSideDeg, lengthUnit }: { setup: WheelSetup; perSideDeg: number; lengthUnit: LengthUnit }) {
   const titleId = useId();
   const R = setup.wheelDiameterMm / 2;
   const r = setup.barDiameterMm / 2;
@@ -279,7 +243,7 @@ function SetupDrawing({ setup, perSideDeg }: { setup: WheelSetup; perSideDeg: nu
       aria-labelledby={titleId}
     >
       <title id={titleId}>
-        {`Wheel of ${formatNumber(setup.wheelDiameterMm)} mm, bar of ${formatNumber(setup.barDiameterMm)} mm at a gap of ${formatNumber(setup.gapMm)} mm, blade projecting ${formatNumber(L)} mm${e ? ` with its plane ${formatNumber(e)} mm off the bar’s axis` : ''}: ${formatDegrees(perSideDeg, 1)} per side.`}
+        {`Wheel of ${formatLength(setup.wheelDiameterMm, lengthUnit)}, bar of ${formatLength(setup.barDiameterMm, lengthUnit)} at a gap of ${formatLength(setup.gapMm, lengthUnit)}, blade projecting ${formatLength(L, lengthUnit)}${e ? ` with its plane ${formatLength(e, lengthUnit)} off the bar’s axis` : ''}: ${formatDegrees(perSideDeg, 1)} per side.`}
       </title>
       <circle cx={0} cy={0} r={R} className="fill-paper stroke-ink" strokeWidth={unit * 1.2} />
       <circle cx={0} cy={0} r={unit * 2} className="fill-ink" />

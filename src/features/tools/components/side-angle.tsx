@@ -3,9 +3,11 @@ import { sideAngleFromSetup, sideGapForAngle, type SideSetup } from '@shared/geo
 import { PageTitle } from '@/components/ui/page-title';
 import { Caution } from '@/components/ui/caution';
 import { Facts } from '@/components/ui/facts';
-import { formatDegrees, formatNumber } from '@/lib/format';
+import { formatDegrees } from '@/lib/format';
+import { formatLength, type LengthUnit } from '@/lib/lengths';
+import { LengthUnitPicker } from '@/components/ui/length-unit-picker';
 import { SafetyCautions } from './safety-cautions';
-import { NumberField, SetupSection, attempt, mm, toNumber } from './tool-inputs';
+import { DrawingFigure, SetupSection, WantedAngleSection, attempt, lengthFact, toNumber, useLengthBoxes } from './tool-inputs';
 
 type Field = keyof SideSetup;
 
@@ -23,22 +25,20 @@ const LABELS: Record<Field, { label: string; hint: string }> = {
 export default function SideAngle() {
   const id = useId();
   // A 12 mm bar 24 mm from the face with a 120 mm projection: asin(30 / 120) = 14.48° per side.
-  const [text, setText] = useState<Record<Field, string>>({ barDiameterMm: '12', gapMm: '24', projectionMm: '120', offsetMm: '0' });
+  const boxes = useLengthBoxes<Field>({ barDiameterMm: 12, gapMm: 24, projectionMm: 120, offsetMm: 0 });
+  const { unit } = boxes;
+  const len = (mm: number) => formatLength(mm, unit);
   const [wantedText, setWantedText] = useState('15');
 
-  const setup = useMemo(() => {
-    const values = Object.fromEntries(Object.entries(text).map(([k, v]) => [k, toNumber(v)])) as unknown as SideSetup;
-    const missing = (Object.keys(text) as Field[]).filter((k) => !Number.isFinite(values[k]));
-    return { values, missing };
-  }, [text]);
+  const setup = useMemo(() => ({ values: boxes.mm as SideSetup, missing: boxes.missing }), [boxes.mm, boxes.missing]);
   const ready = setup.missing.length === 0;
-  const angle = useMemo(() => (ready ? attempt(() => sideAngleFromSetup(setup.values)) : null), [ready, setup.values]);
+  const angle = useMemo(() => (ready ? attempt(() => sideAngleFromSetup(setup.values), unit) : null), [ready, setup.values, unit]);
   const wanted = toNumber(wantedText);
   const gap = useMemo(() => {
     if (!ready || !Number.isFinite(wanted)) return null;
     const { barDiameterMm, projectionMm, offsetMm } = setup.values;
-    return attempt(() => sideGapForAngle({ barDiameterMm, projectionMm, offsetMm, perSideDeg: wanted }));
-  }, [ready, setup.values, wanted]);
+    return attempt(() => sideGapForAngle({ barDiameterMm, projectionMm, offsetMm, perSideDeg: wanted }), unit);
+  }, [ready, setup.values, wanted, unit]);
 
   const errorFor = (field: Field) => (setup.missing.includes(field) ? 'Enter a number' : angle?.field === field ? angle.error : undefined);
 
@@ -56,57 +56,34 @@ export default function SideAngle() {
         never be loaded sideways. Follow the machine’s and the wheel’s instructions and your local regulations.
       </Caution>
 
+      <LengthUnitPicker />
+
       <SetupSection
         id={id}
+        unit={unit}
         labels={LABELS}
-        text={text}
-        onChange={(field, v) => setText((s) => ({ ...s, [field]: v }))}
+        text={boxes.text}
+        onChange={boxes.set}
         errorFor={errorFor}
         angle={angle?.value}
         drawing={
-        <figure className="min-w-0 rounded-md border border-rule bg-panel p-3">
-          {angle?.value ? (
-            <SideDrawing setup={setup.values} perSideDeg={angle.value.perSideDeg} />
-          ) : (
-            <p className="p-6 text-muted">The drawing appears when the edge can reach the wheel’s face.</p>
-          )}
-          <figcaption className="mt-2 text-sm text-muted">Seen from above, to scale: the wheel’s face on the left, the bar’s axis S.</figcaption>
-        </figure>
+          <DrawingFigure waiting="The drawing appears when the edge can reach the wheel’s face." caption="Seen from above, to scale: the wheel’s face on the left, the bar’s axis S.">
+            {angle?.value ? <SideDrawing setup={setup.values} perSideDeg={angle.value.perSideDeg} lengthUnit={unit} /> : null}
+          </DrawingFigure>
         }
       />
 
-      <section aria-labelledby={`${id}-inverse`} className="flex flex-col gap-4">
-        <h2 id={`${id}-inverse`} className="text-2xl font-semibold">
-          The gap for the angle you want
-        </h2>
-        <div className="grid gap-4 md:grid-cols-[16rem_1fr] md:items-start">
-          <NumberField
-            id={`${id}-wanted`}
-            label="Wanted angle per side"
-            unit="°"
-            value={wantedText}
-            onChange={setWantedText}
-            error={!Number.isFinite(wanted) ? 'Enter a number' : gap?.field === 'perSideDeg' ? gap.error : undefined}
-          />
-          {gap && gap.field !== 'perSideDeg' ? (
-            <Facts
-              items={[
-                {
-                  term: 'Gap, bar to face',
-                  value: gap.value ? (
-                    <span>
-                      <strong className="font-semibold">{mm(gap.value.gapMm)}</strong>{' '}
-                      <span className="text-muted">with the projection of {mm(setup.values.projectionMm)}</span>
-                    </span>
-                  ) : (
-                    <span className="text-danger">{gap.error}</span>
-                  ),
-                },
-              ]}
-            />
-          ) : null}
-        </div>
-      </section>
+      <WantedAngleSection
+        id={id}
+        title="The gap for the angle you want"
+        wantedText={wantedText}
+        onChange={setWantedText}
+        error={!Number.isFinite(wanted) ? 'Enter a number' : gap?.field === 'perSideDeg' ? gap.error : undefined}
+      >
+        {gap ? (
+          <Facts items={[lengthFact('Gap, bar to face', gap.value?.gapMm, gap.error, `with the projection of ${len(setup.values.projectionMm)}`, unit)]} />
+        ) : null}
+      </WantedAngleSection>
 
       <SafetyCautions />
     </div>
@@ -117,7 +94,7 @@ export default function SideAngle() {
  * The side setup from above, to scale: the face as a vertical line at x = 0, the bar's axis at
  * x = gap + bar radius, the blade from the edge on the face out past the bar. Coordinates in mm.
  */
-function SideDrawing({ setup, perSideDeg }: { setup: SideSetup; perSideDeg: number }) {
+function SideDrawing({ setup, perSideDeg, lengthUnit }: { setup: SideSetup; perSideDeg: number; lengthUnit: LengthUnit }) {
   const titleId = useId();
   const r = setup.barDiameterMm / 2;
   const L = setup.projectionMm;
@@ -138,7 +115,7 @@ function SideDrawing({ setup, perSideDeg }: { setup: SideSetup; perSideDeg: numb
   return (
     <svg viewBox={`${minX} ${-maxY} ${maxX - minX} ${maxY - minY}`} className="mx-auto h-auto max-h-[26rem] w-full" role="img" aria-labelledby={titleId}>
       <title id={titleId}>
-        {`Bar of ${formatNumber(setup.barDiameterMm)} mm at ${formatNumber(setup.gapMm)} mm from the wheel’s face, blade projecting ${formatNumber(L)} mm: ${formatDegrees(perSideDeg, 1)} per side.`}
+        {`Bar of ${formatLength(setup.barDiameterMm, lengthUnit)} at ${formatLength(setup.gapMm, lengthUnit)} from the wheel’s face, blade projecting ${formatLength(L, lengthUnit)}: ${formatDegrees(perSideDeg, 1)} per side.`}
       </title>
       <rect x={minX} y={-maxY} width={-minX} height={maxY - minY} className="fill-rule" />
       <line x1={0} y1={-maxY} x2={0} y2={-minY} className="stroke-ink" strokeWidth={unit * 1.5} />

@@ -29,6 +29,7 @@ export interface WorkshopWheelView {
   pricePaid: number | null;
   currency: string | null;
   retiredOn: string | null;
+  retiredAfterSharpenings: number | null;
   measurements: { id: number; measuredOn: string; diameterMm: number; dressed: boolean; sharpenings: number }[];
   forecast: { onDate: string; mmPer30Days: number; points: number } | null;
   cost: SharpeningCost | null;

@@ -1,33 +1,29 @@
-import { useState, type FormEvent, type ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { BAR_MOUNTS, grinderInputSchema, jigInputSchema, setupInputSchema, workshopWheelInputSchema } from '@shared/schemas/workshop';
-import { wheelMeasurementSchema } from '@shared/schemas/wheels';
+import { BAR_MOUNTS, grinderInputSchema, jigInputSchema, retireWheelSchema, setupInputSchema, workshopWheelInputSchema } from '@shared/schemas/workshop';
+import { wheelMeasurementSchema, type WheelMeasurementInput } from '@shared/schemas/wheels';
+import { FEW } from '@shared/workshop';
 import { COOLANTS, type Coolant } from '@shared/vocabulary';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/config/paths';
 import { formatDate, formatDegrees, formatNumber } from '@/lib/format';
 import { PageTitle } from '@/components/ui/page-title';
-import { Button, buttonClasses } from '@/components/ui/button';
+import { buttonClasses } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
-import { Field, Input, Select } from '@/components/ui/field';
 import { describeError, Empty, ErrorState, Loading } from '@/components/ui/states';
+import { LengthUnitPicker } from '@/components/ui/length-unit-picker';
 import { SafetyCautions } from '@/features/tools/components/safety-cautions';
 import { useAbrasives } from '@/features/abrasives/api/get-abrasives';
 import { useWorkshop, type Workshop, type WorkshopWheelView } from '../api/get-workshop';
 import { useAddToWorkshop } from '../api/add-to-workshop';
 import { useMeasurement } from '../api/measurements';
-import { formatLength, toMillimetres, useLengthUnit, type LengthUnit } from '../lengths';
+import { useRetireWheel } from '../api/retire-wheel';
+import { formatLength, lengthsIn, lengthText, toMillimetres, useLengthUnit, type LengthUnit } from '@/lib/lengths';
+import { EntryForm, num, type EntryField } from './entry-form';
 
 const today = () => new Date().toISOString().slice(0, 10);
 const money = (amount: number, currency: string, digits = 2) => `${formatNumber(amount, digits)}\u00a0${currency}`;
 const coolantName = (c: string | null) => (c ? (COOLANTS[c as Coolant] ?? c) : '—');
-
-/** First message per field of a zod result. */
-function issuesOf(result: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const issue of result.error?.issues ?? []) out[String(issue.path[0] ?? '')] ??= issue.message;
-  return out;
-}
 
 function Section({ id, title, children }: { id: string; title: string; children: ReactNode }) {
   return (
@@ -40,65 +36,12 @@ function Section({ id, title, children }: { id: string; title: string; children:
   );
 }
 
-/** A small form: text boxes and selects, checked with the server's schema before sending. */
-function AddForm({
-  title,
-  fields,
-  build,
-  schema,
-  kind,
-}: {
-  title: string;
-  fields: { key: string; label: string; options?: Record<string, string>; initial?: string; type?: string }[];
-  build: (v: Record<string, string>) => Record<string, unknown>;
-  schema: { safeParse: (x: unknown) => { success: boolean; data?: unknown; error?: { issues: { path: PropertyKey[]; message: string }[] } } };
-  kind: 'grinders' | 'jigs' | 'setups' | 'wheels';
-}) {
-  const add = useAddToWorkshop(kind);
-  const initial = Object.fromEntries(fields.map((f) => [f.key, f.initial ?? '']));
-  const [v, setV] = useState<Record<string, string>>(initial);
-  const [tried, setTried] = useState(false);
-  const checked = schema.safeParse(build(v));
-  const errors = tried ? issuesOf(checked) : {};
-  const submit = (e: FormEvent) => {
-    e.preventDefault();
-    setTried(true);
-    if (checked.success) add.mutate(checked.data as never, { onSuccess: () => { setV(initial); setTried(false); } });
-  };
-  const slug = title.toLowerCase().replace(/[^a-z]+/g, '-');
-  return (
-    <form onSubmit={submit} noValidate className="grid min-w-0 content-start gap-3 self-start rounded-md border border-rule bg-panel p-4 sm:grid-cols-2" aria-label={title}>
-      <h3 className="text-lg font-semibold sm:col-span-2">{title}</h3>
-      {fields.map((f) => (
-        <Field key={f.key} id={`${slug}-${f.key}`} label={f.label} error={errors[f.key]}>
-          {f.options ? (
-            <Select id={`${slug}-${f.key}`} value={v[f.key]} onChange={(e) => setV({ ...v, [f.key]: e.target.value })}>
-              {Object.entries(f.options).map(([value, label]) => (
-                <option key={value} value={value}>
-                  {label}
-                </option>
-              ))}
-            </Select>
-          ) : (
-            <Input id={`${slug}-${f.key}`} type={f.type ?? 'text'} value={v[f.key]} onChange={(e) => setV({ ...v, [f.key]: e.target.value })} />
-          )}
-        </Field>
-      ))}
-      <div className="flex items-end">
-        <Button type="submit" variant="secondary" busy={add.isPending}>
-          Add
-        </Button>
-      </div>
-      {add.error ? (
-        <p role="alert" className="text-danger sm:col-span-2">
-          {describeError(add.error)}
-        </p>
-      ) : null}
-    </form>
-  );
-}
-
-const num = (text: string) => (text.trim() === '' ? undefined : Number(text.replace(',', '.')));
+/** The price boxes of a grinder and a wheel, and what they become. */
+const PRICE_FIELDS: EntryField[] = [
+  { key: 'pricePaid', label: 'Price paid (optional)', inputMode: 'decimal' },
+  { key: 'currency', label: 'Currency, e.g. EUR' },
+];
+const priceOf = (v: Record<string, string>) => ({ pricePaid: num(v.pricePaid), currency: v.currency.trim() || undefined });
 
 /** What to set today: each setup, the wheels that share a setting, and how far a worn wheel's setting moved. */
 function SettingsToday({ workshop, unit }: { workshop: Workshop; unit: LengthUnit }) {
@@ -124,7 +67,7 @@ function SettingsToday({ workshop, unit }: { workshop: Workshop; unit: LengthUni
                         Set the gap to <strong className="text-lg">{formatLength(s.gapMm, unit)}</strong>
                       </>
                     ) : (
-                      <span className="text-danger">{s.reason}</span>
+                      <span className="text-danger">{lengthsIn(s.reason ?? '', unit)}</span>
                     )}
                   </p>
                   <p className="text-sm">
@@ -147,19 +90,41 @@ function SettingsToday({ workshop, unit }: { workshop: Workshop; unit: LengthUni
   );
 }
 
+/** What a sharpening on this wheel costs, what the figure rests on, and plainly when that is little. */
+function costText(wheel: WorkshopWheelView): string {
+  const { cost } = wheel;
+  if (!cost || !wheel.currency) {
+    if (wheel.pricePaid === null) return 'add the price you paid to see it';
+    if (wheel.wears) return wheel.minDiameterMm === null ? 'needs the minimum usable diameter from the maker' : 'needs two measurements with the sharpenings counted between them';
+    return 'no member has retired a wheel of this abrasive yet, so its life is unknown';
+  }
+  const head = `${money(cost.costPerSharpening, wheel.currency, 3)} over about ${formatNumber(cost.expectedSharpenings, 0)} sharpenings`;
+  if (cost.basis === 'measured-wear') {
+    const n = wheel.measurements.length;
+    return `${head}: the diameter lost per sharpening on this wheel alone (${cost.restsOn} sharpenings across ${n} measurements) against its usable range${
+      n < FEW || cost.restsOn < FEW ? `. Only ${n < FEW ? `${n} measurements` : `${cost.restsOn} sharpenings`}: a rough estimate that will move as you log more` : ''
+    }.`;
+  }
+  return `${head}: the median life of ${cost.restsOn} retired wheel${cost.restsOn === 1 ? '' : 's'} of this abrasive that members reported${
+    cost.restsOn < FEW ? `. Only ${cost.restsOn}: a rough estimate` : ''
+  }.`;
+}
+
 /** One wheel: diameter, rated speed, forecast, cost, and its log of measurements with edit and delete. */
 function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; workshop: Workshop; unit: LengthUnit }) {
   const m = useMeasurement(wheel.id);
-  const [measuredOn, setMeasuredOn] = useState(today());
-  const [diameter, setDiameter] = useState('');
-  const [sharpenings, setSharpenings] = useState('0');
-  const [dressed, setDressed] = useState(false);
-  const [editing, setEditing] = useState<number | null>(null);
-  const input = { measuredOn, diameterMm: toMillimetres(diameter, unit), sharpenings: Number(sharpenings), dressed };
-  const checked = wheelMeasurementSchema.safeParse(input);
+  const retire = useRetireWheel(wheel.id);
+  const [editing, setEditing] = useState<WorkshopWheelView['measurements'][number] | null>(null);
   const grinder = workshop.grinders.find((g) => g.id === wheel.grinderId);
   const id = `wheel-${wheel.id}`;
-  const error = m.add.error ?? m.edit.error ?? m.remove.error;
+  const logged = wheel.measurements.reduce((sum, x) => sum + x.sharpenings, 0);
+  // Adding and correcting a measurement are one form; a correction starts from the entry's values.
+  const save = {
+    mutate: (input: WheelMeasurementInput, opts: { onSuccess: () => void }) =>
+      editing ? m.edit.mutate({ id: editing.id, input }, { onSuccess: () => { opts.onSuccess(); setEditing(null); } }) : m.add.mutate(input, opts),
+    isPending: m.add.isPending || m.edit.isPending,
+    error: m.add.error ?? m.edit.error,
+  };
   return (
     <article className="min-w-0 rounded-md border border-rule bg-panel p-4" aria-labelledby={`${id}-title`}>
       <h3 id={`${id}-title`} className="text-lg font-semibold">
@@ -190,13 +155,7 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
         </dd>
         <dt className="text-muted">Per sharpening</dt>
         <dd>
-          {wheel.cost && wheel.currency
-            ? `${money(wheel.cost.costPerSharpening, wheel.currency, 3)} over about ${formatNumber(wheel.cost.expectedSharpenings, 0)} sharpenings; ${
-                wheel.cost.basis === 'measured-wear'
-                  ? `estimated from ${wheel.cost.restsOn} sharpenings counted on this wheel alone`
-                  : `from ${wheel.cost.restsOn} retired wheel${wheel.cost.restsOn === 1 ? '' : 's'} members reported`
-              }`
-            : 'not enough to estimate yet'}
+          {costText(wheel)}
         </dd>
       </dl>
       {wheel.measurements.length ? (
@@ -225,13 +184,7 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
                 <button
                   type="button"
                   className="underline"
-                  onClick={() => {
-                    setEditing(x.id);
-                    setMeasuredOn(x.measuredOn);
-                    setDiameter(formatNumber(unit === 'in' ? x.diameterMm / 25.4 : x.diameterMm, 3).replace(/,/g, ''));
-                    setSharpenings(String(x.sharpenings));
-                    setDressed(x.dressed);
-                  }}
+                  onClick={() => setEditing(x)}
                 >
                   Edit
                 </button>{' '}
@@ -246,41 +199,60 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
       ) : (
         <p className="mt-3 text-sm text-muted">No measurements yet: measure across the wheel with calipers, the machine stopped and unplugged.</p>
       )}
-      <form
-        className="mt-3 grid grid-cols-2 items-end gap-3"
-        noValidate
-        aria-label={`Log a measurement of ${wheel.name}`}
-        onSubmit={(e) => {
-          e.preventDefault();
-          if (!checked.success) return;
-          const done = { onSuccess: () => { setDiameter(''); setSharpenings('0'); setDressed(false); setEditing(null); } };
-          if (editing !== null) m.edit.mutate({ id: editing, input: checked.data }, done);
-          else m.add.mutate(checked.data, done);
-        }}
-      >
-        <Field id={`${id}-date`} label="Date">
-          <Input id={`${id}-date`} type="date" value={measuredOn} onChange={(e) => setMeasuredOn(e.target.value)} />
-        </Field>
-        <Field id={`${id}-diameter`} label={`Diameter (${unit})`} error={diameter && !checked.success ? issuesOf(checked).diameterMm : undefined}>
-          <Input id={`${id}-diameter`} inputMode="decimal" value={diameter} onChange={(e) => setDiameter(e.target.value)} />
-        </Field>
-        <Field id={`${id}-sharpenings`} label="Sharpenings since">
-          <Input id={`${id}-sharpenings`} inputMode="numeric" value={sharpenings} onChange={(e) => setSharpenings(e.target.value)} />
-        </Field>
-        <label className="flex items-center gap-2 pb-2 text-sm">
-          <input type="checkbox" checked={dressed} onChange={(e) => setDressed(e.target.checked)} /> Dressed
-        </label>
-        <div className="col-span-2">
-          <Button type="submit" variant="secondary" busy={m.add.isPending || m.edit.isPending} disabled={!checked.success}>
-            {editing !== null ? 'Save the correction' : 'Log measurement'}
-          </Button>
+      {m.remove.error ? (
+        <p role="alert" className="mt-2 text-danger">
+          {describeError(m.remove.error)}
+        </p>
+      ) : null}
+      {wheel.retiredOn ? (
+        <p className="mt-3 text-sm text-muted">
+          Retired on {formatDate(wheel.retiredOn)} after {wheel.retiredAfterSharpenings ?? '—'} sharpenings.
+        </p>
+      ) : (
+        <div className="mt-3 grid gap-3">
+          <EntryForm
+            key={`${editing?.id ?? 'new'}-${unit}`}
+            title={editing ? `Correct the entry of ${editing.measuredOn}` : 'Log a measurement'}
+            className="sm:grid-cols-2"
+            fields={[
+              { key: 'measuredOn', label: 'Date', type: 'date' },
+              { key: 'diameterMm', label: `Diameter (${unit})`, inputMode: 'decimal' },
+              { key: 'sharpenings', label: 'Sharpenings since', inputMode: 'numeric' },
+              { key: 'dressed', label: 'Dressed', checkbox: true },
+            ]}
+            initial={
+              editing
+                ? { measuredOn: editing.measuredOn, diameterMm: lengthText(editing.diameterMm, unit), sharpenings: String(editing.sharpenings), dressed: editing.dressed ? 'true' : '' }
+                : { measuredOn: today(), sharpenings: '0' }
+            }
+            build={(v) => ({ measuredOn: v.measuredOn, diameterMm: toMillimetres(v.diameterMm, unit), sharpenings: num(v.sharpenings), dressed: v.dressed === 'true' })}
+            schema={wheelMeasurementSchema}
+            send={save}
+            submitLabel={editing ? 'Save the correction' : 'Log measurement'}
+          />
+          <details className="rounded-md border border-rule p-3">
+            <summary className="cursor-pointer font-medium">Retire this wheel</summary>
+            <EntryForm
+              title={`Retire ${wheel.name}`}
+              className="mt-2 border-0 p-0 sm:grid-cols-2"
+              fields={[
+                { key: 'retiredOn', label: 'Retired on', type: 'date' },
+                { key: 'retiredAfterSharpenings', label: 'Sharpenings it gave', inputMode: 'numeric' },
+              ]}
+              initial={{ retiredOn: today(), retiredAfterSharpenings: String(logged) }}
+              build={(v) => ({ retiredOn: v.retiredOn, retiredAfterSharpenings: num(v.retiredAfterSharpenings) })}
+              schema={retireWheelSchema}
+              send={retire}
+              submitLabel="Retire the wheel"
+            >
+              <p className="col-span-full text-sm text-muted">
+                It leaves the kit and its settings; the sharpenings it gave are counted, anonymously, in the cost per sharpening of other wheels of this
+                abrasive.
+              </p>
+            </EntryForm>
+          </details>
         </div>
-        {error ? (
-          <p role="alert" className="col-span-2 text-danger">
-            {describeError(error)}
-          </p>
-        ) : null}
-      </form>
+      )}
     </article>
   );
 }
@@ -331,7 +303,11 @@ export default function WorkshopPage() {
   const user = session.data?.user ?? null;
   const workshop = useWorkshop(!!user);
   const abrasives = useAbrasives();
-  const [unit, setUnit] = useLengthUnit();
+  const [unit] = useLengthUnit();
+  const addGrinder = useAddToWorkshop('grinders');
+  const addWheel = useAddToWorkshop('wheels');
+  const addJig = useAddToWorkshop('jigs');
+  const addSetup = useAddToWorkshop('setups');
   const w = workshop.data;
   const wheelAbrasives = Object.fromEntries((abrasives.data?.items ?? []).filter((a) => a.form === 'wheel').map((a) => [a.slug, a.name]));
   const grinderOptions = Object.fromEntries((w?.grinders ?? []).map((g) => [String(g.id), g.name]));
@@ -355,17 +331,7 @@ export default function WorkshopPage() {
       ) : null}
       {user ? (
         <>
-          <div className="flex flex-wrap items-center gap-3">
-            <label htmlFor="length-unit" className="font-semibold">
-              Lengths in
-            </label>
-            <div className="w-44">
-              <Select id="length-unit" value={unit} onChange={(e) => setUnit(e.target.value as LengthUnit)}>
-                <option value="mm">millimetres</option>
-                <option value="in">inches</option>
-              </Select>
-            </div>
-          </div>
+          <LengthUnitPicker />
           {workshop.isPending ? <Loading label="Loading your workshop…" /> : null}
           {workshop.error ? <ErrorState error={workshop.error} onRetry={() => workshop.refetch()} /> : null}
           {w ? (
@@ -390,44 +356,39 @@ export default function WorkshopPage() {
               </Section>
               <Section id="add" title="Add to the workshop">
                 <div className="grid gap-4 lg:grid-cols-2">
-                  <AddForm
-                    kind="grinders"
+                  <EntryForm
+                    key={`grinder-${unit}`}
                     title="A grinder"
                     schema={grinderInputSchema}
+                    send={addGrinder}
                     fields={[
                       { key: 'name', label: 'Name' },
-                      { key: 'spindleRpm', label: 'Spindle speed (rpm)' },
-                      { key: 'barDiameterMm', label: `Support bar diameter (${unit})` },
-                      { key: 'barMount', label: 'Where the bar mounts', options: BAR_MOUNTS, initial: 'with-rotation' },
-                      { key: 'pricePaid', label: 'Price paid (optional)' },
-                      { key: 'currency', label: 'Currency, e.g. EUR' },
+                      { key: 'spindleRpm', label: 'Spindle speed (rpm)', inputMode: 'decimal' },
+                      { key: 'barDiameterMm', label: `Support bar diameter (${unit})`, inputMode: 'decimal' },
+                      { key: 'barMount', label: 'Where the bar mounts', options: BAR_MOUNTS },
+                      ...PRICE_FIELDS,
                     ]}
-                    build={(v) => ({
-                      name: v.name,
-                      spindleRpm: num(v.spindleRpm),
-                      barDiameterMm: len(v.barDiameterMm),
-                      barMount: v.barMount,
-                      pricePaid: num(v.pricePaid),
-                      currency: v.currency.trim() || undefined,
-                    })}
+                    initial={{ barMount: 'with-rotation' }}
+                    build={(v) => ({ name: v.name, spindleRpm: num(v.spindleRpm), barDiameterMm: len(v.barDiameterMm), barMount: v.barMount, ...priceOf(v) })}
                   />
                   {w.grinders.length ? (
-                    <AddForm
-                      kind="wheels"
+                    <EntryForm
+                      key={`wheel-${unit}`}
                       title="A wheel"
                       schema={workshopWheelInputSchema}
+                      send={addWheel}
                       fields={[
                         { key: 'name', label: 'Name' },
                         { key: 'abrasive', label: 'Abrasive page', options: { '': 'Choose…', ...wheelAbrasives } },
-                        { key: 'grinderId', label: 'On grinder', options: grinderOptions, initial: String(w.grinders[0].id) },
-                        { key: 'originalDiameterMm', label: `Diameter when new (${unit})` },
-                        { key: 'minDiameterMm', label: `Minimum usable diameter (${unit}, from the maker)` },
-                        { key: 'ratedSpeedMps', label: 'Rated maximum speed (m/s, on the wheel)' },
+                        { key: 'grinderId', label: 'On grinder', options: grinderOptions },
+                        { key: 'originalDiameterMm', label: `Diameter when new (${unit})`, inputMode: 'decimal' },
+                        { key: 'minDiameterMm', label: `Minimum usable diameter (${unit}, from the maker)`, inputMode: 'decimal' },
+                        { key: 'ratedSpeedMps', label: 'Rated maximum speed (m/s, on the wheel)', inputMode: 'decimal' },
                         { key: 'coolant', label: 'Coolant', options: { '': 'As on the abrasive page', ...COOLANTS } },
                         { key: 'acquiredOn', label: 'Bought on', type: 'date' },
-                        { key: 'pricePaid', label: 'Price paid (optional)' },
-                        { key: 'currency', label: 'Currency, e.g. EUR' },
+                        ...PRICE_FIELDS,
                       ]}
+                      initial={{ grinderId: String(w.grinders[0].id) }}
                       build={(v) => ({
                         name: v.name,
                         abrasive: v.abrasive,
@@ -437,30 +398,29 @@ export default function WorkshopPage() {
                         ratedSpeedMps: num(v.ratedSpeedMps),
                         coolant: v.coolant || undefined,
                         acquiredOn: v.acquiredOn || undefined,
-                        pricePaid: num(v.pricePaid),
-                        currency: v.currency.trim() || undefined,
+                        ...priceOf(v),
                       })}
                     />
                   ) : null}
-                  <AddForm
-                    kind="jigs"
+                  <EntryForm
+                    key={`jig-${unit}`}
                     title="A jig"
                     schema={jigInputSchema}
-                    fields={[
-                      { key: 'name', label: 'Name' },
-                      { key: 'offsetMm', label: `Blade-plane offset from the bar’s axis (${unit})`, initial: '0' },
-                    ]}
+                    send={addJig}
+                    fields={[{ key: 'name', label: 'Name' }, { key: 'offsetMm', label: `Blade-plane offset from the bar’s axis (${unit})`, inputMode: 'decimal' }]}
+                    initial={{ offsetMm: '0' }}
                     build={(v) => ({ name: v.name, offsetMm: len(v.offsetMm) })}
                   />
-                  <AddForm
-                    kind="setups"
+                  <EntryForm
+                    key={`setup-${unit}`}
                     title="A setup"
                     schema={setupInputSchema}
+                    send={addSetup}
                     fields={[
                       { key: 'name', label: 'Name, e.g. “chef knife at 15°”' },
                       { key: 'jigId', label: 'Jig', options: jigOptions },
-                      { key: 'projectionMm', label: `Projection (${unit})` },
-                      { key: 'perSideDeg', label: 'Angle per side (°)' },
+                      { key: 'projectionMm', label: `Projection (${unit})`, inputMode: 'decimal' },
+                      { key: 'perSideDeg', label: 'Angle per side (°)', inputMode: 'decimal' },
                     ]}
                     build={(v) => ({ name: v.name, jigId: v.jigId ? Number(v.jigId) : null, projectionMm: len(v.projectionMm), perSideDeg: num(v.perSideDeg) })}
                   />
