@@ -5,6 +5,7 @@ import { keptUntil } from '../queries/kept-until';
 import { memberAttributes, type CellKey, type CellRecord } from '../aggregates/comparison-cells';
 import { changedCells } from '../aggregates/cell-cache';
 import { follow } from '../changes';
+import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
 
 /** The cells a commit changed, or all of them after a rebuild. */
 type CellChange = { keys: CellKey[] } | { all: true };
@@ -20,8 +21,16 @@ type CellChange = { keys: CellKey[] } | { all: true };
  */
 
 /** The attributes read per approved result. */
-const ATTRIBUTES = ['id', ...memberAttributes, 'abrasiveId', 'createdAt'] as const;
-type Row = BandedMember & { id: number; abrasiveId: number; createdAt: Date | string };
+const ATTRIBUTES = ['id', ...memberAttributes, 'abrasiveId', 'createdAt', 'progressionSteps', 'progressionMaterials'] as const;
+type Row = BandedMember & { id: number; abrasiveId: number; createdAt: Date | string; progressionSteps: number; progressionMaterials: string };
+
+/** A bit per abrasive material, for the materials a progression passed through. */
+const MATERIAL_BIT = new Map(Object.keys(ABRASIVE_MATERIALS).map((m, i) => [m, 1 << i]));
+const viaMask = (materials: Iterable<string>): number => {
+  let mask = 0;
+  for (const m of materials) mask |= MATERIAL_BIT.get(m) ?? 0;
+  return mask;
+};
 
 /** What one scan selects; each field left undefined selects every row. */
 export interface ResultFilter {
@@ -41,6 +50,10 @@ export interface ResultFilter {
   abrasiveIds?: ReadonlySet<number> | null;
   /** Only results by verified publishers. */
   publishers?: boolean;
+  /** Only results whose progression passed through one of these materials. */
+  via?: ReadonlySet<string> | null;
+  /** Only results with one of these numbers of steps before the final abrasive. */
+  steps?: ReadonlySet<number> | null;
 }
 
 const toMs = (d: Date | string): number => {
@@ -51,11 +64,11 @@ const toMs = (d: Date | string): number => {
 };
 
 const FLOAT_COLUMNS = ['gritUm', 'medianG', 'retention', 'hrc', 'angle', 'created'] as const;
-const INT_COLUMNS = ['id', 'method', 'steel', 'material', 'gritPhi', 'half', 'author', 'abrasive', 'cell'] as const;
+const INT_COLUMNS = ['id', 'method', 'steel', 'material', 'gritPhi', 'half', 'author', 'abrasive', 'cell', 'via', 'steps'] as const;
 type FloatColumn = (typeof FLOAT_COLUMNS)[number];
 type IntColumn = (typeof INT_COLUMNS)[number];
 
-/** The columns; `retention` is NaN where a result reports none; `cell` numbers the whole-φ cell key; `half` is 0 or 1, the half band inside it. */
+/** The columns; `retention` is NaN where a result reports none; `cell` numbers the whole-φ cell key; `half` is 0 or 1, the half band inside it; `via` has a bit per material the progression passed through (MATERIAL_BIT), `steps` its length. */
 class Columns {
   size = 0;
   f = {} as Record<FloatColumn, Float64Array>;
@@ -310,6 +323,8 @@ export class ApprovedResults {
     c.f.hrc[at] = r.hrc;
     c.f.angle[at] = r.perSideDeg;
     c.f.created[at] = toMs(r.createdAt);
+    c.i.via[at] = viaMask(r.progressionMaterials.split(','));
+    c.i.steps[at] = r.progressionSteps;
   }
 
   /** The ids of the accounts that are verified publishers (kept until an account changes). */
@@ -325,7 +340,7 @@ export class ApprovedResults {
     const publishers = filter.publishers ? await this.publishers() : null;
     await this.ready();
     const c = this.cols;
-    const { method, steel, material, gritPhi, half, author, abrasive, cell } = c.i;
+    const { method, steel, material, gritPhi, half, author, abrasive, cell, via, steps } = c.i;
     const { gritUm, medianG, retention, hrc, angle, created } = c.f;
     const materials = filter.materials ? new Set([...filter.materials].map((m) => this.materialNo.get(m) ?? -1)) : null;
     const above = filter.gritPhiAbove ?? -Infinity;
@@ -336,6 +351,7 @@ export class ApprovedResults {
     const angleMax = filter.angleMax ?? Infinity;
     const from = filter.createdFrom ?? -Infinity;
     const before = filter.createdBefore ?? Infinity;
+    const through = filter.via ? viaMask(filter.via) : 0;
     // Rows by cell: a cell (whole φ, or each half band in it) number maps to its rows.
     const groups = new Map<number, number[]>();
     for (let r = 0; r < c.size; r++) {
@@ -348,6 +364,8 @@ export class ApprovedResults {
       if (!(created[r] >= from && created[r] < before)) continue;
       if (filter.abrasiveIds && !filter.abrasiveIds.has(abrasive[r])) continue;
       if (publishers && !publishers.has(author[r])) continue;
+      if (filter.via && !(via[r] & through)) continue;
+      if (filter.steps && !filter.steps.has(steps[r])) continue;
       const g = step === 1 ? cell[r] : 2 * cell[r] + half[r];
       const list = groups.get(g);
       if (list) list.push(r);
