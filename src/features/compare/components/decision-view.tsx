@@ -2,7 +2,8 @@ import { useMemo } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import type { CompareRow } from '@shared/compare-view';
 import type { WordedShift, WithinEdgeSpread } from '@shared/compare-difference';
-import { GRIT_STANDARD_SHORT_LABELS, formatGrade, nearestGrade, type GritStandard } from '@shared/grit';
+import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
+import { NOTATIONS, bandGrade, notationOf } from '../lib/grit-notation';
 import { paths } from '@/config/paths';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select } from '@/components/ui/field';
@@ -10,16 +11,6 @@ import { ErrorState, Loading } from '@/components/ui/states';
 import { formatGritBand, formatNumber } from '@/lib/format';
 import { useCompare } from '../api/get-compare';
 import { useCompareDifference } from '../api/get-compare-difference';
-
-/** Notations a reader may label grit bands in (nearest grade beside the µm). */
-const NOTATIONS: GritStandard[] = ['jis', 'fepa-f', 'ansi', 'iso6106'];
-
-/** The nearest grade of a band's geometric middle in the chosen notation, e.g. "JIS #1000". */
-function bandGrade(row: CompareRow, notation: GritStandard): string {
-  const centre = Math.sqrt(row.band.loUm * row.band.hiUm);
-  const grade = nearestGrade(centre, notation);
-  return grade ? `≈ ${formatGrade({ standard: notation, grade: grade.grade })}` : `outside ${GRIT_STANDARD_SHORT_LABELS[notation]}`;
-}
 
 /** How much a cell's evidence is worth, in words. */
 function evidenceWords(row: CompareRow): string | null {
@@ -37,7 +28,7 @@ function evidenceWords(row: CompareRow): string | null {
 export function DecisionView({ steel, steelName, methods }: { steel: string; steelName: string; methods: { slug: string; name: string }[] }) {
   const [params, setParams] = useSearchParams();
   const get = (k: string) => params.get(k) ?? undefined;
-  const notation = (get('notation') as GritStandard | undefined) ?? 'jis';
+  const notation = notationOf(get('notation'));
   const filters = { steel, method: get('method'), hrcMin: get('hrcMin'), hrcMax: get('hrcMax') };
   const view = useCompare({ ...filters, sort: 'median', pageSize: '500' });
   const a = get('a');
@@ -112,7 +103,7 @@ export function DecisionView({ steel, steelName, methods }: { steel: string; ste
                       <h3 className="min-w-0 font-semibold">
                         {row.materialLabel}
                         <span className="block text-sm font-normal text-muted">
-                          {formatGritBand(row.band)} · {bandGrade(row, notation)}
+                          {formatGritBand(row.band)} · {bandGrade(row.band, notation)}
                         </span>
                       </h3>
                       <Button size="sm" variant={role ? 'primary' : 'secondary'} aria-pressed={!!role} onClick={() => choose(row.cell)} aria-label={`${role ? `Chosen as ${role}; press to un-choose` : 'Choose'} ${row.materialLabel} ${formatGritBand(row.band)}`}>
