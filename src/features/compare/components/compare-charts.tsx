@@ -42,8 +42,8 @@ function useNarrow(): boolean {
   return narrow;
 }
 
-/** Room for a tick label of `px` pixels at about 7 px a character (0.875 rem text). */
-const charsIn = (px: number) => Math.max(6, Math.floor(px / 7));
+/** Room for a tick label of `px` pixels at about 8 px a character (13 px text, wide glyphs included). */
+const charsIn = (px: number) => Math.max(6, Math.floor(px / 8));
 const shorten = (text: string, chars: number) => (text.length <= chars ? text : `${text.slice(0, chars - 1).trimEnd()}…`);
 
 /**
@@ -64,6 +64,8 @@ function NameTick({ x, y, payload, names, width }: { x?: number; y?: number; pay
 
 /** Axis titles sit in their own band beside the tick labels, never on them. */
 const X_AXIS_HEIGHT = 48;
+/** The legend keeps clear of the top tick label. */
+const LEGEND_STYLE = { paddingBottom: 10 };
 const Y_AXIS_WIDTH = 64;
 
 function ChartFrame({ title, caption, children, fallback, height = 320, controls }: { title: string; caption: ReactNode; children: ReactNode; fallback: ReactNode; height?: number; controls?: ReactNode }) {
@@ -195,13 +197,13 @@ export default function CompareCharts({ filters, chartSteel, onChartSteel }: { f
         fallback={<PointsTable data={data} points={data.points} columns={['um', 'g']} />}
       >
         <ResponsiveContainer width="100%" height="100%">
-          <ScatterChart margin={{ top: 10, right: 16, bottom: 0, left: 0 }}>
+          <ScatterChart margin={{ top: 10, right: 16, bottom: 6, left: 0 }}>
             <CartesianGrid stroke="#d9d4c7" strokeDasharray="3 3" />
             <XAxis type="number" dataKey="gritUm" name="Particle size" scale="log" domain={domain} ticks={LOG_TICKS.filter((t) => t >= domain[0] && t <= domain[1])} allowDataOverflow height={X_AXIS_HEIGHT} label={{ value: narrow ? 'Particle size, µm (log)' : 'Particle size, µm (log scale)', position: 'insideBottom', offset: 0 }} />
-            <YAxis type="number" dataKey="medianG" name="Median" width={Y_AXIS_WIDTH} label={{ value: 'Median force, g', angle: -90, position: 'insideLeft', offset: 0, style: { textAnchor: 'middle' } }} />
+            <YAxis type="number" dataKey="medianG" name="Median" width={Y_AXIS_WIDTH} label={{ value: 'Median force, g', angle: -90, position: 'insideLeft', offset: 12, style: { textAnchor: 'middle' } }} />
             <ZAxis range={[28, 28]} />
             <Tooltip content={({ payload }) => <PointTip data={data} point={payload?.[0]?.payload as ComparePoint | undefined} />} />
-            <Legend verticalAlign="top" />
+            <Legend verticalAlign="top" wrapperStyle={LEGEND_STYLE} />
             {byMaterial(data.points).map(([m, list]) => (
               <Scatter key={m} name={labelOf(m)} data={list} fill={MATERIAL_STYLE[m]?.colour ?? '#1f2328'} shape={MATERIAL_STYLE[m]?.shape ?? 'circle'} isAnimationActive={false} fillOpacity={0.75} />
             ))}
@@ -257,7 +259,7 @@ export default function CompareCharts({ filters, chartSteel, onChartSteel }: { f
       >
         {strip ? (
           <ResponsiveContainer width="100%" height="100%">
-            <ScatterChart margin={{ top: 10, right: 16, bottom: 0, left: 0 }}>
+            <ScatterChart margin={{ top: 10, right: 16, bottom: 6, left: 0 }}>
               <CartesianGrid stroke="#d9d4c7" strokeDasharray="3 3" />
               <XAxis type="number" dataKey="medianG" name="Median" height={X_AXIS_HEIGHT} label={{ value: 'Median force, g', position: 'insideBottom', offset: 0 }} />
               <YAxis
@@ -277,7 +279,7 @@ export default function CompareCharts({ filters, chartSteel, onChartSteel }: { f
                 <Scatter key={m} name={labelOf(m)} data={list} fill={MATERIAL_STYLE[m]?.colour ?? '#1f2328'} shape={MATERIAL_STYLE[m]?.shape ?? 'circle'} fillOpacity={0.6} isAnimationActive={false} />
               ))}
               <Scatter name="Median" data={strip.medians} fill="#1f2328" shape="cross" isAnimationActive={false} />
-              <Legend verticalAlign="top" />
+              <Legend verticalAlign="top" wrapperStyle={LEGEND_STYLE} />
             </ScatterChart>
           </ResponsiveContainer>
         ) : null}
@@ -290,13 +292,13 @@ export default function CompareCharts({ filters, chartSteel, onChartSteel }: { f
       >
         {withCuts.length ? (
           <ResponsiveContainer width="100%" height="100%">
-            <ScatterChart margin={{ top: 10, right: 16, bottom: 0, left: 0 }}>
+            <ScatterChart margin={{ top: 10, right: 16, bottom: 6, left: 0 }}>
               <CartesianGrid stroke="#d9d4c7" strokeDasharray="3 3" />
               <XAxis type="number" dataKey="hrc" name="Hardness" domain={['dataMin - 0.5', 'dataMax + 0.5']} height={X_AXIS_HEIGHT} label={{ value: 'Hardness, HRC', position: 'insideBottom', offset: 0 }} />
-              <YAxis type="number" dataKey="retentionCuts" name="Cuts" width={Y_AXIS_WIDTH} label={{ value: 'Cuts', angle: -90, position: 'insideLeft', offset: 0, style: { textAnchor: 'middle' } }} />
+              <YAxis type="number" dataKey="retentionCuts" name="Cuts" width={Y_AXIS_WIDTH} label={{ value: 'Cuts', angle: -90, position: 'insideLeft', offset: 12, style: { textAnchor: 'middle' } }} />
               <ZAxis range={[28, 28]} />
               <Tooltip content={({ payload }) => <PointTip data={data} point={payload?.[0]?.payload as ComparePoint | undefined} />} />
-              <Legend verticalAlign="top" />
+              <Legend verticalAlign="top" wrapperStyle={LEGEND_STYLE} />
               {byMaterial(withCuts).map(([m, list]) => (
                 <Scatter key={m} name={labelOf(m)} data={list} fill={MATERIAL_STYLE[m]?.colour ?? '#1f2328'} shape={MATERIAL_STYLE[m]?.shape ?? 'circle'} fillOpacity={0.75} isAnimationActive={false} />
               ))}
