@@ -42,8 +42,8 @@ function useNarrow(): boolean {
   return narrow;
 }
 
-/** Room for a tick label of `px` pixels at about 8 px a character (13 px text, wide glyphs included). */
-const charsIn = (px: number) => Math.max(6, Math.floor(px / 8));
+/** Room for a tick label of `px` pixels at about 9 px a character (13 px text, wide glyphs and the ellipsis included). */
+const charsIn = (px: number) => Math.max(6, Math.floor(px / 9));
 const shorten = (text: string, chars: number) => (text.length <= chars ? text : `${text.slice(0, chars - 1).trimEnd()}…`);
 
 /**
