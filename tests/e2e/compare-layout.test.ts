@@ -148,3 +148,36 @@ describe('the progression steps of the result form, by keyboard', () => {
     await expect.poll(focused).toBe('progression-add');
   }, 60_000);
 });
+
+describe('search’s All view', () => {
+  it('gives each kind its true count and a “show all N” link where it shows fewer', async () => {
+    await page.setViewportSize({ width: 1280, height: 900 });
+    await page.goto(`${base}/search?q=wheel`);
+    const sections = page.locator('section[aria-labelledby^="hits-"]');
+    await sections.first().waitFor();
+    const kinds = page.getByRole('navigation', { name: 'Kinds of hits' }).getByRole('link');
+    // The counts the kinds' links announce, e.g. "Results (61)".
+    const announced = new Map<string, number>();
+    for (const text of await kinds.allInnerTexts()) {
+      const m = /^(.+) \((\d+)\)$/.exec(text.trim());
+      if (m && Number(m[2]) > 0) announced.set(m[1], Number(m[2]));
+    }
+    expect(announced.size).toBeGreaterThan(1);
+    // Every kind with matches has its section, with the same count; fewer shown → a link to all of them.
+    expect(await sections.count()).toBe(announced.size);
+    let links = 0;
+    for (const section of await sections.all()) {
+      const heading = (await section.getByRole('heading').first().innerText()).trim();
+      const [, name, count] = /^(.+) \((\d+)\)$/.exec(heading)!;
+      expect(Number(count)).toBe(announced.get(name));
+      const shown = await section.getByRole('listitem').count();
+      if (shown < Number(count)) {
+        const all = section.getByRole('link', { name: `Show all ${count} ${name.toLowerCase()}` });
+        expect(await all.getAttribute('href')).toMatch(/type=/);
+        links++;
+      }
+    }
+    expect(links).toBeGreaterThan(0);
+    await page.screenshot({ path: '/tmp/edgeledger-compare-layout-search-desktop.png', fullPage: true });
+  }, 60_000);
+});
