@@ -2,7 +2,7 @@ import { useId, useState, type ReactNode } from 'react';
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '@shared/vocabulary';
 import { toHrc, HARDNESS_SCALES, type HardnessScale } from '@shared/hardness';
 import { bandInfo, formatEdgeUm } from '@shared/compare-view';
-import { Field, Input, Select } from '@/components/ui/field';
+import { Field, Input, Select, PageOptions } from '@/components/ui/field';
 import { ChipChooser } from '@/components/ui/chip-chooser';
 import { PROGRESSION_MAX } from '@shared/progression';
 import { Button } from '@/components/ui/button';
@@ -43,6 +43,22 @@ function CheckList({ legend, name, options, value, onChange, columns = 2 }: { le
   );
 }
 
+/** One end of the particle-size range: a band edge, or any size. */
+function EdgeField({ id, label, value, onChange }: { id: string; label: string; value?: string; onChange: (next: string | undefined) => void }) {
+  return (
+    <Field id={id} label={label}>
+      <Select id={id} value={value ?? ''} onChange={(e) => onChange(e.target.value || undefined)}>
+        <option value="">any size</option>
+        {EDGES_UM.map((um) => (
+          <option key={um} value={String(um)}>
+            {formatEdgeUm(um)} µm
+          </option>
+        ))}
+      </Select>
+    </Field>
+  );
+}
+
 /** 0 to PROGRESSION_MAX steps, as the filter's options. */
 const STEP_COUNTS = Array.from({ length: PROGRESSION_MAX + 1 }, (_, n) => [String(n), n === 0 ? 'none recorded' : `${n} step${n === 1 ? '' : 's'}`] as const);
 
@@ -69,6 +85,9 @@ export function CompareFilters({ methods, steels }: CompareFiltersProps) {
   const [hardness, setHardness] = useState<{ min: string; max: string }>({ min: '', max: '' });
   const [hardnessError, setHardnessError] = useState<string | undefined>();
   const [shown, setShown] = useState(false);
+
+  // What a hardness box shows: the URL's HRC, or what was typed in another scale.
+  const hardnessShown = (which: 'min' | 'max') => (scale === 'HRC' ? ((which === 'min' ? filters.hrcMin : filters.hrcMax) ?? '') : hardness[which]);
 
   // Hardness typed in another scale is converted to HRC (ASTM E140, shared/hardness.ts).
   const applyHardness = (which: 'min' | 'max', text: string) => {
@@ -101,11 +120,7 @@ export function CompareFilters({ methods, steels }: CompareFiltersProps) {
           <Field id={`${id}-method`} label="Method version" hint="Results are compared only within one version of a method.">
             <Select id={`${id}-method`} value={filters.method ?? ''} onChange={(e) => set('method', e.target.value || undefined)}>
               <option value="">The one with the most results</option>
-              {methods.map((m) => (
-                <option key={m.slug} value={m.slug}>
-                  {m.name}
-                </option>
-              ))}
+              <PageOptions pages={methods} />
             </Select>
           </Field>
           <ChipChooser label="Steel" options={byCategory.map((s) => [s.slug, s.name] as const)} value={listOf(filters.steel)} onChange={(v) => set('steel', v.join(',') || undefined)} />
@@ -116,26 +131,8 @@ export function CompareFilters({ methods, steels }: CompareFiltersProps) {
           <ChipChooser label="Abrasive material" options={Object.entries(ABRASIVE_MATERIALS)} value={listOf(filters.material)} onChange={(v) => set('material', v.join(',') || undefined)} />
           <CheckList legend="Bond" name="bond" options={Object.entries(BONDS)} value={listOf(filters.bond)} onChange={(v) => set('bond', v.join(',') || undefined)} />
           <div className="grid grid-cols-2 gap-3">
-            <Field id={`${id}-um-min`} label="Particles from">
-              <Select id={`${id}-um-min`} value={filters.umMin ?? ''} onChange={(e) => set('umMin', e.target.value || undefined)}>
-                <option value="">any size</option>
-                {EDGES_UM.map((um) => (
-                  <option key={um} value={String(um)}>
-                    {formatEdgeUm(um)} µm
-                  </option>
-                ))}
-              </Select>
-            </Field>
-            <Field id={`${id}-um-max`} label="to">
-              <Select id={`${id}-um-max`} value={filters.umMax ?? ''} onChange={(e) => set('umMax', e.target.value || undefined)}>
-                <option value="">any size</option>
-                {EDGES_UM.map((um) => (
-                  <option key={um} value={String(um)}>
-                    {formatEdgeUm(um)} µm
-                  </option>
-                ))}
-              </Select>
-            </Field>
+            <EdgeField id={`${id}-um-min`} label="Particles from" value={filters.umMin} onChange={(v) => set('umMin', v)} />
+            <EdgeField id={`${id}-um-max`} label="to" value={filters.umMax} onChange={(v) => set('umMax', v)} />
           </div>
           <ChipChooser label="Progression passed through" noneMeans="any" options={Object.entries(ABRASIVE_MATERIALS)} value={listOf(filters.via)} onChange={(v) => set('via', v.join(',') || undefined)} hint="Results whose recorded steps before the final abrasive include one of these materials." />
           <ChipChooser label="Steps before the final abrasive" noneMeans="any number" options={STEP_COUNTS} value={listOf(filters.steps)} onChange={(v) => set('steps', v.join(',') || undefined)} />
@@ -157,24 +154,10 @@ export function CompareFilters({ methods, steels }: CompareFiltersProps) {
               </Select>
             </Field>
             <Field id={`${id}-hrc-min`} label="Hardness from" error={hardnessError}>
-              <Input
-                id={`${id}-hrc-min`}
-                type="number"
-                inputMode="decimal"
-                step="any"
-                value={scale === 'HRC' ? (filters.hrcMin ?? '') : hardness.min}
-                onChange={(e) => applyHardness('min', e.target.value)}
-              />
+              <Input id={`${id}-hrc-min`} type="number" inputMode="decimal" step="any" value={hardnessShown('min')} onChange={(e) => applyHardness('min', e.target.value)} />
             </Field>
             <Field id={`${id}-hrc-max`} label="to">
-              <Input
-                id={`${id}-hrc-max`}
-                type="number"
-                inputMode="decimal"
-                step="any"
-                value={scale === 'HRC' ? (filters.hrcMax ?? '') : hardness.max}
-                onChange={(e) => applyHardness('max', e.target.value)}
-              />
+              <Input id={`${id}-hrc-max`} type="number" inputMode="decimal" step="any" value={hardnessShown('max')} onChange={(e) => applyHardness('max', e.target.value)} />
             </Field>
           </div>
           {scale !== 'HRC' && (filters.hrcMin || filters.hrcMax) ? (

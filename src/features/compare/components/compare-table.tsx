@@ -7,7 +7,8 @@ import type { CompareSortKey } from '@shared/schemas/compare';
 import { paths } from '@/config/paths';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
-import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
+import { TableFrame, tdClass } from '@/components/ui/table-frame';
+import { SortableTh } from '@/components/ui/table';
 import { formatGrams, formatGritBand, formatNumber } from '@/lib/format';
 import { bandGrade } from '../lib/grit-notation';
 
@@ -292,18 +293,9 @@ export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, p
                   const canSort = header.column.getCanSort() && header.column.id !== 'actions' && header.column.id !== 'method';
                   const content = flexRender(header.column.columnDef.header, header.getContext());
                   return (
-                    <th key={header.id} scope="col" aria-sort={canSort ? (sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none') : undefined} className={`${thClass} ${meta?.numeric ? 'text-right' : ''}`}>
-                      {canSort ? (
-                        <button type="button" onClick={() => onToggleSort(header.column.id as CompareSortKey)} className={`inline-flex items-center gap-1 rounded font-semibold hover:text-ink ${meta?.numeric ? 'flex-row-reverse' : ''}`}>
-                          <span>{content}</span>
-                          <span aria-hidden="true" className="w-3 text-xs">
-                            {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
-                          </span>
-                        </button>
-                      ) : (
-                        content
-                      )}
-                    </th>
+                    <SortableTh key={header.id} sorted={sorted} canSort={canSort} numeric={meta?.numeric} onToggle={() => onToggleSort(header.column.id as CompareSortKey)}>
+                      {content}
+                    </SortableTh>
                   );
                 })}
               </tr>

@@ -6,7 +6,7 @@ import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
 import { NOTATIONS, bandGrade, notationOf } from '../lib/grit-notation';
 import { paths } from '@/config/paths';
 import { Button } from '@/components/ui/button';
-import { Field, Input, Select } from '@/components/ui/field';
+import { Field, Input, Select, PageOptions } from '@/components/ui/field';
 import { ErrorState, Loading } from '@/components/ui/states';
 import { formatGritBand, formatNumber } from '@/lib/format';
 import { useCompare } from '../api/get-compare';
@@ -55,11 +55,7 @@ export function DecisionView({ steel, steelName, methods }: { steel: string; ste
       <form className="flex flex-wrap items-end gap-4 rounded-md border border-rule bg-panel p-4" onSubmit={(e) => e.preventDefault()} aria-label="What to decide about">
         <Field id="decide-method" label="Method" className="min-w-0 w-full sm:w-72">
           <Select id="decide-method" value={method?.slug ?? get('method') ?? ''} onChange={(e) => set({ method: e.target.value, a: undefined, b: undefined })}>
-            {methods.map((m) => (
-              <option key={m.slug} value={m.slug}>
-                {m.name}
-              </option>
-            ))}
+            <PageOptions pages={methods} />
           </Select>
         </Field>
         <Field id="decide-hrc-min" label="Hardness from, HRC" className="w-36">

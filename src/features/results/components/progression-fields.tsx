@@ -1,7 +1,7 @@
 import { useFieldArray, type Control, type FieldErrors, type UseFormRegister } from 'react-hook-form';
 import { PROGRESSION_MAX } from '@shared/progression';
 import { Button } from '@/components/ui/button';
-import { Field, Input, Select, controlA11y } from '@/components/ui/field';
+import { Field, Input, Select, controlA11y, PageOptions } from '@/components/ui/field';
 import type { AbrasiveSummary } from '@/types/api';
 import type { ResultInput } from '@shared/schemas/result';
 import type { ResultFormValues } from './result-form-values';
@@ -39,11 +39,7 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
               <Field id={`step-${i}-abrasive`} label={`Step ${i + 1}: abrasive`} error={abrasiveError}>
                 <Select {...controlA11y(`step-${i}-abrasive`, { error: abrasiveError })} {...register(`progression.${i}.abrasive`)}>
                   <option value="">Choose an abrasive…</option>
-                  {abrasives.map((a) => (
-                    <option key={a.slug} value={a.slug}>
-                      {a.name}
-                    </option>
-                  ))}
+                  <PageOptions pages={abrasives} />
                 </Select>
               </Field>
               <Field id={`step-${i}-grit`} label="Grit" aside="optional" error={gritError}>
