@@ -62,7 +62,7 @@ const OPTIONAL_COLUMNS: [string, string][] = [
   ['retention', 'Median cuts'],
   ['hrc', 'Hardness (HRC)'],
   ['angle', 'Angle per side'],
-  ['method', 'Method version'],
+  ['method', 'Method (its version)'],
 ];
 const COLUMNS_KEY = 'edgeledger.compare.columns';
 
