@@ -5,7 +5,7 @@
  * that name a progression. Pure: no I/O; page lookups are passed in.
  */
 import { z } from 'zod';
-import { slugSchema as slug } from './schemas/common';
+import { gritInputSchema, slugSchema as slug } from './schemas/common';
 import { ComputationError } from './computation-error';
 import { GRIT_STANDARDS, formatGrade, formatMicrometres, parseGrit, type GritStandard } from './grit';
 import { ABRASIVE_MATERIALS } from './vocabulary';
@@ -18,13 +18,7 @@ export const PROGRESSION_MAX = 8;
 export const progressionStepSchema = z
   .object({
     abrasive: slug,
-    grit: z
-      .object({
-        standard: z.enum(GRIT_STANDARDS).optional(),
-        grade: z.string().trim().min(1, 'required').max(40),
-      })
-      .strict()
-      .optional(),
+    grit: gritInputSchema.optional(),
     perSideDeg: z.number().gt(0, 'must be above 0°').max(60, 'must be at most 60° per side').optional(),
   })
   .strict();

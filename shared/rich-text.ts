@@ -132,15 +132,31 @@ export const richTextSchema = nodeSchema.superRefine((doc, ctx) => {
   }
 });
 
-/** Plain text of a document, for search and snippets. */
-export function richTextToPlain(doc: RichTextNode | null | undefined): string {
+/** Nodes that end a block of text: a heading never runs into the paragraph after it. */
+const TEXT_BLOCKS = new Set(['paragraph', 'heading', 'listItem', 'blockquote', 'codeBlock', 'tableCell', 'tableHeader']);
+
+/**
+ * Plain text of a document, for search, snippets and exports. Blocks are joined by a space, or
+ * with `keepBlocks` by " · " where the block before ends without a full stop (a heading, a list
+ * item), so "Heat treatment" and "Harden from 1 020 °C." read as two things, not one sentence.
+ */
+export function richTextToPlain(doc: RichTextNode | null | undefined, { keepBlocks = false }: { keepBlocks?: boolean } = {}): string {
   if (!doc) return '';
-  const out: string[] = [];
+  const blocks: string[] = [];
+  let current: string[] = [];
+  const endBlock = () => {
+    const text = current.join('').replace(/\s+/g, ' ').trim();
+    if (text) blocks.push(text);
+    current = [];
+  };
   const walk = (n: RichTextNode) => {
-    if (n.text) out.push(n.text);
+    if (n.text) current.push(n.text);
+    if (n.type === 'hardBreak') current.push(' ');
     for (const c of n.content ?? []) walk(c);
-    if (n.type === 'paragraph' || n.type === 'heading' || n.type === 'listItem') out.push(' ');
+    if (TEXT_BLOCKS.has(n.type)) endBlock();
   };
   walk(doc);
-  return out.join('').replace(/\s+/g, ' ').trim();
+  endBlock();
+  if (!keepBlocks) return blocks.join(' ');
+  return blocks.reduce((out, block) => (out ? `${out}${/[.!?:;…]$/.test(out) ? ' ' : ' · '}${block}` : block), '');
 }

@@ -11,7 +11,7 @@ export interface PageExtras {
   linkExists?: RenderOptions['linkExists'];
   /** Proposed revisions waiting for review on this page. */
   proposals?: number;
-  /** Approved results on this page, grouped (see queries/pages resultSummary). */
+  /** Approved results on this page, grouped (see queries/pages steelResults and abrasiveResults). */
   results?: unknown;
 }
 

@@ -134,6 +134,8 @@ export async function resultFilter(view: ResolvedView): Promise<ResultFilter> {
     createdBefore: f.postedTo ? Date.parse(`${f.postedTo}T00:00:00Z`) + DAY_MS : undefined,
     abrasiveIds: bonds ? new Set([...view.look.abrasives.values()].filter((a) => bonds.has(a.bond)).map((a) => a.id)) : null,
     publishers: f.publisher === true,
+    via: f.via ? new Set(f.via) : null,
+    steps: f.steps ? new Set(f.steps.map(Number)) : null,
   };
 }
 

@@ -2,6 +2,7 @@ import { fn, col, Op, type Transaction } from 'sequelize';
 import { parseSitePath, type RichTextNode } from '@shared/rich-text';
 import { normalizeFields, type PageContent, type PageType } from '@shared/schemas/pages';
 import { median } from '@shared/stats';
+import { commonProgressions, groupByMethodAndBand, type MethodBandGroup, type ProgressionGroup, type SteelResultRow } from '@shared/steel-results';
 import { changedFields } from '@shared/page-diff';
 import { Abrasive, Method, PAGE_TEXT_COLUMNS, PageEvent, PageRevision, Result, Steel, User } from '../models';
 import { notFound } from '../errors';
@@ -157,7 +158,7 @@ export async function linkCheckerFor(docs: (RichTextNode | null | undefined)[]):
   return (href) => known.has(href.split('#')[0]);
 }
 
-/** Approved results on a page, grouped: by abrasive material on a steel page, by steel on an abrasive page. */
+/** Approved results on an abrasive page, grouped by steel. */
 export interface ResultGroup {
   key: string;
   label: string;
@@ -170,42 +171,47 @@ export interface ResultGroup {
 }
 
 /**
- * The approved results on a steel (grouped by abrasive material) or an abrasive (grouped by
- * steel), most results first: count, best and median sharpness in grams.
+ * The approved results on an abrasive, grouped by steel, most results first: count, best and
+ * median sharpness in grams. (A steel's page groups by method and grit band: steelResults.)
  */
-export async function resultSummary(type: 'steel' | 'abrasive', pageId: number): Promise<{ count: number; groups: ResultGroup[] }> {
-  const { count, groups } = await cachedOverApproved(`summary:${type}:${pageId}`, () => approvedGroups(type, pageId));
-  // Steel names are read each time: a rename does not change the results.
-  const steelNames = new Map<string, { slug: string; name: string }>();
-  if (type === 'abrasive' && groups.length) {
-    for (const s of await Steel.findAll({ where: { id: { [Op.in]: groups.map((g) => Number(g.key)) } }, attributes: ['id', 'slug', 'name'] })) steelNames.set(String(s.id), { slug: s.slug, name: s.name });
-  }
-  const list = groups.map((g) => {
-    const steel = steelNames.get(g.key);
-    return { ...g, key: steel?.slug ?? g.key, label: steel?.name ?? g.key };
+export async function abrasiveResults(abrasiveId: number): Promise<{ count: number; groups: ResultGroup[] }> {
+  const { count, groups } = await cachedOverApproved(`summary:abrasive:${abrasiveId}`, async () => {
+    const rows = (await Result.findAll({ where: { status: 'approved', abrasiveId }, attributes: ['steelId', 'sharpnessMedianG'], raw: true })) as unknown as { steelId: number; sharpnessMedianG: number }[];
+    const bySteel = new Map<number, number[]>();
+    for (const r of rows) bySteel.set(r.steelId, [...(bySteel.get(r.steelId) ?? []), r.sharpnessMedianG]);
+    return { count: rows.length, groups: [...bySteel].map(([steelId, values]) => ({ steelId, n: values.length, bestG: Math.min(...values), medianG: Math.round(median(values) * 10) / 10 })) };
   });
+  // Steel names are read each time: a rename does not change the results.
+  const steels = new Map(groups.length ? (await Steel.findAll({ where: { id: { [Op.in]: groups.map((g) => g.steelId) } }, attributes: ['id', 'slug', 'name'] })).map((s) => [s.id, s]) : []);
+  const list = groups.map(({ steelId, ...g }) => ({ ...g, key: steels.get(steelId)?.slug ?? String(steelId), label: steels.get(steelId)?.name ?? String(steelId) }));
   list.sort((a, b) => b.n - a.n || a.label.localeCompare(b.label));
   return { count, groups: list };
 }
 
-/** The approved results on a page grouped by material (steel) or steel id (abrasive), unnamed. */
-async function approvedGroups(type: 'steel' | 'abrasive', pageId: number): Promise<{ count: number; groups: Omit<ResultGroup, 'label'>[] }> {
-  const rows = (await Result.findAll({
-    where: { status: 'approved', ...(type === 'steel' ? { steelId: pageId } : { abrasiveId: pageId }) },
-    attributes: ['material', 'steelId', 'sharpnessMedianG'],
-    raw: true,
-  })) as unknown as { material: string; steelId: number; sharpnessMedianG: number }[];
-  const groups = new Map<string, number[]>();
-  for (const r of rows) {
-    const key = type === 'steel' ? r.material : String(r.steelId);
-    let values = groups.get(key);
-    if (!values) groups.set(key, (values = []));
-    values.push(r.sharpnessMedianG);
-  }
-  return {
-    count: rows.length,
-    groups: [...groups].map(([key, values]) => ({ key, n: values.length, bestG: values.reduce((a, b) => Math.min(a, b), Infinity), medianG: Math.round(median(values) * 10) / 10 })),
-  };
+/** A steel's approved results by method, material and grit band, and its most common progressions, with the methods' names. */
+export interface SteelResults {
+  count: number;
+  groups: (MethodBandGroup & { method: { slug: string; name: string } })[];
+  progressions: (ProgressionGroup & { method: { slug: string; name: string } })[];
+}
+
+/** The approved results on a steel grouped by method and grit band (not all grits pooled per material), and its most common progressions. */
+export async function steelResults(steelId: number): Promise<SteelResults> {
+  const { count, groups, progressions } = await cachedOverApproved(`steel-results:${steelId}`, async () => {
+    const rows = (await Result.findAll({
+      where: { status: 'approved', steelId },
+      attributes: ['sharpnessMethodId', 'material', 'gritPhi', 'gritUm', 'sharpnessMedianG', 'authorId', 'progression'],
+      raw: true,
+    })) as unknown as SteelResultRow[];
+    // raw JSON columns come back as text on SQLite
+    for (const r of rows) if (typeof r.progression === 'string') r.progression = JSON.parse(r.progression) as SteelResultRow['progression'];
+    return { count: rows.length, groups: groupByMethodAndBand(rows), progressions: commonProgressions(rows) };
+  });
+  // Method names are read each time: a rename does not change the results.
+  const ids = [...new Set([...groups, ...progressions].map((g) => g.methodId))];
+  const methods = new Map((await Method.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'slug', 'name'] })).map((m) => [m.id, { slug: m.slug, name: m.name }]));
+  const named = <T extends { methodId: number }>(g: T) => ({ ...g, method: methods.get(g.methodId) ?? { slug: String(g.methodId), name: String(g.methodId) } });
+  return { count, groups: groups.map(named), progressions: progressions.map(named) };
 }
 
 /**

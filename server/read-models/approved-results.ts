@@ -5,6 +5,7 @@ import { keptUntil } from '../queries/kept-until';
 import { memberAttributes, type CellKey, type CellRecord } from '../aggregates/comparison-cells';
 import { changedCells } from '../aggregates/cell-cache';
 import { follow } from '../changes';
+import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
 
 /** The cells a commit changed, or all of them after a rebuild. */
 type CellChange = { keys: CellKey[] } | { all: true };
@@ -20,8 +21,16 @@ type CellChange = { keys: CellKey[] } | { all: true };
  */
 
 /** The attributes read per approved result. */
-const ATTRIBUTES = ['id', ...memberAttributes, 'abrasiveId', 'createdAt'] as const;
-type Row = BandedMember & { id: number; abrasiveId: number; createdAt: Date | string };
+const ATTRIBUTES = ['id', ...memberAttributes, 'abrasiveId', 'createdAt', 'progressionSteps', 'progressionMaterials'] as const;
+type Row = BandedMember & { id: number; abrasiveId: number; createdAt: Date | string; progressionSteps: number; progressionMaterials: string };
+
+/** A bit per abrasive material, for the materials a progression passed through. */
+const MATERIAL_BIT = new Map(Object.keys(ABRASIVE_MATERIALS).map((m, i) => [m, 1 << i]));
+const viaMask = (materials: Iterable<string>): number => {
+  let mask = 0;
+  for (const m of materials) mask |= MATERIAL_BIT.get(m) ?? 0;
+  return mask;
+};
 
 /** What one scan selects; each field left undefined selects every row. */
 export interface ResultFilter {
@@ -41,6 +50,10 @@ export interface ResultFilter {
   abrasiveIds?: ReadonlySet<number> | null;
   /** Only results by verified publishers. */
   publishers?: boolean;
+  /** Only results whose progression passed through one of these materials. */
+  via?: ReadonlySet<string> | null;
+  /** Only results with one of these numbers of steps before the final abrasive. */
+  steps?: ReadonlySet<number> | null;
 }
 
 const toMs = (d: Date | string): number => {
@@ -51,11 +64,11 @@ const toMs = (d: Date | string): number => {
 };
 
 const FLOAT_COLUMNS = ['gritUm', 'medianG', 'retention', 'hrc', 'angle', 'created'] as const;
-const INT_COLUMNS = ['id', 'method', 'steel', 'material', 'gritPhi', 'half', 'author', 'abrasive', 'cell'] as const;
+const INT_COLUMNS = ['id', 'method', 'steel', 'material', 'gritPhi', 'half', 'author', 'abrasive', 'cell', 'via', 'steps'] as const;
 type FloatColumn = (typeof FLOAT_COLUMNS)[number];
 type IntColumn = (typeof INT_COLUMNS)[number];
 
-/** The columns; `retention` is NaN where a result reports none; `cell` numbers the whole-φ cell key; `half` is 0 or 1, the half band inside it. */
+/** The columns; `retention` is NaN where a result reports none; `cell` numbers the whole-φ cell key; `half` is 0 or 1, the half band inside it; `via` has a bit per material the progression passed through (MATERIAL_BIT), `steps` its length. */
 class Columns {
   size = 0;
   f = {} as Record<FloatColumn, Float64Array>;
@@ -345,6 +358,8 @@ export class ApprovedResults {
     c.f.hrc[at] = r.hrc;
     c.f.angle[at] = r.perSideDeg;
     c.f.created[at] = toMs(r.createdAt);
+    c.i.via[at] = viaMask(r.progressionMaterials.split(','));
+    c.i.steps[at] = r.progressionSteps;
   }
 
   /** The ids of the accounts that are verified publishers (kept until an account changes). */
@@ -367,7 +382,7 @@ export class ApprovedResults {
   /** `cells`, once built: synchronous, so the scratch arrays are this call's alone. */
   private scan(filter: ResultFilter, step: 1 | 0.5, publishers: ReadonlySet<number> | null): CellRecord[] {
     const c = this.cols;
-    const { method, steel, material, gritPhi, half, author, abrasive, cell } = c.i;
+    const { method, steel, material, gritPhi, half, author, abrasive, cell, via, steps } = c.i;
     const { hrc, angle, created } = c.f;
     const steels = mask(filter.steelIds);
     const materials = filter.materials ? mask(new Set([...filter.materials].map((m) => this.materialNo.get(m) ?? -1))) : null;
@@ -389,6 +404,7 @@ export class ApprovedResults {
     const groups: { g: number; from: number; to: number }[] = [];
     let current = -1;
     let m = 0;
+    const through = filter.via ? viaMask(filter.via) : 0;
     for (let r = 0; r < c.size; r++) {
       if (method[r] !== methodId) continue;
       if (steels && steels[steel[r]] !== 1) continue;
@@ -399,6 +415,8 @@ export class ApprovedResults {
       if (!(created[r] >= from && created[r] < before)) continue;
       if (abrasives && abrasives[abrasive[r]] !== 1) continue;
       if (authors && authors[author[r]] !== 1) continue;
+      if (filter.via && !(via[r] & through)) continue;
+      if (filter.steps && !filter.steps.has(steps[r])) continue;
       const g = step === 1 ? cell[r] : 2 * cell[r] + half[r];
       if (g !== current) {
         if (groups.length) groups[groups.length - 1].to = m;

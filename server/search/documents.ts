@@ -1,11 +1,15 @@
 import { Op, QueryTypes } from 'sequelize';
 import { richTextToPlain, type RichTextNode } from '@shared/rich-text';
+
 import { ABRASIVE_MATERIALS, BONDS, STEEL_CATEGORIES } from '@shared/vocabulary';
 import { Abrasive, Method, PAGE_TEXT_COLUMNS, Result, Steel, User } from '../models';
 import type { SearchDoc } from './search-index';
 import { allCellDocs } from '../aggregates/cell-search';
 import { abrasiveOwner, memberOwner, methodOwner, steelOwner, type SearchOwner } from './owners';
 import { dialectSql } from '../db/dialect';
+
+/** Bodies keep their block boundaries, so a snippet never runs a heading into its paragraph. */
+const BLOCKS = { keepBlocks: true };
 
 const label = (table: Record<string, string>, key: string) => table[key] ?? key;
 
@@ -17,7 +21,7 @@ export function steelDoc(steel: Steel, aliases: string[] = []): SearchDoc {
     slug: steel.slug,
     title: steel.name,
     names: [...steel.designations.map((d) => `${d.system} ${d.code} ${d.code}`), label(STEEL_CATEGORIES, steel.category), ...aliases].join(' '),
-    body: richTextToPlain(steel.body),
+    body: richTextToPlain(steel.body, BLOCKS),
     group: steel.category,
   };
 }
@@ -30,7 +34,7 @@ export function abrasiveDoc(abrasive: Abrasive, aliases: string[] = []): SearchD
     slug: abrasive.slug,
     title: abrasive.name,
     names: [label(ABRASIVE_MATERIALS, abrasive.material), abrasive.material, label(BONDS, abrasive.bond), abrasive.gritGrade, `${Math.round(abrasive.gritUm)} µm`, ...aliases].join(' '),
-    body: richTextToPlain(abrasive.body),
+    body: richTextToPlain(abrasive.body, BLOCKS),
     group: abrasive.material,
   };
 }
@@ -43,7 +47,7 @@ export function methodDoc(method: Method, aliases: string[] = []): SearchDoc {
     slug: method.slug,
     title: method.name,
     names: [method.instrument, method.medium, method.retentionMedium ?? '', `version ${method.version}`, ...aliases].join(' '),
-    body: richTextToPlain(method.body),
+    body: richTextToPlain(method.body, BLOCKS),
   };
 }
 
@@ -75,7 +79,7 @@ export function resultDoc(result: ResultFacts, owners: SearchOwner[] = resultOwn
       Math.round(result.sharpnessMedianG), ' g', result.author ? ` · @${result.author.handle}` : '',
     ].join(''),
     names: '',
-    body: richTextToPlain(result.input.notes),
+    body: richTextToPlain(result.input.notes, BLOCKS),
     owners,
   };
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { limits } from '../validations';
+import { GRIT_STANDARDS } from '../grit';
 
 /** The query of a route that takes none: any parameter is an unknown field, refused with 400. */
 export const emptyQuerySchema = z.object({}).strict();
@@ -17,3 +18,11 @@ export const idParams = z.object({ id: z.coerce.number().int().positive() }).str
 
 /** The path of a route that names a member by handle (`/profiles/:handle`). */
 export const handleParams = z.object({ handle: z.string().min(1).max(limits.handleMax).regex(/^[a-z0-9-]+$/, 'not a handle') }).strict();
+
+/** A grit as entered: the grade, optionally with its standard (else worked out from the grade). */
+export const gritInputSchema = z
+  .object({
+    standard: z.enum(GRIT_STANDARDS).optional(),
+    grade: z.string().trim().min(1, 'required').max(40),
+  })
+  .strict();

@@ -2,10 +2,10 @@ import { z } from 'zod';
 import { limits } from '../validations';
 import { richTextSchema } from '../rich-text';
 import { ComputationError } from '../computation-error';
-import { GRIT_STANDARDS, parseGrit } from '../grit';
+import { parseGrit } from '../grit';
 import { HARDNESS_SCALES, toHrc } from '../hardness';
 import { angleFromSetup } from '../geometry';
-import { slugSchema } from './common';
+import { gritInputSchema, slugSchema } from './common';
 import { checkProgressionGrits, progressionSchema } from '../progression';
 
 /** A page's slug (in ./common.ts, so that shared/progression.ts can use it without a cycle). */
@@ -51,13 +51,7 @@ export const resultInputSchema = z
     /** The steps before the final abrasive (shared/progression.ts). */
     progression: progressionSchema.optional(),
     abrasive: slugSchema,
-    grit: z
-      .object({
-        standard: z.enum(GRIT_STANDARDS).optional(),
-        grade: z.string().trim().min(1, 'required').max(40),
-      })
-      .strict()
-      .optional(),
+    grit: gritInputSchema.optional(),
     edgeAngle: edgeAngleSchema,
     sharpness: z
       .object({

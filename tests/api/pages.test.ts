@@ -67,7 +67,51 @@ describe('GET a page', () => {
     const asModerator = await get('/api/steels/aisi-d2', moderator);
     expect(asModerator.body.can).toEqual({ edit: true, publish: true, revert: true, protect: true, merge: true });
     expect(res.body.results.count).toBeGreaterThan(0);
-    expect(res.body.results.groups[0]).toEqual(expect.objectContaining({ key: expect.any(String), n: expect.any(Number), bestG: expect.any(Number), medianG: expect.any(Number) }));
+  });
+
+  it('groups a steel’s results by method, material and whole-φ grit band, and lists its common progressions with their medians', async () => {
+    const body = (await get('/api/steels/aisi-d2')).body.results as {
+      count: number;
+      groups: { method: { slug: string }; material: string; band: { loUm: number; hiUm: number }; n: number; bestG: number; medianG: number }[];
+      progressions: { method: { slug: string }; words: string; steps: number; n: number; medianG: number }[];
+    };
+    // Recomputed here from the rows: band edges 1000 · 2^−φ µm (decision 003), the median the
+    // middle value or the mean of the two middle ones (the textbook definition).
+    const steel = (await Steel.findOne({ where: { slug: 'aisi-d2' } }))!;
+    const rows = await Result.findAll({ where: { status: 'approved', steelId: steel.id }, include: ['sharpnessMethod'] });
+    expect(body.count).toBe(rows.length);
+    expect(body.groups.reduce((s, g) => s + g.n, 0)).toBe(rows.length);
+    const middle = (xs: number[]) => {
+      const v = [...xs].sort((a, b) => a - b);
+      return v.length % 2 ? v[(v.length - 1) / 2] : (v[v.length / 2 - 1] + v[v.length / 2]) / 2;
+    };
+    for (const g of body.groups) {
+      const mine = rows.filter((r) => r.sharpnessMethod!.slug === g.method.slug && r.material === g.material && Math.abs(1000 * 2 ** -r.gritPhi - g.band.hiUm) < 1e-9);
+      expect(mine.length, JSON.stringify(g)).toBe(g.n);
+      expect(mine.every((r) => r.gritUm > g.band.loUm && r.gritUm <= g.band.hiUm * (1 + 1e-9))).toBe(true);
+      expect(g.medianG).toBeCloseTo(middle(mine.map((r) => r.sharpnessMedianG)), 1);
+      expect(g.bestG).toBe(Math.min(...mine.map((r) => r.sharpnessMedianG)));
+    }
+    // No group pools two bands of one material under one method.
+    const keys = body.groups.map((g) => `${g.method.slug}|${g.material}|${g.band.loUm}`);
+    expect(new Set(keys).size).toBe(keys.length);
+    // The progressions: only results that recorded steps, most common first, each count and median recomputed.
+    const withSteps = rows.filter((r) => r.progression.length > 0);
+    const byProgression = new Map<string, number[]>();
+    for (const r of withSteps) {
+      const key = `${r.sharpnessMethodId}|${JSON.stringify(r.progression.map((p) => [p.material, p.gritUm]))}|${r.material}|${r.gritUm}`;
+      byProgression.set(key, [...(byProgression.get(key) ?? []), r.sharpnessMedianG]);
+    }
+    expect(body.progressions.length).toBeGreaterThan(0);
+    expect(body.progressions.length).toBe(Math.min(5, byProgression.size));
+    // The counts of the most common ones, in order, and each median among the groups' medians of that count.
+    const counts = [...byProgression.values()].map((v) => v.length).sort((a, b) => b - a);
+    expect(body.progressions.map((p) => p.n)).toEqual(counts.slice(0, body.progressions.length));
+    for (const p of body.progressions) {
+      expect(p.words.split(' → ')).toHaveLength(p.steps + 1);
+      const candidates = [...byProgression.values()].filter((v) => v.length === p.n).map((v) => Math.round(middle(v) * 10) / 10);
+      expect(candidates).toContain(p.medianG);
+    }
   });
 });
 

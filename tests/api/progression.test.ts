@@ -98,8 +98,7 @@ describe('a result’s progression', () => {
     expect(rows.slice(1).map((r) => r[col])).toContain(`${COARSE} > ${CBN} (iso6106 B64, 14.5°)`);
   });
 
-  // Known failure after this round's merge: the comparison's in-memory read model (server/read-models/approved-results.ts) does not yet carry the progression filters (via, steps). Un-skip once it does (issue 16).
-  it.skip('narrows the comparison to results reached through a material or with a number of steps', async () => {
+  it('narrows the comparison to results reached through a material or with a number of steps', async () => {
     const view = async (qs: string) => (await request(server.url).get(`/api/compare?method=push-cut-test-v2&pageSize=5000&${qs}`).expect(200)).body as { rows: { n: number }[]; source: string };
     const sum = (b: { rows: { n: number }[] }) => b.rows.reduce((s, r) => s + r.n, 0);
     // Recomputed here from what was entered: each step's abrasive page and its material.

@@ -85,6 +85,9 @@ async function combinations(seed: number, count: number): Promise<CompareQuery[]
     }
     if ((live >= 0.75 && live < 0.9) || rand() < 0.15) q.bond = some(Object.keys(BONDS), 2).join(',');
     if (live >= 0.9 || rand() < 0.15) q.publisher = '1';
+    // The progression filters (issue 16): materials passed through, number of steps.
+    if (rand() < 0.15) q.via = some(Object.keys(ABRASIVE_MATERIALS), 2).join(',');
+    if (rand() < 0.15) q.steps = some(['0', '1', '2', '3'], 2).join(',');
     const parsed = compareQuerySchema.safeParse(q);
     if (parsed.success) out.push(parsed.data);
   }

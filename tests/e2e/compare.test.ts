@@ -40,8 +40,15 @@ describe('the comparison in a browser', () => {
     await rowsText();
     await page.getByLabel('Method version').selectOption('push-cut-test-v2');
     await page.waitForURL(/method=push-cut-test-v2/);
-    await page.getByLabel('Steel').first().selectOption(['aisi-d2', 'aisi-52100', 'aisi-o1']);
-    await page.waitForURL(/steel=/);
+    // The steel chooser: type, Enter on the option found; each choice becomes a chip.
+    const steel = page.getByRole('combobox', { name: /^Steel\b/ });
+    for (const [typed, name] of [['d2', 'AISI D2'], ['52100', 'AISI 52100'], ['O1', 'AISI O1']]) {
+      await steel.fill(typed);
+      await page.getByRole('option', { name, exact: true }).waitFor();
+      await steel.press('Enter');
+      await page.getByRole('button', { name: `Remove ${name}` }).waitFor();
+    }
+    await page.waitForURL(/steel=.*aisi-o1/);
     await page.getByLabel('Hardness from').fill('57');
     await page.waitForURL(/hrcMin=57/);
     // sort by the median, descending (two presses: ascending, then descending)
@@ -61,7 +68,7 @@ describe('the comparison in a browser', () => {
     await expect.poll(async () => (await rowsText()).every((t) => /AISI D2|AISI 52100|AISI O1/.test(t))).toBe(true);
     await page.getByText(/hardness filter needs each result/).waitFor();
     // The sorted rows arrive with the refetch after the URL changes: poll rather than read once.
-    const medians = () => table().locator('tbody tr').evaluateAll((rows) => rows.map((r) => Number((r.children[6] as HTMLElement).innerText.replace(/[^\d.]/g, ''))));
+    const medians = () => table().locator('tbody tr').evaluateAll((rows) => rows.map((r) => Number((r.querySelector('td[data-label="Median g"]') as HTMLElement).innerText.replace(/[^\d.]/g, ''))));
     await expect.poll(async () => {
       const m = await medians();
       return m.length > 1 && m.every((v, i) => i === 0 || v <= m[i - 1]);
@@ -75,8 +82,8 @@ describe('the comparison in a browser', () => {
     await rowsText();
     expect(page.url()).toBe(url);
     expect(await page.getByLabel('Method version').inputValue()).toBe('push-cut-test-v2');
-    const chosen = await page.getByLabel('Steel').first().evaluate((el) => [...(el as HTMLSelectElement).selectedOptions].map((o) => o.value).sort());
-    expect(chosen).toEqual(['aisi-52100', 'aisi-d2', 'aisi-o1']);
+    const chips = await page.getByRole('list', { name: 'Steel: chosen' }).getByRole('button').evaluateAll((bs) => bs.map((b) => b.getAttribute('aria-label')).sort());
+    expect(chips).toEqual(['Remove AISI 52100', 'Remove AISI D2', 'Remove AISI O1']);
     expect(await page.getByLabel('Hardness from').inputValue()).toBe('57');
     expect(await table().getByRole('columnheader', { name: /Median g/ }).getAttribute('aria-sort')).toBe('descending');
     expect(await rowsText()).toEqual(before);

@@ -7,6 +7,10 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startE2eApp, type E2eApp } from '../setup/e2e-app';
+import { overlaps as overlapsOn, sidewaysOverflow as overflowOf } from '../setup/layout';
+
+const overlaps = (selector: string) => overlapsOn(page, selector);
+const sidewaysOverflow = () => overflowOf(page);
 
 let app: E2eApp;
 let base = '';
@@ -19,23 +23,6 @@ beforeAll(async () => {
 }, 90_000);
 
 afterAll(() => app?.stop(), 30_000);
-
-/** Boxes of the given elements that overlap another's, as pairs of their texts. */
-async function overlaps(selector: string): Promise<string[]> {
-  return page.$$eval(selector, (els) => {
-    const boxes = els.map((e) => ({ text: e.textContent ?? '', r: e.getBoundingClientRect() })).filter((b) => b.r.width > 0);
-    const out: string[] = [];
-    for (let i = 0; i < boxes.length; i++)
-      for (let j = i + 1; j < boxes.length; j++) {
-        const [a, b] = [boxes[i].r, boxes[j].r];
-        if (a.left < b.right - 0.5 && b.left < a.right - 0.5 && a.top < b.bottom - 0.5 && b.top < a.bottom - 0.5) out.push(`${boxes[i].text} / ${boxes[j].text}`);
-      }
-    return out;
-  });
-}
-
-/** How far the page is wider than the window (0 when nothing overflows sideways). */
-const sidewaysOverflow = () => page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
 
 describe.each([
   ['desktop', 1280, 900],

@@ -91,7 +91,7 @@ export default function SearchRoute() {
         ) : results.data.hits.length === 0 ? (
           <Empty title={`Nothing found for “${q}”`}>Try fewer letters, another designation of the same steel, or a grit.</Empty>
         ) : (
-          <SearchHits hits={results.data.hits} query={q} facets={results.data.facets} />
+          <SearchHits hits={results.data.hits} query={q} facets={results.data.facets} typeHref={type ? undefined : typeHref} />
         )}
       </div>
     </div>

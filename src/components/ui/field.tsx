@@ -68,6 +68,15 @@ export function Select({ className = '', ...rest }: SelectHTMLAttributes<HTMLSel
   return <select className={`${control} pr-8 ${className}`} {...rest} />;
 }
 
+/** The options of a select of pages (steels, abrasives, methods): value the slug, text the name. */
+export function PageOptions({ pages }: { pages: readonly { slug: string; name: string }[] }) {
+  return pages.map((p) => (
+    <option key={p.slug} value={p.slug}>
+      {p.name}
+    </option>
+  ));
+}
+
 /** A multi-line text box styled for Edgeledger. */
 export function Textarea({ className = '', ...rest }: TextareaHTMLAttributes<HTMLTextAreaElement> & { ref?: Ref<HTMLTextAreaElement> }) {
   return <textarea className={`${control} min-h-24 ${className}`} {...rest} />;

@@ -2,11 +2,12 @@ import type { ReactNode } from 'react';
 
 /**
  * The frame every table sits in: on a narrow screen it scrolls sideways inside its own box
- * (keyboard-scrollable, named for screen readers) instead of squeezing the columns.
+ * (keyboard-scrollable, named for screen readers) instead of squeezing the columns; it is
+ * positioned, so visually hidden text inside it (sr-only) cannot widen the page.
  */
 export function TableFrame({ label, children }: { label: string; children: ReactNode }) {
   return (
-    <div role="region" aria-label={label} tabIndex={0} className="overflow-x-auto rounded-md border border-rule bg-panel">
+    <div role="region" aria-label={label} tabIndex={0} className="relative overflow-x-auto rounded-md border border-rule bg-panel">
       {children}
     </div>
   );

@@ -12,6 +12,27 @@ import {
 // Re-exported so pages that build plain tables can keep importing them from here.
 export { TableFrame, tdClass, thClass };
 
+/**
+ * A column header that sorts on a press (a real button, so Enter and Space work) and says its
+ * order through aria-sort; without `canSort`, a plain header.
+ */
+export function SortableTh({ sorted, canSort, numeric, onToggle, children }: { sorted: false | 'asc' | 'desc'; canSort: boolean; numeric?: boolean; onToggle?: (event: unknown) => void; children: ReactNode }) {
+  return (
+    <th scope="col" aria-sort={canSort ? (sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none') : undefined} className={`${thClass} ${numeric ? 'text-right' : ''}`}>
+      {canSort ? (
+        <button type="button" onClick={onToggle} className={`inline-flex items-center gap-1 rounded font-semibold hover:text-ink ${numeric ? 'flex-row-reverse' : ''}`}>
+          <span>{children}</span>
+          <span aria-hidden="true" className="w-3 text-xs">
+            {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
+          </span>
+        </button>
+      ) : (
+        children
+      )}
+    </th>
+  );
+}
+
 /** Column settings read by DataTable beyond TanStack's own. */
 export interface ColumnMetaInfo {
   /** Right-aligns numbers so digits line up. */
@@ -61,27 +82,9 @@ export function DataTable<T>({ label, caption, data, columns, initialSorting = [
                 const canSort = header.column.getCanSort();
                 const content = header.isPlaceholder ? null : flexRender(header.column.columnDef.header, header.getContext());
                 return (
-                  <th
-                    key={header.id}
-                    scope="col"
-                    aria-sort={canSort ? (sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none') : undefined}
-                    className={`${thClass} ${meta?.numeric ? 'text-right' : ''}`}
-                  >
-                    {canSort ? (
-                      <button
-                        type="button"
-                        onClick={header.column.getToggleSortingHandler()}
-                        className={`inline-flex items-center gap-1 rounded font-semibold hover:text-ink ${meta?.numeric ? 'flex-row-reverse' : ''}`}
-                      >
-                        <span>{content}</span>
-                        <span aria-hidden="true" className="w-3 text-xs">
-                          {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
-                        </span>
-                      </button>
-                    ) : (
-                      content
-                    )}
-                  </th>
+                  <SortableTh key={header.id} sorted={sorted} canSort={canSort} numeric={meta?.numeric} onToggle={header.column.getToggleSortingHandler()}>
+                    {content}
+                  </SortableTh>
                 );
               })}
             </tr>

@@ -43,7 +43,8 @@ import {
   listMethods,
   listSteels,
   proposalCounts,
-  resultSummary,
+  abrasiveResults,
+  steelResults,
   revisionsOf,
   survivorOf,
   type PageModel,
@@ -84,11 +85,11 @@ async function presentPage(type: PageType, page: PageModel, viewer: Actor | null
   const [linkExists, proposals] = await Promise.all([linkCheckerFor([page.body]), proposalCounts(type)]);
   const extras = { viewer, linkExists, proposals: proposals.get(page.id) ?? 0 };
   if (type === 'steel') {
-    const results = await resultSummary('steel', page.id);
+    const results = await steelResults(page.id);
     return presentSteel(page as Steel, results.count, { ...extras, results });
   }
   if (type === 'abrasive') {
-    const results = await resultSummary('abrasive', page.id);
+    const results = await abrasiveResults(page.id);
     return presentAbrasive(page as Abrasive, results.count, { ...extras, results });
   }
   // Every method, for the version chain and the slugs it names: without their bodies.

@@ -1,10 +1,10 @@
-import { useMemo, type ReactNode } from 'react';
+import { useEffect, useMemo, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { CartesianGrid, Legend, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis } from 'recharts';
 import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
 import { median } from '@shared/stats';
 import { paths } from '@/config/paths';
-import { Select } from '@/components/ui/field';
+import { Field, Select } from '@/components/ui/field';
 import { Empty, ErrorState, Loading } from '@/components/ui/states';
 import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
 import { formatNumber } from '@/lib/format';
@@ -25,14 +25,56 @@ export const MATERIAL_STYLE: Record<string, { colour: string; shape: 'circle' | 
   'natural-stone': { colour: '#7a5c3e', shape: 'cross' },
 };
 const labelOf = (m: string) => ABRASIVE_MATERIALS[m as keyof typeof ABRASIVE_MATERIALS] ?? m;
+/** Height of one abrasive's row in the spread chart: the chart grows with its rows, so names never crowd. */
+const ROW_PX = 30;
 const LOG_TICKS = [0.25, 0.5, 1, 2, 4, 8, 16, 32, 64, 128, 256, 512, 1024];
 
-function ChartFrame({ title, caption, children, fallback }: { title: string; caption: ReactNode; children: ReactNode; fallback: ReactNode }) {
+/** Whether the screen is narrower than the md breakpoint (a phone), following its changes. */
+function useNarrow(): boolean {
+  const query = '(max-width: 767px)';
+  const [narrow, setNarrow] = useState(() => window.matchMedia(query).matches);
+  useEffect(() => {
+    const list = window.matchMedia(query);
+    const on = () => setNarrow(list.matches);
+    list.addEventListener('change', on);
+    return () => list.removeEventListener('change', on);
+  }, []);
+  return narrow;
+}
+
+/** Room for a tick label of `px` pixels at about 9 px a character (13 px text, wide glyphs and the ellipsis included). */
+const charsIn = (px: number) => Math.max(6, Math.floor(px / 9));
+const shorten = (text: string, chars: number) => (text.length <= chars ? text : `${text.slice(0, chars - 1).trimEnd()}…`);
+
+/**
+ * A category tick on the spread chart's axis: the abrasive's name shortened to the room there
+ * is, the whole name on hover (its title) and on focus (it is focusable and named by it).
+ */
+function NameTick({ x, y, payload, names, width }: { x?: number; y?: number; payload?: { value: number }; names: string[]; width: number }) {
+  const name = names[payload?.value ?? -1] ?? '';
   return (
-    <section className="flex flex-col gap-2 rounded-md border border-rule bg-panel p-4">
+    <g transform={`translate(${x ?? 0},${y ?? 0})`} tabIndex={0} aria-label={name} className="outline-none focus:[&>text]:fill-accent-strong focus:[&>text]:underline">
+      <title>{name}</title>
+      <text x={-6} y={0} dy="0.32em" textAnchor="end" fontSize={13} fill="#4a4f57">
+        {shorten(name, charsIn(width - 10))}
+      </text>
+    </g>
+  );
+}
+
+/** Axis titles sit in their own band beside the tick labels, never on them. */
+const X_AXIS_HEIGHT = 48;
+/** The legend keeps clear of the top tick label. */
+const LEGEND_STYLE = { paddingBottom: 10 };
+const Y_AXIS_WIDTH = 64;
+
+function ChartFrame({ title, caption, children, fallback, height = 320, controls }: { title: string; caption: ReactNode; children: ReactNode; fallback: ReactNode; height?: number; controls?: ReactNode }) {
+  return (
+    <section className="flex min-w-0 flex-col gap-2 rounded-md border border-rule bg-panel p-4">
       <h2 className="font-serif text-xl">{title}</h2>
       <p className="text-sm text-muted">{caption}</p>
-      <div className="h-80 w-full" role="img" aria-label={`${title}: chart; the same data is in the table below it`}>
+      {controls}
+      <div className="w-full" style={{ height }} role="img" aria-label={`${title}: chart; the same data is in the table below it`}>
         {children}
       </div>
       <details>
@@ -117,6 +159,9 @@ function PointsTable({ data, points, columns }: { data: ComparePointsResponse; p
  */
 export default function CompareCharts({ filters, chartSteel, onChartSteel }: { filters: CompareFilters; chartSteel?: string; onChartSteel: (slug: string | undefined) => void }) {
   const points = useComparePoints(filters);
+  const narrow = useNarrow();
+  // The abrasive names' band: a third of a phone's width, 220 px beside a wide chart.
+  const nameWidth = narrow ? 120 : 220;
   const data = points.data;
   const steelsInView = useMemo(() => (data ? Object.entries(data.steels).sort((a, b) => a[1].localeCompare(b[1])) : []), [data]);
   const steel = chartSteel && data?.steels[chartSteel] ? chartSteel : steelsInView[0]?.[0];
@@ -152,13 +197,13 @@ export default function CompareCharts({ filters, chartSteel, onChartSteel }: { f
         fallback={<PointsTable data={data} points={data.points} columns={['um', 'g']} />}
       >
         <ResponsiveContainer width="100%" height="100%">
-          <ScatterChart margin={{ top: 10, right: 20, bottom: 30, left: 10 }}>
+          <ScatterChart margin={{ top: 10, right: 16, bottom: 6, left: 0 }}>
             <CartesianGrid stroke="#d9d4c7" strokeDasharray="3 3" />
-            <XAxis type="number" dataKey="gritUm" name="Particle size" unit=" µm" scale="log" domain={domain} ticks={LOG_TICKS.filter((t) => t >= domain[0] && t <= domain[1])} allowDataOverflow label={{ value: 'Particle size, µm (log scale)', position: 'insideBottom', offset: -15 }} />
-            <YAxis type="number" dataKey="medianG" name="Median" unit=" g" label={{ value: 'Median force, g', angle: -90, position: 'insideLeft' }} />
+            <XAxis type="number" dataKey="gritUm" name="Particle size" scale="log" domain={domain} ticks={LOG_TICKS.filter((t) => t >= domain[0] && t <= domain[1])} allowDataOverflow height={X_AXIS_HEIGHT} label={{ value: narrow ? 'Particle size, µm (log)' : 'Particle size, µm (log scale)', position: 'insideBottom', offset: 0 }} />
+            <YAxis type="number" dataKey="medianG" name="Median" width={Y_AXIS_WIDTH} label={{ value: 'Median force, g', angle: -90, position: 'insideLeft', offset: 12, style: { textAnchor: 'middle' } }} />
             <ZAxis range={[28, 28]} />
             <Tooltip content={({ payload }) => <PointTip data={data} point={payload?.[0]?.payload as ComparePoint | undefined} />} />
-            <Legend verticalAlign="top" />
+            <Legend verticalAlign="top" wrapperStyle={LEGEND_STYLE} />
             {byMaterial(data.points).map(([m, list]) => (
               <Scatter key={m} name={labelOf(m)} data={list} fill={MATERIAL_STYLE[m]?.colour ?? '#1f2328'} shape={MATERIAL_STYLE[m]?.shape ?? 'circle'} isAnimationActive={false} fillOpacity={0.75} />
             ))}
@@ -168,18 +213,18 @@ export default function CompareCharts({ filters, chartSteel, onChartSteel }: { f
 
       <ChartFrame
         title="Spread per abrasive, for one steel"
-        caption={
-          <span className="flex flex-wrap items-center gap-2">
-            <span>Each dot is one result on</span>
-            <Select aria-label="Steel for the spread chart" className="w-auto py-1" value={steel ?? ''} onChange={(e) => onChartSteel(e.target.value || undefined)}>
+        caption={`Each dot is one result on ${steel ? data.steels[steel] : 'the chosen steel'}; the cross marks each abrasive’s median. Abrasives are ordered keenest first; a name too long for its row is shortened, the whole name shows on hover and focus and in the table below.`}
+        height={strip ? Math.max(200, strip.abrasives.length * ROW_PX + 110) : 200}
+        controls={
+          <Field id="chart-steel" label="Steel for this chart" className="max-w-xs">
+            <Select id="chart-steel" value={steel ?? ''} onChange={(e) => onChartSteel(e.target.value || undefined)}>
               {steelsInView.map(([slug, name]) => (
                 <option key={slug} value={slug}>
                   {name}
                 </option>
               ))}
             </Select>
-            <span>; the cross marks each abrasive’s median. Abrasives are ordered keenest first.</span>
-          </span>
+          </Field>
         }
         fallback={
           strip ? (
@@ -214,17 +259,17 @@ export default function CompareCharts({ filters, chartSteel, onChartSteel }: { f
       >
         {strip ? (
           <ResponsiveContainer width="100%" height="100%">
-            <ScatterChart margin={{ top: 10, right: 20, bottom: 30, left: 10 }}>
+            <ScatterChart margin={{ top: 10, right: 16, bottom: 6, left: 0 }}>
               <CartesianGrid stroke="#d9d4c7" strokeDasharray="3 3" />
-              <XAxis type="number" dataKey="medianG" name="Median" unit=" g" label={{ value: 'Median force, g', position: 'insideBottom', offset: -15 }} />
+              <XAxis type="number" dataKey="medianG" name="Median" height={X_AXIS_HEIGHT} label={{ value: 'Median force, g', position: 'insideBottom', offset: 0 }} />
               <YAxis
                 type="number"
                 dataKey="row"
                 name="Abrasive"
-                width={200}
+                width={nameWidth}
+                tick={<NameTick names={strip.abrasives.map((a) => a.name)} width={nameWidth} />}
                 domain={[-0.6, strip.abrasives.length - 0.4]}
                 ticks={strip.abrasives.map((_, i) => i)}
-                tickFormatter={(i: number) => strip.abrasives[i]?.name ?? ''}
                 reversed
                 interval={0}
               />
@@ -234,7 +279,7 @@ export default function CompareCharts({ filters, chartSteel, onChartSteel }: { f
                 <Scatter key={m} name={labelOf(m)} data={list} fill={MATERIAL_STYLE[m]?.colour ?? '#1f2328'} shape={MATERIAL_STYLE[m]?.shape ?? 'circle'} fillOpacity={0.6} isAnimationActive={false} />
               ))}
               <Scatter name="Median" data={strip.medians} fill="#1f2328" shape="cross" isAnimationActive={false} />
-              <Legend verticalAlign="top" />
+              <Legend verticalAlign="top" wrapperStyle={LEGEND_STYLE} />
             </ScatterChart>
           </ResponsiveContainer>
         ) : null}
@@ -247,13 +292,13 @@ export default function CompareCharts({ filters, chartSteel, onChartSteel }: { f
       >
         {withCuts.length ? (
           <ResponsiveContainer width="100%" height="100%">
-            <ScatterChart margin={{ top: 10, right: 20, bottom: 30, left: 10 }}>
+            <ScatterChart margin={{ top: 10, right: 16, bottom: 6, left: 0 }}>
               <CartesianGrid stroke="#d9d4c7" strokeDasharray="3 3" />
-              <XAxis type="number" dataKey="hrc" name="Hardness" unit=" HRC" domain={['dataMin - 0.5', 'dataMax + 0.5']} label={{ value: 'Hardness, HRC', position: 'insideBottom', offset: -15 }} />
-              <YAxis type="number" dataKey="retentionCuts" name="Cuts" label={{ value: 'Cuts', angle: -90, position: 'insideLeft' }} />
+              <XAxis type="number" dataKey="hrc" name="Hardness" domain={['dataMin - 0.5', 'dataMax + 0.5']} height={X_AXIS_HEIGHT} label={{ value: 'Hardness, HRC', position: 'insideBottom', offset: 0 }} />
+              <YAxis type="number" dataKey="retentionCuts" name="Cuts" width={Y_AXIS_WIDTH} label={{ value: 'Cuts', angle: -90, position: 'insideLeft', offset: 12, style: { textAnchor: 'middle' } }} />
               <ZAxis range={[28, 28]} />
               <Tooltip content={({ payload }) => <PointTip data={data} point={payload?.[0]?.payload as ComparePoint | undefined} />} />
-              <Legend verticalAlign="top" />
+              <Legend verticalAlign="top" wrapperStyle={LEGEND_STYLE} />
               {byMaterial(withCuts).map(([m, list]) => (
                 <Scatter key={m} name={labelOf(m)} data={list} fill={MATERIAL_STYLE[m]?.colour ?? '#1f2328'} shape={MATERIAL_STYLE[m]?.shape ?? 'circle'} fillOpacity={0.75} isAnimationActive={false} />
               ))}

@@ -5,6 +5,9 @@ import { SHRINKAGE_PSEUDO_RESULTS, shrinkageShare } from '@shared/compare-shrink
 import { paths } from '@/config/paths';
 import { PageTitle } from '@/components/ui/page-title';
 import { Button, buttonClasses } from '@/components/ui/button';
+import { Select } from '@/components/ui/field';
+import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
+import { NOTATIONS, notationOf } from '../lib/grit-notation';
 import { Empty, ErrorState, Loading } from '@/components/ui/states';
 import { ErrorBoundary } from '@/components/errors/error-boundary';
 import { formatNumber } from '@/lib/format';
@@ -30,6 +33,8 @@ const LIVE_WORDS: Record<string, string> = {
   publisher: 'publishers only',
   postedFrom: 'posting date',
   postedTo: 'posting date',
+  via: 'progression',
+  steps: 'progression',
 };
 
 const VIEWS: { id: CompareViewMode; label: string }[] = [
@@ -73,6 +78,7 @@ export default function ComparePage() {
   const page = Number(params.page ?? 1);
   const pages = data ? Math.max(1, Math.ceil(data.total / data.pageSize)) : 1;
   const ranked = params.sort === 'ranked' || params.sort === '-ranked';
+  const notation = notationOf(params.notation);
   const live = data ? [...new Set(data.liveFilters.map((k) => LIVE_WORDS[k] ?? k))] : [];
 
   return (
@@ -97,6 +103,16 @@ export default function ComparePage() {
           ))}
         </div>
         <div className="inline-flex flex-wrap items-center gap-2">
+          <label className="inline-flex items-center gap-2 text-sm">
+            <span>Grit written as</span>
+            <Select className="w-auto! py-1" value={notation} onChange={(e) => update({ notation: e.target.value === 'jis' ? undefined : e.target.value }, { keepPage: true })}>
+              {NOTATIONS.map((n) => (
+                <option key={n} value={n}>
+                  µm and {GRIT_STANDARD_SHORT_LABELS[n]}
+                </option>
+              ))}
+            </Select>
+          </label>
           <Button size="sm" variant={ranked ? 'primary' : 'secondary'} aria-pressed={ranked} onClick={() => update({ sort: ranked ? undefined : 'ranked' })}>
             Ranked order
           </Button>
@@ -159,7 +175,7 @@ export default function ComparePage() {
           <CompareGrid rows={data!.rows} onOpenCell={onOpenCell} openCell={params.cell} />
         ) : (
           <>
-            <CompareTable rows={data!.rows} sort={params.sort} onToggleSort={(column) => update((current) => ({ sort: nextSort(current.get('sort') ?? undefined, column) }))} openCell={params.cell} onOpenCell={onOpenCell} pair={{ a: params.a, b: params.b }} onPair={onPair} />
+            <CompareTable rows={data!.rows} sort={params.sort} onToggleSort={(column) => update((current) => ({ sort: nextSort(current.get('sort') ?? undefined, column) }))} openCell={params.cell} onOpenCell={onOpenCell} pair={{ a: params.a, b: params.b }} onPair={onPair} notation={notation} ranked={ranked} />
             {pages > 1 ? (
               <nav aria-label="Pages of the comparison" className="mt-3 flex items-center gap-3 text-sm">
                 <Button size="sm" variant="secondary" disabled={page <= 1} onClick={() => update({ page: page - 1 > 1 ? String(page - 1) : undefined })}>

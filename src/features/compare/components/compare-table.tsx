@@ -1,13 +1,16 @@
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState, type VisibilityState } from '@tanstack/react-table';
+import type { GritStandard } from '@shared/grit';
 import { FEW_RESULTS, type CompareRow } from '@shared/compare-view';
 import type { CompareSortKey } from '@shared/schemas/compare';
 import { paths } from '@/config/paths';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
-import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
+import { TableFrame, tdClass } from '@/components/ui/table-frame';
+import { SortableTh } from '@/components/ui/table';
 import { formatGrams, formatGritBand, formatNumber } from '@/lib/format';
+import { bandGrade } from '../lib/grit-notation';
 
 export { FEW_RESULTS };
 
@@ -24,6 +27,13 @@ export function ThinMarks({ row }: { row: Pick<CompareRow, 'fewResults' | 'singl
   );
 }
 
+/** The row's identity: the card's heading lines on a phone. */
+const IDENTITY = new Set(['steel', 'material', 'band']);
+/** A row as a card below the md breakpoint. */
+const CARD = 'max-md:grid max-md:grid-cols-2 max-md:gap-x-3 max-md:gap-y-1 max-md:rounded-md max-md:border max-md:border-rule max-md:p-3';
+/** A figure in a card: no rule, its column's name above it. */
+const CARD_CELL = 'max-md:border-0 max-md:p-0 max-md:before:block max-md:before:text-xs max-md:before:text-muted max-md:before:content-[attr(data-label)]';
+
 export interface CompareTableProps {
   rows: CompareRow[];
   /** The URL's sort ("median", "-n", …); the server sorts every page alike. */
@@ -34,6 +44,75 @@ export interface CompareTableProps {
   onOpenCell: (cell: string) => void;
   pair: { a?: string; b?: string };
   onPair: (cell: string) => void;
+  /** The notation grit bands are labelled in beside the µm. */
+  notation: GritStandard;
+  /** Ranked order is on: its column shows whatever the chooser says. */
+  ranked?: boolean;
+}
+
+/** The columns shown unless the reader chooses otherwise: the row's identity, its figures, its actions. */
+const DEFAULT_COLUMNS = ['steel', 'material', 'band', 'n', 'testers', 'median', 'retention', 'actions'];
+/** The columns the chooser offers, with their names in the chooser. */
+const OPTIONAL_COLUMNS: [string, string][] = [
+  ['q1', 'Lower quartile (q1)'],
+  ['q3', 'Upper quartile (q3)'],
+  ['mean', 'Mean'],
+  ['ci', '95 % interval of the mean'],
+  ['ranked', 'Ranked g'],
+  ['retention', 'Median cuts'],
+  ['hrc', 'Hardness (HRC)'],
+  ['angle', 'Angle per side'],
+  ['method', 'Method (its version)'],
+];
+const COLUMNS_KEY = 'edgeledger.compare.columns';
+
+/** The optional columns this browser last chose (kept in localStorage), else the default ones. */
+function useChosenColumns(): [Set<string>, (next: Set<string>) => void] {
+  const [chosen, setChosen] = useState<Set<string>>(() => {
+    try {
+      const kept = JSON.parse(window.localStorage.getItem(COLUMNS_KEY) ?? 'null') as unknown;
+      if (Array.isArray(kept)) return new Set(kept.filter((c): c is string => typeof c === 'string'));
+    } catch {
+      // unreadable: the default columns
+    }
+    return new Set(OPTIONAL_COLUMNS.map(([c]) => c).filter((c) => DEFAULT_COLUMNS.includes(c)));
+  });
+  const choose = (next: Set<string>) => {
+    setChosen(next);
+    try {
+      window.localStorage.setItem(COLUMNS_KEY, JSON.stringify([...next]));
+    } catch {
+      // storage refused (private window): the choice holds for this page only
+    }
+  };
+  return [chosen, choose];
+}
+
+/** The column chooser: a disclosure of check boxes, one per optional column. */
+function ColumnChooser({ chosen, onChange }: { chosen: Set<string>; onChange: (next: Set<string>) => void }) {
+  return (
+    <details className="relative max-md:hidden">
+      <summary className="cursor-pointer rounded-md border border-rule bg-panel px-2.5 py-1 text-sm font-medium">More columns ({chosen.size} of {OPTIONAL_COLUMNS.length})</summary>
+      <fieldset className="absolute right-0 z-20 mt-1 grid w-64 gap-1 rounded-md border border-rule bg-panel p-3 text-sm shadow-lg">
+        <legend className="sr-only">Columns to show</legend>
+        {OPTIONAL_COLUMNS.map(([c, label]) => (
+          <label key={c} className="flex items-center gap-2">
+            <input
+              type="checkbox"
+              checked={chosen.has(c)}
+              onChange={(e) => {
+                const next = new Set(chosen);
+                if (e.target.checked) next.add(c);
+                else next.delete(c);
+                onChange(next);
+              }}
+            />
+            {label}
+          </label>
+        ))}
+      </fieldset>
+    </details>
+  );
 }
 
 /**
@@ -42,7 +121,8 @@ export interface CompareTableProps {
  * Every column sorts (on the server, so the order holds across pages); thin cells are marked
  * in words; each row opens its results and can be chosen for the paired comparison.
  */
-export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, pair, onPair }: CompareTableProps) {
+export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, pair, onPair, notation, ranked }: CompareTableProps) {
+  const [chosen, setChosen] = useChosenColumns();
   const columns = useMemo(
     () => [
       column.accessor('methodVersion', {
@@ -68,9 +148,10 @@ export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, p
         id: 'band',
         header: 'Grit band',
         cell: (info) => (
-          <span className="whitespace-nowrap">
-            {formatGritBand(info.row.original.band)} <span className="text-muted">({info.row.original.band.words})</span>
-          </span>
+          <>
+            <span className="whitespace-nowrap">{formatGritBand(info.row.original.band)}</span> <span className="whitespace-nowrap text-muted">({info.row.original.band.words})</span>
+            <span className="block whitespace-nowrap text-sm text-muted">{bandGrade(info.row.original.band, notation)}</span>
+          </>
         ),
       }),
       column.accessor('n', {
@@ -176,14 +257,16 @@ export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, p
         },
       }),
     ],
-    [openCell, onOpenCell, pair.a, pair.b, onPair],
+    [openCell, onOpenCell, pair.a, pair.b, onPair, notation],
   );
 
   const sorting: SortingState = sort ? [{ id: sort.replace(/^-/, ''), desc: sort.startsWith('-') }] : [];
+  // Default columns always; optional ones as chosen; the ranked column whenever ranked order is on.
+  const columnVisibility: VisibilityState = Object.fromEntries(OPTIONAL_COLUMNS.map(([c]) => [c, chosen.has(c) || (c === 'ranked' && !!ranked)]));
   const table = useReactTable({
     data: rows,
     columns,
-    state: { sorting },
+    state: { sorting, columnVisibility },
     // The server sorts; the header's press goes to the URL (onToggleSort), not to table state.
     manualSorting: true,
     getCoreRowModel: getCoreRowModel(),
@@ -191,52 +274,58 @@ export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, p
   });
 
   return (
-    <TableFrame label="Comparison table">
-      <table className="w-full min-w-[64rem] border-collapse text-[0.95rem]">
-        <caption className="px-3 py-2 text-left text-sm text-muted">
+    <div className="flex flex-col gap-2">
+      <div className="flex flex-wrap items-start justify-between gap-2">
+        <p className="text-sm text-muted">
           Sharpness in grams of force to sever the method’s test medium: lower is keener. Each result counts once, with the median of its readings. Sorting applies to every page.
-        </caption>
-        <thead>
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>
-              {group.headers.map((header) => {
-                const meta = header.column.columnDef.meta as { numeric?: boolean } | undefined;
-                const sorted = header.column.getIsSorted();
-                const canSort = header.column.getCanSort() && header.column.id !== 'actions' && header.column.id !== 'method';
-                const content = flexRender(header.column.columnDef.header, header.getContext());
-                return (
-                  <th key={header.id} scope="col" aria-sort={canSort ? (sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none') : undefined} className={`${thClass} ${meta?.numeric ? 'text-right' : ''}`}>
-                    {canSort ? (
-                      <button type="button" onClick={() => onToggleSort(header.column.id as CompareSortKey)} className={`inline-flex items-center gap-1 rounded font-semibold hover:text-ink ${meta?.numeric ? 'flex-row-reverse' : ''}`}>
-                        <span>{content}</span>
-                        <span aria-hidden="true" className="w-3 text-xs">
-                          {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
-                        </span>
-                      </button>
-                    ) : (
-                      content
-                    )}
-                  </th>
-                );
-              })}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className={openCell === row.id ? 'bg-accent-soft/60' : 'hover:bg-accent-soft/30'}>
-              {row.getVisibleCells().map((cell) => {
-                const meta = cell.column.columnDef.meta as { numeric?: boolean } | undefined;
-                return (
-                  <td key={cell.id} className={`${tdClass} ${meta?.numeric ? 'whitespace-nowrap text-right tabular-nums' : ''}`}>
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                );
-              })}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </TableFrame>
+        </p>
+        <ColumnChooser chosen={chosen} onChange={setChosen} />
+      </div>
+      <TableFrame label="Comparison table">
+        {/* On a phone each row is a card: the head is hidden and every figure carries its column's name. */}
+        <table className="w-full border-collapse text-[0.95rem] max-md:block">
+          <thead className="max-md:sr-only">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const meta = header.column.columnDef.meta as { numeric?: boolean } | undefined;
+                  const sorted = header.column.getIsSorted();
+                  const canSort = header.column.getCanSort() && header.column.id !== 'actions' && header.column.id !== 'method';
+                  const content = flexRender(header.column.columnDef.header, header.getContext());
+                  return (
+                    <SortableTh key={header.id} sorted={sorted} canSort={canSort} numeric={meta?.numeric} onToggle={() => onToggleSort(header.column.id as CompareSortKey)}>
+                      {content}
+                    </SortableTh>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody className="max-md:flex max-md:flex-col max-md:gap-3 max-md:p-3">
+            {table.getRowModel().rows.map((row) => {
+              const chosenAs = pair.a === row.id || pair.b === row.id;
+              return (
+                <tr key={row.id} className={`${openCell === row.id || chosenAs ? 'bg-accent-soft/60' : 'hover:bg-accent-soft/30'} ${CARD}`}>
+                  {row.getVisibleCells().map((cell) => {
+                    const meta = cell.column.columnDef.meta as { numeric?: boolean } | undefined;
+                    const header = cell.column.columnDef.header;
+                    const identity = IDENTITY.has(cell.column.id);
+                    return (
+                      <td
+                        key={cell.id}
+                        data-label={identity || cell.column.id === 'actions' || typeof header !== 'string' ? undefined : header}
+                        className={`${tdClass} ${meta?.numeric ? 'whitespace-nowrap text-right tabular-nums max-md:text-left' : ''} ${identity || cell.column.id === 'actions' ? 'max-md:col-span-2' : ''} ${CARD_CELL}`}
+                      >
+                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                      </td>
+                    );
+                  })}
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </TableFrame>
+    </div>
   );
 }

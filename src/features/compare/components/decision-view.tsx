@@ -2,24 +2,15 @@ import { useMemo } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import type { CompareRow } from '@shared/compare-view';
 import type { WordedShift, WithinEdgeSpread } from '@shared/compare-difference';
-import { GRIT_STANDARD_SHORT_LABELS, formatGrade, nearestGrade, type GritStandard } from '@shared/grit';
+import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
+import { NOTATIONS, bandGrade, notationOf } from '../lib/grit-notation';
 import { paths } from '@/config/paths';
 import { Button } from '@/components/ui/button';
-import { Field, Input, Select } from '@/components/ui/field';
+import { Field, Input, Select, PageOptions } from '@/components/ui/field';
 import { ErrorState, Loading } from '@/components/ui/states';
 import { formatGritBand, formatNumber } from '@/lib/format';
 import { useCompare } from '../api/get-compare';
 import { useCompareDifference } from '../api/get-compare-difference';
-
-/** Notations a reader may label grit bands in (nearest grade beside the µm). */
-const NOTATIONS: GritStandard[] = ['jis', 'fepa-f', 'ansi', 'iso6106'];
-
-/** The nearest grade of a band's geometric middle in the chosen notation, e.g. "JIS #1000". */
-function bandGrade(row: CompareRow, notation: GritStandard): string {
-  const centre = Math.sqrt(row.band.loUm * row.band.hiUm);
-  const grade = nearestGrade(centre, notation);
-  return grade ? `≈ ${formatGrade({ standard: notation, grade: grade.grade })}` : `outside ${GRIT_STANDARD_SHORT_LABELS[notation]}`;
-}
 
 /** How much a cell's evidence is worth, in words. */
 function evidenceWords(row: CompareRow): string | null {
@@ -37,7 +28,7 @@ function evidenceWords(row: CompareRow): string | null {
 export function DecisionView({ steel, steelName, methods }: { steel: string; steelName: string; methods: { slug: string; name: string }[] }) {
   const [params, setParams] = useSearchParams();
   const get = (k: string) => params.get(k) ?? undefined;
-  const notation = (get('notation') as GritStandard | undefined) ?? 'jis';
+  const notation = notationOf(get('notation'));
   const filters = { steel, method: get('method'), hrcMin: get('hrcMin'), hrcMax: get('hrcMax') };
   const view = useCompare({ ...filters, sort: 'median', pageSize: '500' });
   const a = get('a');
@@ -64,11 +55,7 @@ export function DecisionView({ steel, steelName, methods }: { steel: string; ste
       <form className="flex flex-wrap items-end gap-4 rounded-md border border-rule bg-panel p-4" onSubmit={(e) => e.preventDefault()} aria-label="What to decide about">
         <Field id="decide-method" label="Method" className="min-w-0 w-full sm:w-72">
           <Select id="decide-method" value={method?.slug ?? get('method') ?? ''} onChange={(e) => set({ method: e.target.value, a: undefined, b: undefined })}>
-            {methods.map((m) => (
-              <option key={m.slug} value={m.slug}>
-                {m.name}
-              </option>
-            ))}
+            <PageOptions pages={methods} />
           </Select>
         </Field>
         <Field id="decide-hrc-min" label="Hardness from, HRC" className="w-36">
@@ -112,7 +99,7 @@ export function DecisionView({ steel, steelName, methods }: { steel: string; ste
                       <h3 className="min-w-0 font-semibold">
                         {row.materialLabel}
                         <span className="block text-sm font-normal text-muted">
-                          {formatGritBand(row.band)} · {bandGrade(row, notation)}
+                          {formatGritBand(row.band)} · {bandGrade(row.band, notation)}
                         </span>
                       </h3>
                       <Button size="sm" variant={role ? 'primary' : 'secondary'} aria-pressed={!!role} onClick={() => choose(row.cell)} aria-label={`${role ? `Chosen as ${role}; press to un-choose` : 'Choose'} ${row.materialLabel} ${formatGritBand(row.band)}`}>

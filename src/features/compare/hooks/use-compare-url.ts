@@ -18,11 +18,13 @@ export const FILTER_KEYS = [
   'publisher',
   'postedFrom',
   'postedTo',
+  'via',
+  'steps',
 ] as const;
 export type FilterKey = (typeof FILTER_KEYS)[number];
 
-/** Keys of the page itself: which view, the open cell, the pair, the chart's steel. */
-const PAGE_KEYS = ['sort', 'page', 'view', 'cell', 'a', 'b', 'cs', 'cellPage'] as const;
+/** Keys of the page itself: which view, the open cell, the pair, the chart's steel, the grit notation. */
+const PAGE_KEYS = ['sort', 'page', 'view', 'cell', 'a', 'b', 'cs', 'cellPage', 'notation'] as const;
 type PageKey = (typeof PAGE_KEYS)[number];
 
 /** How the comparison is shown. */

@@ -4,18 +4,28 @@ import { parseGrit } from '@shared/grit';
 import { COOLANTS, type Coolant } from '@shared/vocabulary';
 import { progressionCoolant, type CoolantChange, type CoolantStep } from '@shared/workshop';
 import { Button } from '@/components/ui/button';
-import { Field, Input, Select, controlA11y } from '@/components/ui/field';
+import { Field, Input, Select, controlA11y, PageOptions } from '@/components/ui/field';
 import type { AbrasiveSummary } from '@/types/api';
 import type { ResultInput } from '@shared/schemas/result';
 import type { ResultFormValues } from './result-form-values';
 
+/** Focuses the element with `id` once React has drawn the change that made or moved it. */
+const focusSoon = (id: string) => requestAnimationFrame(() => document.getElementById(id)?.focus());
+
 /**
  * The steps before the final abrasive: add, remove and reorder them with buttons (each a real
- * button, so the keyboard reaches them in order). A step's grit is optional (the abrasive's own
- * when empty), so is its angle.
+ * button, so the keyboard reaches them in order). The focus follows the step: onto a new step's
+ * abrasive, onto the moved step's same button (its abrasive when that button is now disabled),
+ * onto the next step (or "Add a step") after a removal. A step's grit is optional (the
+ * abrasive's own when empty), so is its angle.
  */
 export function ProgressionFields({ control, register, errors, abrasives }: { control: Control<ResultFormValues, unknown, ResultInput>; register: UseFormRegister<ResultFormValues>; errors: FieldErrors<ResultFormValues>; abrasives: AbrasiveSummary[] }) {
   const { fields, append, remove, move, replace } = useFieldArray({ control, name: 'progression' });
+  const moveStep = (from: number, to: number) => {
+    move(from, to);
+    const stillUsable = to > from ? to < fields.length - 1 : to > 0;
+    focusSoon(stillUsable ? `step-${to}-${to > from ? 'later' : 'earlier'}` : `step-${to}-abrasive`);
+  };
   return (
     <fieldset className="rounded-md border border-rule bg-panel px-4 pb-4 pt-2">
       <legend className="px-1 font-serif text-lg font-semibold">
@@ -32,11 +42,7 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
               <Field id={`step-${i}-abrasive`} label={`Step ${i + 1}: abrasive`} error={abrasiveError}>
                 <Select {...controlA11y(`step-${i}-abrasive`, { error: abrasiveError })} {...register(`progression.${i}.abrasive`)}>
                   <option value="">Choose an abrasive…</option>
-                  {abrasives.map((a) => (
-                    <option key={a.slug} value={a.slug}>
-                      {a.name}
-                    </option>
-                  ))}
+                  <PageOptions pages={abrasives} />
                 </Select>
               </Field>
               <Field id={`step-${i}-grit`} label="Grit" aside="optional" error={gritError}>
@@ -46,13 +52,17 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
                 <Input {...controlA11y(`step-${i}-angle`, { error: angleError })} type="number" inputMode="decimal" step={0.5} {...register(`progression.${i}.perSideDeg`, { valueAsNumber: true })} />
               </Field>
               <div className="flex flex-wrap gap-2 sm:col-span-3">
-                <Button size="sm" variant="secondary" disabled={i === 0} onClick={() => move(i, i - 1)} aria-label={`Move step ${i + 1} earlier`}>
+                <Button id={`step-${i}-earlier`} size="sm" variant="secondary" disabled={i === 0} onClick={() => moveStep(i, i - 1)} aria-label={`Move step ${i + 1} earlier`}>
                   Earlier
                 </Button>
-                <Button size="sm" variant="secondary" disabled={i === fields.length - 1} onClick={() => move(i, i + 1)} aria-label={`Move step ${i + 1} later`}>
+                <Button id={`step-${i}-later`} size="sm" variant="secondary" disabled={i === fields.length - 1} onClick={() => moveStep(i, i + 1)} aria-label={`Move step ${i + 1} later`}>
                   Later
                 </Button>
-                <Button size="sm" variant="quiet" onClick={() => remove(i)} aria-label={`Remove step ${i + 1}`}>
+                <Button size="sm" variant="quiet" onClick={() => {
+                    remove(i);
+                    focusSoon(fields.length > 1 ? `step-${Math.min(i, fields.length - 2)}-abrasive` : 'progression-add');
+                  }}
+                  aria-label={`Remove step ${i + 1}`}>
                   Remove
                 </Button>
               </div>
@@ -61,7 +71,16 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
         })}
       </ol>
       <div className="mt-3">
-        <Button size="sm" variant="secondary" disabled={fields.length >= PROGRESSION_MAX} onClick={() => append({ abrasive: '', gritGrade: '', perSideDeg: Number.NaN })}>
+        <Button
+          id="progression-add"
+          size="sm"
+          variant="secondary"
+          disabled={fields.length >= PROGRESSION_MAX}
+          onClick={() => {
+            append({ abrasive: '', gritGrade: '', perSideDeg: Number.NaN }, { shouldFocus: false });
+            focusSoon(`step-${fields.length}-abrasive`);
+          }}
+        >
           Add a step{fields.length >= PROGRESSION_MAX ? ` (at most ${PROGRESSION_MAX})` : ''}
         </Button>
       </div>

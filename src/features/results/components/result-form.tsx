@@ -12,7 +12,7 @@ import { ApiError } from '@/lib/api-client';
 import { friendlyZodMessages } from '@/lib/zod-messages';
 import { formatDegrees, formatGrams, formatGritBand, formatMicrometres, formatNumber, label } from '@/lib/format';
 import { Button } from '@/components/ui/button';
-import { controlA11y, Field, Input, Select, sentence } from '@/components/ui/field';
+import { controlA11y, Field, Input, Select, sentence, PageOptions } from '@/components/ui/field';
 import { describeError, Loading } from '@/components/ui/states';
 import { AngleFromWorkshop } from '@/features/workshop/components/angle-from-workshop';
 import type { AbrasiveSummary, MethodSummary, Result, ResultEdit, SteelSummary } from '@/types/api';
@@ -292,11 +292,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
         <Field id="result-steel" label="Steel" error={steelError} className="sm:col-span-2">
           <Select {...controlA11y('result-steel', { error: steelError })} {...register('steel')}>
             <option value="">Choose a steel…</option>
-            {steels.map((s) => (
-              <option key={s.slug} value={s.slug}>
-                {s.name}
-              </option>
-            ))}
+            <PageOptions pages={steels} />
           </Select>
         </Field>
         <Field
@@ -359,11 +355,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
         >
           <Select {...controlA11y('result-abrasive', { hint: true, error: abrasiveError })} {...register('abrasive')}>
             <option value="">Choose an abrasive…</option>
-            {abrasives.map((a) => (
-              <option key={a.slug} value={a.slug}>
-                {a.name}
-              </option>
-            ))}
+            <PageOptions pages={abrasives} />
           </Select>
         </Field>
         <Field id="result-grit-standard" label="Grit standard" aside="optional" error={standardError}>
@@ -469,11 +461,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
         <Field id="result-method" label="Sharpness method" error={methodError}>
           <Select {...controlA11y('result-method', { error: methodError })} {...register('sharpness.method')}>
             <option value="">Choose a method…</option>
-            {methods.map((m) => (
-              <option key={m.slug} value={m.slug}>
-                {m.name}
-              </option>
-            ))}
+            <PageOptions pages={methods} />
           </Select>
         </Field>
         <Field
@@ -502,11 +490,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
         <Field id="result-retention-method" label="Retention method" error={retMethodError}>
           <Select {...controlA11y('result-retention-method', { error: retMethodError })} {...register('retention.method')}>
             <option value="">Not tested</option>
-            {retentionMethods.map((m) => (
-              <option key={m.slug} value={m.slug}>
-                {m.name}
-              </option>
-            ))}
+            <PageOptions pages={retentionMethods} />
           </Select>
         </Field>
         <Field id="result-cuts" label="Cuts until dull" hint="Cuts counted before the method’s threshold was reached." error={cutsError}>

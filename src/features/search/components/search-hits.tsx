@@ -29,45 +29,70 @@ export function hitHref(hit: SearchHit): string | null {
   }
 }
 
-/** Hits grouped by type (steels, abrasives, methods, results), each with its snippet. */
-export function SearchHits({ hits, query, facets }: { hits: SearchHit[]; query: string; facets?: Record<SearchHitType, number> }) {
+/** In the "All" view, at most this many hits per section; its "show all" link has the rest. */
+export const HITS_PER_SECTION = 5;
+
+/**
+ * Hits grouped by type (steels, abrasives, methods, results, cells), each with its snippet. In
+ * the "All" view (`typeHref` given) every type that has matches gets its section, with the true
+ * number of matches, its best few hits and a "show all N" link to that type's own view, even
+ * when none of its hits ranked among the best overall.
+ */
+export function SearchHits({ hits, query, facets, typeHref }: { hits: SearchHit[]; query: string; facets?: Record<SearchHitType, number>; typeHref?: (type: SearchHitType) => string }) {
   return (
     <div className="flex flex-col gap-8">
       {HIT_GROUPS.map(({ type, heading }) => {
-        const group = hits.filter((h) => h.type === type);
-        if (group.length === 0) return null;
-        const total = facets?.[type] ?? group.length;
+        const all = hits.filter((h) => h.type === type);
+        const total = facets?.[type] ?? all.length;
+        if (total === 0 && all.length === 0) return null;
+        const group = typeHref ? all.slice(0, HITS_PER_SECTION) : all;
+        const more = total > group.length;
         return (
           <section key={type} aria-labelledby={`hits-${type}`}>
             <h2 id={`hits-${type}`} className="mb-2 text-xl font-semibold">
               {heading} <span className="font-sans text-base font-normal text-muted">({total})</span>
             </h2>
-            <ul className="divide-y divide-rule rounded-md border border-rule bg-panel">
-              {group.map((hit) => {
-                const href = hitHref(hit);
-                return (
-                  <li key={`${hit.type}-${hit.cell?.method ?? ''}-${hit.slug ?? hit.id}`} className="px-4 py-3">
-                    {href ? (
-                      <Link to={href} className="font-semibold">
-                        <Highlight text={hit.title} query={query} />
-                      </Link>
-                    ) : (
-                      <span className="font-semibold">{hit.title}</span>
-                    )}
-                    {hit.type === 'steel' && hit.slug ? (
-                      <Link to={paths.decide.getHref(hit.slug)} className="ml-3 text-sm">
-                        Choose an abrasive for it
-                      </Link>
-                    ) : null}
-                    {hit.snippet ? (
-                      <p className="mt-0.5 text-sm text-muted">
-                        <Highlight text={hit.snippet} query={query} />
-                      </p>
-                    ) : null}
-                  </li>
-                );
-              })}
-            </ul>
+            {more ? (
+              <p className="mb-2 text-sm text-muted">
+                {group.length ? `The best ${group.length} of ${total}` : `${total} match${total === 1 ? '' : 'es'}, none among the best overall`}
+                {typeHref ? (
+                  <>
+                    {' · '}
+                    <Link to={typeHref(type)}>
+                      Show all {total} {heading.toLowerCase()}
+                    </Link>
+                  </>
+                ) : null}
+              </p>
+            ) : null}
+            {group.length === 0 ? null : (
+              <ul className="divide-y divide-rule rounded-md border border-rule bg-panel">
+                {group.map((hit) => {
+                  const href = hitHref(hit);
+                  return (
+                    <li key={`${hit.type}-${hit.cell?.method ?? ''}-${hit.slug ?? hit.id}`} className="px-4 py-3">
+                      {href ? (
+                        <Link to={href} className="font-semibold">
+                          <Highlight text={hit.title} query={query} />
+                        </Link>
+                      ) : (
+                        <span className="font-semibold">{hit.title}</span>
+                      )}
+                      {hit.type === 'steel' && hit.slug ? (
+                        <Link to={paths.decide.getHref(hit.slug)} className="ml-3 text-sm">
+                          Choose an abrasive for it
+                        </Link>
+                      ) : null}
+                      {hit.snippet ? (
+                        <p className="mt-0.5 text-sm text-muted">
+                          <Highlight text={hit.snippet} query={query} />
+                        </p>
+                      ) : null}
+                    </li>
+                  );
+                })}
+              </ul>
+            )}
           </section>
         );
       })}
