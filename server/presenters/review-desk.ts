@@ -5,6 +5,9 @@ import { presentResult } from './result';
 import { presentFlag } from './publishing';
 import { presentAccount } from './user';
 import { presentDeskRevision } from './pages';
+import type { deskContext } from '../queries/desk-context';
+import { NEAR_DUPLICATE_RULE } from '@shared/desk-context';
+import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
 
 /** The desk's result items: the presented result, marked as a result, with the import it came in. */
 export function presentDeskResults({ results, importOf }: { results: Result[]; importOf: Map<number, number> }, viewer: Actor) {
@@ -24,4 +27,26 @@ export function presentOpenFlags(rows: { flag: Flag; subject: { title: string; p
 /** Imports with results still pending. */
 export function presentPendingImports(rows: { batch: ImportBatch; pending: number }[]) {
   return rows.map(({ batch, pending }) => ({ id: batch.id, publisher: batch.publisher ? presentAccount(batch.publisher) : null, rows: batch.rows, pending, createdAt: batch.createdAt }));
+}
+
+/** A pending result's context on the desk (figures in g; the rules' words beside them). */
+export function presentDeskContext(ctx: Awaited<ReturnType<typeof deskContext>>) {
+  const { result, cell, readings, nearDuplicates, authorRecord } = ctx;
+  return {
+    resultId: result.id,
+    cell: { ...cell.key, materialLabel: ABRASIVE_MATERIALS[cell.key.material as keyof typeof ABRASIVE_MATERIALS] ?? cell.key.material, figures: cell.figures, position: cell.position, outlier: cell.outlier },
+    sharpnessMedianG: result.sharpnessMedianG,
+    readings,
+    nearDuplicateRule: NEAR_DUPLICATE_RULE,
+    nearDuplicates: nearDuplicates.map((d) => ({
+      id: d.id,
+      status: d.status,
+      author: d.author ? presentAccount(d.author) : null,
+      sameAuthor: d.authorId === result.authorId,
+      perSideDeg: d.perSideDeg,
+      sharpnessMedianG: d.sharpnessMedianG,
+      createdAt: d.createdAt,
+    })),
+    authorRecord,
+  };
 }

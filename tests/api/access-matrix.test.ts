@@ -163,6 +163,7 @@ const matrix: Row[] = [
     expect: moderators(200),
   },
   { route: 'GET /api/review-desk', expect: moderators(200) },
+  { route: 'GET /api/review-desk/results/:id/context', request: async (fx) => ({ url: `/api/review-desk/results/${await fx.pendingResult()}/context` }), expect: moderators(200) },
   // Edit and resubmit, drafts, corrections (issue 17): only the author edits; a pending result is hidden from other members.
   { route: 'POST /api/results/drafts', request: () => ({ body: goodResult() }), expect: signedIn(201) },
   {
