@@ -5,8 +5,7 @@ import { presentResult } from './result';
 import { presentFlag } from './publishing';
 import { presentAccount } from './user';
 import { presentDeskRevision } from './pages';
-import type { deskContext } from '../queries/desk-context';
-import { NEAR_DUPLICATE_RULE } from '@shared/desk-context';
+import { NEAR_DUPLICATE_RULE, type CellPosition, type DeskCell, type OutlierHint, type readingsCheck } from '@shared/desk-context';
 import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
 
 /** The desk's result items: the presented result, marked as a result, with the import it came in. */
@@ -29,8 +28,17 @@ export function presentPendingImports(rows: { batch: ImportBatch; pending: numbe
   return rows.map(({ batch, pending }) => ({ id: batch.id, publisher: batch.publisher ? presentAccount(batch.publisher) : null, rows: batch.rows, pending, createdAt: batch.createdAt }));
 }
 
+/** What the desk-context query read and computed for one pending result. */
+export interface DeskContextRead {
+  result: Result;
+  cell: { key: { method: string | null; steelId: number; material: string; gritPhi: number }; figures: DeskCell | null; position: CellPosition | null; outlier: OutlierHint };
+  readings: ReturnType<typeof readingsCheck>;
+  nearDuplicates: Result[];
+  authorRecord: { published: number; pending: number; returnedNow: number; everReturned: number; rejected: number };
+}
+
 /** A pending result's context on the desk (figures in g; the rules' words beside them). */
-export function presentDeskContext(ctx: Awaited<ReturnType<typeof deskContext>>) {
+export function presentDeskContext(ctx: DeskContextRead) {
   const { result, cell, readings, nearDuplicates, authorRecord } = ctx;
   return {
     resultId: result.id,
