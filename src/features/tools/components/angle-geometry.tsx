@@ -172,12 +172,12 @@ export default function AngleGeometry() {
             {drift?.value ? (
               <Facts
                 items={[
-                  { term: 'Angle when set', value: formatDegrees(drift.value.originalPerSideDeg, 2) + ' per side' },
+                  { term: 'Angle when set', value: formatDegrees(drift.value.originalPerSideDeg) + ' per side' },
                   {
                     term: 'Angle now',
                     value: (
                       <span>
-                        <strong className="font-semibold">{formatDegrees(drift.value.currentPerSideDeg, 2)} per side</strong>{' '}
+                        <strong className="font-semibold">{formatDegrees(drift.value.currentPerSideDeg)} per side</strong>{' '}
                         <span className="text-muted">({changeText(drift.value.currentPerSideDeg - drift.value.originalPerSideDeg)})</span>
                       </span>
                     ),
@@ -279,7 +279,7 @@ function SetupDrawing({ setup, perSideDeg }: { setup: WheelSetup; perSideDeg: nu
       aria-labelledby={titleId}
     >
       <title id={titleId}>
-        {`Wheel of ${formatNumber(setup.wheelDiameterMm)} mm, bar of ${formatNumber(setup.barDiameterMm)} mm at a gap of ${formatNumber(setup.gapMm)} mm, blade projecting ${formatNumber(L)} mm${e ? ` with its plane ${formatNumber(e)} mm off the bar’s axis` : ''}: ${formatDegrees(perSideDeg, 1)} per side.`}
+        {`Wheel of ${formatNumber(setup.wheelDiameterMm)} mm, bar of ${formatNumber(setup.barDiameterMm)} mm at a gap of ${formatNumber(setup.gapMm)} mm, blade projecting ${formatNumber(L)} mm${e ? ` with its plane ${formatNumber(e)} mm off the bar’s axis` : ''}: ${formatDegrees(perSideDeg)} per side.`}
       </title>
       <circle cx={0} cy={0} r={R} className="fill-paper stroke-ink" strokeWidth={unit * 1.2} />
       <circle cx={0} cy={0} r={unit * 2} className="fill-ink" />
@@ -329,7 +329,7 @@ function SetupDrawing({ setup, perSideDeg }: { setup: WheelSetup; perSideDeg: nu
         className="fill-caution font-semibold"
         fontSize={unit * 11}
       >
-        {formatDegrees(perSideDeg, 1)}
+        {formatDegrees(perSideDeg)}
       </text>
       <circle cx={X(C)} cy={Y(C)} r={unit * 2.5} className="fill-caution" />
     </svg>

@@ -138,7 +138,7 @@ function SideDrawing({ setup, perSideDeg }: { setup: SideSetup; perSideDeg: numb
   return (
     <svg viewBox={`${minX} ${-maxY} ${maxX - minX} ${maxY - minY}`} className="mx-auto h-auto max-h-[26rem] w-full" role="img" aria-labelledby={titleId}>
       <title id={titleId}>
-        {`Bar of ${formatNumber(setup.barDiameterMm)} mm at ${formatNumber(setup.gapMm)} mm from the wheel’s face, blade projecting ${formatNumber(L)} mm: ${formatDegrees(perSideDeg, 1)} per side.`}
+        {`Bar of ${formatNumber(setup.barDiameterMm)} mm at ${formatNumber(setup.gapMm)} mm from the wheel’s face, blade projecting ${formatNumber(L)} mm: ${formatDegrees(perSideDeg)} per side.`}
       </title>
       <rect x={minX} y={-maxY} width={-minX} height={maxY - minY} className="fill-rule" />
       <line x1={0} y1={-maxY} x2={0} y2={-minY} className="stroke-ink" strokeWidth={unit * 1.5} />
@@ -154,7 +154,7 @@ function SideDrawing({ setup, perSideDeg }: { setup: SideSetup; perSideDeg: numb
         strokeWidth={unit * 1.5}
       />
       <text x={arcR * Math.sin(a / 2) + unit * 4} y={-arcR * Math.cos(a / 2) - unit * 6} className="fill-caution font-semibold" fontSize={unit * 11}>
-        {formatDegrees(perSideDeg, 1)}
+        {formatDegrees(perSideDeg)}
       </text>
       <circle cx={0} cy={0} r={unit * 2.5} className="fill-caution" />
     </svg>
