@@ -6,29 +6,21 @@
  * Screenshots go to $LOOPS_SHOTS when set (1280x900 and 390x844).
  */
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startE2eApp, type E2eApp } from '../setup/e2e-app';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { e2eSuite, type DemoAccount } from '../setup/e2e-app';
 
-let app: E2eApp;
-let base = '';
-let page: Page;
 const shots = process.env.LOOPS_SHOTS;
 
-beforeAll(async () => {
-  // This suite's ports: 3700–3719.
-  app = await startE2eApp('loops', [3700, 3719]);
-  ({ base, page } = app);
-}, 90_000);
+// This suite's ports: 3700–3719.
+const suite = e2eSuite('loops', [3700, 3719]);
+let base = '';
+let page: Page;
+beforeAll(() => {
+  ({ base, page } = suite.app);
+});
 
-afterAll(() => app?.stop(), 30_000);
-
-interface Account {
-  handle: string;
-  role: string;
-}
-
-const signInAs = (handle: string, returnTo: string) => app.signInAs(handle, returnTo);
-const signOut = () => app.signOut();
+type Account = DemoAccount;
+const { signInAs, signOut } = suite;
 
 /** Full-page screenshots at the desktop and phone sizes, when asked for. */
 async function screenshot(name: string) {

@@ -6,14 +6,10 @@
  * role and label. It builds nothing: `dist/` must exist.
  */
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startE2eApp, type E2eApp } from '../setup/e2e-app';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { e2eSuite, type DemoAccount } from '../setup/e2e-app';
 import { IMPORT_COLUMNS } from '../../shared/csv';
 import { toCsv } from '../../shared/csv-writer';
-
-let app: E2eApp;
-let base = '';
-let page: Page;
 
 async function api<T>(pathname: string, init?: RequestInit): Promise<{ status: number; body: T }> {
   const res = await fetch(`${base}${pathname}`, init);
@@ -21,29 +17,27 @@ async function api<T>(pathname: string, init?: RequestInit): Promise<{ status: n
   return { status: res.status, body: (text ? JSON.parse(text) : null) as T };
 }
 
-beforeAll(async () => {
-  // This suite's ports: 3660–3679.
-  app = await startE2eApp('moderator', [3660, 3679]);
-  ({ base, page } = app);
-}, 90_000);
+// This suite's ports: 3660–3679.
+const suite = e2eSuite('moderator', [3660, 3679]);
+let base = '';
+let page: Page;
+beforeAll(() => {
+  ({ base, page } = suite.app);
+});
 
-afterAll(() => app?.stop(), 30_000);
-
-interface Account {
-  handle: string;
-  role: string;
-  displayName?: string;
-}
-
-const signInAs = (handle: string, returnTo: string) => app.signInAs(handle, returnTo);
-const signOut = () => app.signOut();
+type Account = DemoAccount;
+const { signInAs, signOut } = suite;
 
 /** Makes a token on one's own page and reads it off the screen. */
 async function makeToken(name: string): Promise<string> {
   const tokens = page.getByRole('region', { name: 'API tokens' });
   await tokens.getByLabel('Token name').fill(name);
   await tokens.getByRole('button', { name: 'Create token' }).click();
-  return ((await tokens.getByLabel('New token').textContent()) ?? '').trim();
+  // The new token has the focus, with a button to copy it.
+  const field = tokens.getByLabel('New token');
+  expect(await field.evaluate((el) => el === document.activeElement)).toBe(true);
+  expect(await tokens.getByRole('button', { name: 'Copy token' }).isVisible()).toBe(true);
+  return (await field.inputValue()).trim();
 }
 
 const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
