@@ -4,7 +4,7 @@ import { Button } from '@/components/ui/button';
 import { Field, Input, Select, controlA11y } from '@/components/ui/field';
 import type { AbrasiveSummary } from '@/types/api';
 import type { ResultInput } from '@shared/schemas/result';
-import type { ResultFormValues } from './result-form-values';
+import { initialBoxes, type ProgressionFormStep, type ResultFormValues } from './result-form-values';
 
 /**
  * The steps before the final abrasive: add, remove and reorder them with buttons (each a real
@@ -58,7 +58,7 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
         })}
       </ol>
       <div className="mt-3">
-        <Button size="sm" variant="secondary" disabled={fields.length >= PROGRESSION_MAX} onClick={() => append({ abrasive: '', gritGrade: '', perSideDeg: Number.NaN })}>
+        <Button size="sm" variant="secondary" disabled={fields.length >= PROGRESSION_MAX} onClick={() => append(initialBoxes({ abrasive: '', gritGrade: '', perSideDeg: Number.NaN }) as ProgressionFormStep)}>
           Add a step{fields.length >= PROGRESSION_MAX ? ` (at most ${PROGRESSION_MAX})` : ''}
         </Button>
       </div>

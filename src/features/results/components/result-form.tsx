@@ -26,6 +26,7 @@ import {
   formFieldFor,
   parseReadings,
   readingMessage,
+  initialBoxes,
   toResultInput,
   type ResultFormValues,
 } from './result-form-values';
@@ -146,7 +147,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
   } = useForm<ResultFormValues, unknown, ResultInput>({
     mode: 'onChange',
     resolver: resultResolver,
-    defaultValues: editing ? fromResultInput(editing.input) : emptyResultForm,
+    defaultValues: initialBoxes(editing ? fromResultInput(editing.input) : emptyResultForm),
   });
 
   const values = useWatch({ control });
