@@ -11,15 +11,10 @@ import { e2eSuite, type DemoAccount } from '../setup/e2e-app';
 
 const shots = process.env.LOOPS_SHOTS;
 
-// This suite's ports: 3700–3719.
-const suite = e2eSuite('loops', [3700, 3719]);
+const suite = e2eSuite('loops', [3700, 3719]); // this suite's ports
 let base = '';
 let page: Page;
-beforeAll(() => {
-  ({ base, page } = suite.app);
-});
-
-type Account = DemoAccount;
+beforeAll(() => void ({ base, page } = suite.app));
 const { signInAs, signOut } = suite;
 
 /** Full-page screenshots at the desktop and phone sizes, when asked for. */
@@ -45,13 +40,13 @@ async function browserPost<T>(url: string, body: unknown): Promise<T> {
 }
 
 describe('edit and resubmit, corrections, members', () => {
-  let accounts: Account[] = [];
-  let member: Account;
-  let moderator: Account;
+  let accounts: DemoAccount[] = [];
+  let member: DemoAccount;
+  let moderator: DemoAccount;
   let id = 0;
 
   it('a moderator returns a result with a note; the member edits and resubmits it', async () => {
-    accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as Account[];
+    accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
     member = accounts.filter((a) => a.role === 'member')[1];
     moderator = accounts.find((a) => a.role === 'moderator')!;
 
@@ -166,7 +161,7 @@ describe('small things found by walking it (issue 17, item 6)', () => {
   }, 60_000);
 
   it('the new-result page logs no "NaN cannot be parsed" warning, and offers no retention method for sharpness', async () => {
-    const accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as Account[];
+    const accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
     const messages: string[] = [];
     const listen = (m: { text: () => string }) => messages.push(m.text());
     page.on('console', listen);

@@ -17,15 +17,10 @@ async function api<T>(pathname: string, init?: RequestInit): Promise<{ status: n
   return { status: res.status, body: (text ? JSON.parse(text) : null) as T };
 }
 
-// This suite's ports: 3660–3679.
-const suite = e2eSuite('moderator', [3660, 3679]);
+const suite = e2eSuite('moderator', [3660, 3679]); // this suite's ports
 let base = '';
 let page: Page;
-beforeAll(() => {
-  ({ base, page } = suite.app);
-});
-
-type Account = DemoAccount;
+beforeAll(() => void ({ base, page } = suite.app));
 const { signInAs, signOut } = suite;
 
 /** Makes a token on one's own page and reads it off the screen. */
@@ -43,14 +38,14 @@ async function makeToken(name: string): Promise<string> {
 const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 describe('the moderator’s desk in a browser', () => {
-  let accounts: Account[] = [];
+  let accounts: DemoAccount[] = [];
   let moderatorToken = '';
-  let publisher: Account;
+  let publisher: DemoAccount;
   let importId = 0;
   let singleId = 0;
 
   it('0. a publisher imports five results and posts one more; a member flags a published result', async () => {
-    accounts = (await api<Account[]>('/auth/demo-accounts')).body;
+    accounts = (await api<DemoAccount[]>('/auth/demo-accounts')).body;
     const mod2 = accounts.filter((a) => a.role === 'moderator')[1];
     publisher = accounts.find((a) => a.role === 'publisher')!;
     const member = accounts.find((a) => a.role === 'member')!;
