@@ -87,3 +87,11 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   'user.ban': 'banned',
   'user.unban': 'lifted the ban on',
 };
+
+/**
+ * A method page that defines a retention medium is a retention test (cuts counted); the others
+ * measure sharpness. One rule for the result form's two lists and the server's check.
+ */
+export function isRetentionMethod(method: { retentionMedium: string | null }): boolean {
+  return !!method.retentionMedium;
+}

@@ -1,3 +1,4 @@
+import { isRetentionMethod } from '@shared/vocabulary';
 import Papa from 'papaparse';
 import { can, type Actor } from '@shared/permissions';
 import { columnOfPath, IMPORT_COLUMNS, mapHeader, rowToResultInput, type ImportColumn } from '@shared/csv';
@@ -111,6 +112,11 @@ export async function checkImport(bytes: Buffer): Promise<CheckedImport> {
     }
     const mapped = rowToResultInput(byColumn, lookup);
     for (const issue of mapped.issues) rowErrors.push({ row, column: issue.column, message: withSuggestion(issue, byColumn, known) });
+    // The same rule as a single submission: a sharpness method measures sharpness, a retention method counts cuts.
+    const sharpnessMethod = methodBySlug.get(byColumn.sharpness_method?.trim() ?? '');
+    if (sharpnessMethod && isRetentionMethod(sharpnessMethod)) rowErrors.push({ row, column: 'sharpness_method', message: `"${sharpnessMethod.slug}" is a retention method; choose a sharpness method` });
+    const retentionMethod = methodBySlug.get(byColumn.retention_method?.trim() ?? '');
+    if (retentionMethod && !isRetentionMethod(retentionMethod)) rowErrors.push({ row, column: 'retention_method', message: `"${retentionMethod.slug}" defines no retention medium; choose a retention method` });
     // Every problem of the row at once: the schema's too, except on columns already reported.
     const checked = resultInputSchema.safeParse(mapped.input);
     if (!checked.success) {

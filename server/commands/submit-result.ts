@@ -3,6 +3,7 @@ import { deriveResult } from '@shared/derive-result';
 import { deriveProgression, progressionColumns } from '@shared/progression';
 import type { ResultInput, ResultStatus } from '@shared/schemas/result';
 import type { GritStandard } from '@shared/grit';
+import { isRetentionMethod } from '@shared/vocabulary';
 import type { AppContext } from '../context';
 import { badRequest, forbidden, type FieldIssue } from '../errors';
 import { Abrasive, Method, PAGE_TEXT_COLUMNS, Result, ResultEvent, Steel, type User } from '../models';
@@ -43,6 +44,12 @@ export async function resolveReferences(input: ResultInput): Promise<ResultRefer
   if (!abrasive) issues.push({ path: 'abrasive', message: `no abrasive page "${input.abrasive}"` });
   if (!sharpnessMethod) issues.push({ path: 'sharpness.method', message: `no method page "${input.sharpness.method}"` });
   if (input.retention && !retentionMethod) issues.push({ path: 'retention.method', message: `no method page "${input.retention.method}"` });
+  if (sharpnessMethod && isRetentionMethod(sharpnessMethod)) {
+    issues.push({ path: 'sharpness.method', message: `"${input.sharpness.method}" is a retention method; choose a sharpness method` });
+  }
+  if (input.retention && retentionMethod && !isRetentionMethod(retentionMethod)) {
+    issues.push({ path: 'retention.method', message: `"${input.retention.method}" defines no retention medium; choose a retention method` });
+  }
   if (issues.length) throw badRequest('Invalid input.', issues);
   return { steel: steel!, abrasive: abrasive!, sharpnessMethod: sharpnessMethod!, retentionMethod, stepAbrasives };
 }

@@ -149,6 +149,7 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'post', path: '/results/:id/review', summary: 'Approve, return or reject a pending result', tag: 'results', access: 'moderator', params: idParams, body: reviewInputSchema, answer: json(resultSchema), errors: [409] },
   { method: 'post', path: '/results/:id/retract', summary: 'Retract one of your results', tag: 'results', access: 'signed-in', params: idParams, body: retractInputSchema, answer: json(resultSchema), errors: [409] },
   { method: 'get', path: '/review-desk', summary: 'The moderators’ queue: pending results, proposed revisions, open flags, imports', tag: 'results', access: 'moderator', query: reviewDeskQuerySchema, answer: json() },
+  { method: 'get', path: '/review-desk/results/:id/context', summary: 'A pending result’s context on the desk: its cell, the outlier hint, readings, near-duplicates, the author’s record', tag: 'results', access: 'moderator', params: idParams, query: emptyQuerySchema, answer: json(), errors: [409] },
   { method: 'post', path: '/review-desk/bulk-approve', summary: 'Approve several pending results at once', tag: 'results', access: 'moderator', body: bulkApproveSchema, answer: json() },
   {
     method: 'post',

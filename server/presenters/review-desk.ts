@@ -5,6 +5,8 @@ import { presentResult } from './result';
 import { presentFlag } from './publishing';
 import { presentAccount } from './user';
 import { presentDeskRevision } from './pages';
+import { NEAR_DUPLICATE_RULE, type CellPosition, type DeskCell, type OutlierHint, type readingsCheck } from '@shared/desk-context';
+import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
 
 /** The desk's result items: the presented result, marked as a result, with the import it came in. */
 export function presentDeskResults({ results, importOf }: { results: Result[]; importOf: Map<number, number> }, viewer: Actor) {
@@ -24,4 +26,35 @@ export function presentOpenFlags(rows: { flag: Flag; subject: { title: string; p
 /** Imports with results still pending. */
 export function presentPendingImports(rows: { batch: ImportBatch; pending: number }[]) {
   return rows.map(({ batch, pending }) => ({ id: batch.id, publisher: batch.publisher ? presentAccount(batch.publisher) : null, rows: batch.rows, pending, createdAt: batch.createdAt }));
+}
+
+/** What the desk-context query read and computed for one pending result. */
+export interface DeskContextRead {
+  result: Result;
+  cell: { key: { method: string | null; steelId: number; material: string; gritPhi: number }; figures: DeskCell | null; position: CellPosition | null; outlier: OutlierHint };
+  readings: ReturnType<typeof readingsCheck>;
+  nearDuplicates: Result[];
+  authorRecord: { published: number; pending: number; returnedNow: number; everReturned: number; rejected: number };
+}
+
+/** A pending result's context on the desk (figures in g; the rules' words beside them). */
+export function presentDeskContext(ctx: DeskContextRead) {
+  const { result, cell, readings, nearDuplicates, authorRecord } = ctx;
+  return {
+    resultId: result.id,
+    cell: { ...cell.key, materialLabel: ABRASIVE_MATERIALS[cell.key.material as keyof typeof ABRASIVE_MATERIALS] ?? cell.key.material, figures: cell.figures, position: cell.position, outlier: cell.outlier },
+    sharpnessMedianG: result.sharpnessMedianG,
+    readings,
+    nearDuplicateRule: NEAR_DUPLICATE_RULE,
+    nearDuplicates: nearDuplicates.map((d) => ({
+      id: d.id,
+      status: d.status,
+      author: d.author ? presentAccount(d.author) : null,
+      sameAuthor: d.authorId === result.authorId,
+      perSideDeg: d.perSideDeg,
+      sharpnessMedianG: d.sharpnessMedianG,
+      createdAt: d.createdAt,
+    })),
+    authorRecord,
+  };
 }

@@ -32,8 +32,11 @@ export function formatGrams(value: number | null | undefined, digits = 0): strin
   return `${formatNumber(value, digits)}${nbsp}g`;
 }
 
-/** An angle in degrees, e.g. "15.5°". */
-export function formatDegrees(value: number | null | undefined, digits = 1): string {
+/**
+ * An angle in degrees to at most two decimals, e.g. "15.5°", "30.81°": the same precision in the
+ * tools and on a result, so one angle never reads two ways.
+ */
+export function formatDegrees(value: number | null | undefined, digits = 2): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
   return `${formatNumber(value, digits)}°`;
 }
@@ -43,7 +46,9 @@ export function formatDate(iso: string | null | undefined): string {
   if (!iso) return '—';
   const d = new Date(iso);
   if (Number.isNaN(d.getTime())) return '—';
-  return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }).format(d);
+  // A calendar date alone ("2026-09-01", as the wheel log keeps them) is that day wherever the reader is.
+  const dateOnly = /^\d{4}-\d{2}-\d{2}$/.test(iso);
+  return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', ...(dateOnly ? { timeZone: 'UTC' } : {}) }).format(d);
 }
 
 /** A date with time of day, for the review trail. */

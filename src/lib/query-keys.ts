@@ -16,6 +16,8 @@ export const queryKeys = {
   },
   adminUsers: (q: string) => ['admin-users', q] as const,
   reviewDesk: ['review-desk'] as const,
+  /** Under `reviewDesk`, so a decision refreshes the open result's context too. */
+  deskContext: (resultId: number) => ['review-desk', 'context', resultId] as const,
   wheels: ['wheels'] as const,
   /** Under `wheels`, so a change to the wheel log refreshes the workshop too (and the other way round). */
   workshop: ['wheels', 'workshop'] as const,

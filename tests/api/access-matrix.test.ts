@@ -163,6 +163,7 @@ const matrix: Row[] = [
     expect: moderators(200),
   },
   { route: 'GET /api/review-desk', expect: moderators(200) },
+  { route: 'GET /api/review-desk/results/:id/context', request: (fx) => ({ url: `/api/review-desk/results/${fx.waitingResultId}/context` }), expect: moderators(200) },
   // Edit and resubmit, drafts, corrections (issue 17): only the author edits; a pending result is hidden from other members.
   { route: 'POST /api/results/drafts', request: () => ({ body: goodResult() }), expect: signedIn(201) },
   {
@@ -392,6 +393,8 @@ const matrix: Row[] = [
 
 interface Fixtures {
   approvedResultId: number;
+  /** A pending result made once, before the matrix runs (for reads that need one). */
+  waitingResultId: number;
   /** A new pending result by a member who is none of the callers. */
   pendingResult(): Promise<number>;
   /** A pending result of the caller's own (or one by another member, for callers who cannot post). */
@@ -518,6 +521,7 @@ beforeAll(async () => {
       return flag.id;
     },
     approvedResultId: approved.body.items[0].id,
+    waitingResultId: (await poster.agent.post('/api/results').set('X-CSRF-Token', poster.csrf).send(goodResult()).expect(201)).body.id as number,
     async pendingResult() {
       const res = await poster.agent.post('/api/results').set('X-CSRF-Token', poster.csrf).send(goodResult()).expect(201);
       return res.body.id as number;

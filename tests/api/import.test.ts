@@ -232,6 +232,9 @@ describe('an import report that says everything (issue 17)', () => {
     expect(byColumn.abrasive).toMatch(/did you mean "cbn-electroplated-wheel-250-b126"/);
     // A swap of two neighbouring letters counts as one edit (Damerau–Levenshtein).
     expect(byColumn.sharpness_method).toMatch(/did you mean "push-cut-test-v2"/);
+    // A method of the wrong kind: the same rule as a single submission.
+    const kinds = await post(csvOf([{ ...goodRow(0), sharpness_method: 'card-cut-retention-v1' }]), '?dryRun=1').expect(200);
+    expect(kinds.body.errors).toEqual([expect.objectContaining({ column: 'sharpness_method', message: expect.stringMatching(/retention method/) })]);
     // Nothing near: no suggestion.
     const far = await post(csvOf([{ ...goodRow(0), steel: 'quite-unknown-steel' }]), '?dryRun=1').expect(200);
     expect(far.body.errors[0].message).not.toMatch(/did you mean/);

@@ -77,6 +77,16 @@ describe('posting a result', () => {
     expect(res.body.notesHtml).toBe('<h2>Setup</h2><p>Light passes, <strong>no burr</strong></p>');
   });
 
+  it('refuses a retention method as the sharpness method, and a sharpness method as the retention method (400 naming the field)', async () => {
+    const { agent, csrf } = await signIn(server.url, await demoHandle(server.url, 'member'));
+    const before = await Result.count();
+    const swapped = { ...goodInput(), sharpness: { method: 'card-cut-retention-v1', readingsG: [180, 175, 190] }, retention: { method: 'push-cut-test-v2', cuts: 240 } };
+    const res = await agent.post('/api/results').set('X-CSRF-Token', csrf).send(swapped).expect(400);
+    const paths = (res.body.issues as { path: string; message: string }[]).map((i) => `${i.path}: ${i.message}`);
+    expect(paths).toEqual(expect.arrayContaining([expect.stringMatching(/^sharpness\.method: .*retention method/), expect.stringMatching(/^retention\.method: .*no retention medium/)]));
+    expect(await Result.count()).toBe(before);
+  });
+
   it('answers bad input with 400 naming each field, and stores nothing', async () => {
     const { agent, csrf } = await signIn(server.url, await demoHandle(server.url, 'member'));
     const before = await Result.count();

@@ -6,29 +6,16 @@
  * Screenshots go to $LOOPS_SHOTS when set (1280x900 and 390x844).
  */
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startE2eApp, type E2eApp } from '../setup/e2e-app';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { e2eSuite, type DemoAccount } from '../setup/e2e-app';
 
-let app: E2eApp;
-let base = '';
-let page: Page;
 const shots = process.env.LOOPS_SHOTS;
 
-beforeAll(async () => {
-  // This suite's ports: 3700–3719.
-  app = await startE2eApp('loops', [3700, 3719]);
-  ({ base, page } = app);
-}, 90_000);
-
-afterAll(() => app?.stop(), 30_000);
-
-interface Account {
-  handle: string;
-  role: string;
-}
-
-const signInAs = (handle: string, returnTo: string) => app.signInAs(handle, returnTo);
-const signOut = () => app.signOut();
+const suite = e2eSuite('loops', [3700, 3719]); // this suite's ports
+let base = '';
+let page: Page;
+beforeAll(() => void ({ base, page } = suite.app));
+const { signInAs, signOut } = suite;
 
 /** Full-page screenshots at the desktop and phone sizes, when asked for. */
 async function screenshot(name: string) {
@@ -53,13 +40,13 @@ async function browserPost<T>(url: string, body: unknown): Promise<T> {
 }
 
 describe('edit and resubmit, corrections, members', () => {
-  let accounts: Account[] = [];
-  let member: Account;
-  let moderator: Account;
+  let accounts: DemoAccount[] = [];
+  let member: DemoAccount;
+  let moderator: DemoAccount;
   let id = 0;
 
   it('a moderator returns a result with a note; the member edits and resubmits it', async () => {
-    accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as Account[];
+    accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
     member = accounts.filter((a) => a.role === 'member')[1];
     moderator = accounts.find((a) => a.role === 'moderator')!;
 
@@ -75,6 +62,16 @@ describe('edit and resubmit, corrections, members', () => {
     await signOut();
 
     await signInAs(moderator.handle, `/review?open=${id}`);
+    // The desk's context: the cell and place in it, the outlier rule with its source, the method's readings, duplicates, the record.
+    const context = page.getByRole('region', { name: 'Context' });
+    await context.getByText('Cell it would join').waitFor();
+    await context.getByText(/percentile rank|first/).first().waitFor();
+    await context.getByText(/Tukey's fences.*Exploratory Data Analysis/).waitFor();
+    await context.getByText('The method asks for 5 readings per edge; this result has 3 (2 short).').waitFor();
+    await context.getByText(/Near-duplicate: another pending or published result/).waitFor();
+    await context.getByText(/published, \d+ pending/).waitFor();
+    await page.getByRole('heading', { name: 'Keyboard shortcuts' }).waitFor();
+    await screenshot('desk-context');
     const decision = page.getByRole('form', { name: `Decision on result ${id}` });
     await decision.getByLabel('Note to the author').fill('Add two more readings.');
     await decision.getByRole('button', { name: 'Return with note' }).click();
@@ -145,4 +142,38 @@ describe('edit and resubmit, corrections, members', () => {
     await page.getByText('Copied readings.').first().waitFor();
     await signOut();
   }, 120_000);
+});
+
+describe('small things found by walking it (issue 17, item 6)', () => {
+  it('the sign-in page lets a visitor choose whom to sign in as, rather than signing in a default member', async () => {
+    await page.goto(`${base}/sign-in`);
+    await page.getByRole('heading', { name: 'Demo accounts' }).waitFor();
+    await page.getByText('choose whom to sign in as', { exact: false }).waitFor();
+    expect(await page.getByRole('link', { name: 'Continue to sign in' }).count()).toBe(0);
+  }, 60_000);
+
+  it("an unknown steel's page says there is no such steel, with ways on", async () => {
+    await page.goto(`${base}/steels/aisi-d3x`);
+    await page.getByRole('heading', { name: 'No such steel' }).waitFor();
+    expect(await page.getByRole('link', { name: 'All steels' }).count()).toBe(1);
+    expect(await page.getByRole('link', { name: 'Search for “aisi d3x”' }).count()).toBe(1);
+    expect(await page.getByText('could not be loaded').count()).toBe(0);
+  }, 60_000);
+
+  it('the new-result page logs no "NaN cannot be parsed" warning, and offers no retention method for sharpness', async () => {
+    const accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
+    const messages: string[] = [];
+    const listen = (m: { text: () => string }) => messages.push(m.text());
+    page.on('console', listen);
+    await signInAs(accounts.filter((a) => a.role === 'member')[0].handle, '/results/new');
+    const form = page.getByRole('form', { name: 'New result' });
+    await form.getByLabel('Sharpness method').waitFor();
+    await form.getByRole('button', { name: /Add a step/ }).click();
+    page.off('console', listen);
+    expect(messages.filter((m) => /NaN/.test(m))).toEqual([]);
+    const options = await form.getByLabel('Sharpness method').locator('option').allTextContents();
+    expect(options.some((o) => /retention/i.test(o))).toBe(false);
+    expect(options.some((o) => /Push-cut/.test(o))).toBe(true);
+    await signOut();
+  }, 60_000);
 });

@@ -6,14 +6,10 @@
  * role and label. It builds nothing: `dist/` must exist.
  */
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startE2eApp, type E2eApp } from '../setup/e2e-app';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { e2eSuite, type DemoAccount } from '../setup/e2e-app';
 import { IMPORT_COLUMNS } from '../../shared/csv';
 import { toCsv } from '../../shared/csv-writer';
-
-let app: E2eApp;
-let base = '';
-let page: Page;
 
 async function api<T>(pathname: string, init?: RequestInit): Promise<{ status: number; body: T }> {
   const res = await fetch(`${base}${pathname}`, init);
@@ -21,42 +17,35 @@ async function api<T>(pathname: string, init?: RequestInit): Promise<{ status: n
   return { status: res.status, body: (text ? JSON.parse(text) : null) as T };
 }
 
-beforeAll(async () => {
-  // This suite's ports: 3660–3679.
-  app = await startE2eApp('moderator', [3660, 3679]);
-  ({ base, page } = app);
-}, 90_000);
-
-afterAll(() => app?.stop(), 30_000);
-
-interface Account {
-  handle: string;
-  role: string;
-  displayName?: string;
-}
-
-const signInAs = (handle: string, returnTo: string) => app.signInAs(handle, returnTo);
-const signOut = () => app.signOut();
+const suite = e2eSuite('moderator', [3660, 3679]); // this suite's ports
+let base = '';
+let page: Page;
+beforeAll(() => void ({ base, page } = suite.app));
+const { signInAs, signOut } = suite;
 
 /** Makes a token on one's own page and reads it off the screen. */
 async function makeToken(name: string): Promise<string> {
   const tokens = page.getByRole('region', { name: 'API tokens' });
   await tokens.getByLabel('Token name').fill(name);
   await tokens.getByRole('button', { name: 'Create token' }).click();
-  return ((await tokens.getByLabel('New token').textContent()) ?? '').trim();
+  // The new token has the focus, with a button to copy it.
+  const field = tokens.getByLabel('New token');
+  expect(await field.evaluate((el) => el === document.activeElement)).toBe(true);
+  expect(await tokens.getByRole('button', { name: 'Copy token' }).isVisible()).toBe(true);
+  return (await field.inputValue()).trim();
 }
 
 const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 describe('the moderator’s desk in a browser', () => {
-  let accounts: Account[] = [];
+  let accounts: DemoAccount[] = [];
   let moderatorToken = '';
-  let publisher: Account;
+  let publisher: DemoAccount;
   let importId = 0;
   let singleId = 0;
 
   it('0. a publisher imports five results and posts one more; a member flags a published result', async () => {
-    accounts = (await api<Account[]>('/auth/demo-accounts')).body;
+    accounts = (await api<DemoAccount[]>('/auth/demo-accounts')).body;
     const mod2 = accounts.filter((a) => a.role === 'moderator')[1];
     publisher = accounts.find((a) => a.role === 'publisher')!;
     const member = accounts.find((a) => a.role === 'member')!;

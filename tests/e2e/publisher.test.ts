@@ -101,7 +101,7 @@ describe('the publisher’s journey in a browser', () => {
     const tokens = page.getByRole('region', { name: 'API tokens' });
     await tokens.getByLabel('Token name').fill('bench script');
     await tokens.getByRole('button', { name: 'Create token' }).click();
-    const token = ((await tokens.getByLabel('New token').textContent()) ?? '').trim();
+    const token = (await tokens.getByLabel('New token').inputValue()).trim();
     expect(token).toMatch(/^elt_/);
 
     const input = { steel: 'aisi-o1', hardness: { value: 62, scale: 'HRC' }, abrasive: 'alox-vitrified-wheel-250-fine-dressed', edgeAngle: { perSideDeg: 14 }, sharpness: { method: 'push-cut-test-v2', readingsG: [200, 205, 198] } };

@@ -4,6 +4,7 @@ import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 
 const CHROMIUM = '/usr/bin/chromium';
 // Without the background-networking flags Chromium keeps dialling out on a closed network.
@@ -104,4 +105,28 @@ export async function startE2eApp(name: string, ports: [number, number], viewpor
     await page.getByRole('banner').getByRole('link', { name: 'Sign in' }).waitFor();
   };
   return { base, context, page, signInAs, signOut, output: () => output, stop };
+}
+
+/** A demo account as GET /auth/demo-accounts lists it. */
+export interface DemoAccount {
+  handle: string;
+  role: string;
+  displayName?: string;
+}
+
+/**
+ * A suite's app, started before its tests on the suite's own port range and stopped after them:
+ * call once at the top of a suite and read `suite.app` (its page, base URL) inside the tests.
+ */
+export function e2eSuite(name: string, ports: [number, number]) {
+  const suite = {
+    app: undefined as unknown as E2eApp,
+    signInAs: (handle: string, returnTo: string) => suite.app.signInAs(handle, returnTo),
+    signOut: () => suite.app.signOut(),
+  };
+  beforeAll(async () => {
+    suite.app = await startE2eApp(name, ports);
+  }, 90_000);
+  afterAll(() => suite.app?.stop(), 30_000);
+  return suite;
 }

@@ -3,7 +3,8 @@ import { paths } from '@/config/paths';
 import { PageTitle } from '@/components/ui/page-title';
 import { FollowButton } from '@/features/me/components/follow-button';
 import { FlagForm } from '@/features/curation/components/flag-form';
-import { ErrorState, Loading } from '@/components/ui/states';
+import { Loading } from '@/components/ui/states';
+import { ReferencePageError } from '@/components/ui/reference-page-error';
 import { useAbrasive } from '@/features/abrasives/api/get-abrasive';
 import { AbrasiveDetail } from '@/features/abrasives/components/abrasive-detail';
 
@@ -13,12 +14,7 @@ export default function AbrasiveRoute() {
   const page = useAbrasive(slug);
   if (page.isPending) return <Loading />;
   if (page.isError) {
-    return (
-      <div className="flex flex-col gap-4">
-        <ErrorState error={page.error} onRetry={() => page.refetch()} />
-        <Link to={paths.abrasives.getHref()}>All abrasives</Link>
-      </div>
-    );
+    return <ReferencePageError error={page.error} onRetry={() => page.refetch()} what="abrasive" slug={slug} list={{ href: paths.abrasives.getHref(), label: 'All abrasives' }} />;
   }
   return (
     <article className="flex flex-col gap-6">

@@ -1,7 +1,8 @@
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { PageTitle } from '@/components/ui/page-title';
-import { ErrorState, Loading } from '@/components/ui/states';
+import { Loading } from '@/components/ui/states';
+import { ReferencePageError } from '@/components/ui/reference-page-error';
 import { useMethod } from '@/features/methods/api/get-method';
 import { MethodDetail } from '@/features/methods/components/method-detail';
 
@@ -11,12 +12,7 @@ export default function MethodRoute() {
   const page = useMethod(slug);
   if (page.isPending) return <Loading />;
   if (page.isError) {
-    return (
-      <div className="flex flex-col gap-4">
-        <ErrorState error={page.error} onRetry={() => page.refetch()} />
-        <Link to={paths.methods.getHref()}>All methods</Link>
-      </div>
-    );
+    return <ReferencePageError error={page.error} onRetry={() => page.refetch()} what="method" slug={slug} list={{ href: paths.methods.getHref(), label: 'All methods' }} />;
   }
   return (
     <article className="flex flex-col gap-6">

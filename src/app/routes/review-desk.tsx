@@ -13,6 +13,7 @@ import { useMethods } from '@/features/methods/api/get-methods';
 import { ResultDetail } from '@/features/results/components/result-detail';
 import { ReviewDecisionForm } from '@/features/results/components/review-decision-form';
 import { DeskCorrections } from '@/features/results/components/desk-corrections';
+import { DeskContextPanel } from '@/features/results/components/desk-context';
 import type { Result } from '@/types/api';
 
 const DECIDED: Record<string, string> = { approve: 'approved', return: 'returned to its author', reject: 'rejected' };
@@ -90,7 +91,7 @@ function Queue() {
         )}
       </section>
 
-      <section aria-labelledby="open-item" className="min-w-0">
+      <section aria-labelledby="open-item" className={`min-w-0 ${open ? 'order-first lg:order-none' : ''}`}>
         {open ? (
           <div className="flex flex-col gap-6">
             <div className="flex flex-wrap items-baseline justify-between gap-2">
@@ -101,6 +102,7 @@ function Queue() {
                 Close
               </button>
             </div>
+            <DeskContextPanel resultId={open.id} authorHandle={open.author?.handle ?? null} />
             <ResultDetail result={open} headingLevel={3} methodNames={methodNames} />
             <section aria-labelledby="decision">
               <h3 id="decision" className="mb-2 text-xl font-semibold">

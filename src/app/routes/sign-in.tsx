@@ -61,6 +61,8 @@ export default function SignInRoute() {
   const failed = params.get('failed') === '1';
   const session = useSession();
   const user = session.data?.user;
+  const accounts = useDemoAccounts();
+  const demo = !!accounts.data?.length;
   return (
     <div className="flex flex-col gap-8">
       <PageTitle
@@ -85,11 +87,18 @@ export default function SignInRoute() {
             You will be sent to the sign-in service and brought back here. Edgeledger keeps your handle, display name
             and role; it never sees your password.
           </p>
-          <p>
-            <a href={paths.auth.signIn(returnTo)} className={buttonClasses('primary')}>
-              Continue to sign in
-            </a>
-          </p>
+          {accounts.isPending ? null : demo ? (
+            // The local sign-in service has no login screen: without a choice it would sign the visitor in as a default demo member.
+            <p className="max-w-2xl font-semibold">
+              On this development server, choose whom to sign in as from the <a href="#demo">demo accounts</a> below.
+            </p>
+          ) : (
+            <p>
+              <a href={paths.auth.signIn(returnTo)} className={buttonClasses('primary')}>
+                Continue to sign in
+              </a>
+            </p>
+          )}
         </div>
       )}
       <DemoAccounts returnTo={returnTo} />

@@ -3,7 +3,8 @@ import { paths } from '@/config/paths';
 import { PageTitle } from '@/components/ui/page-title';
 import { FollowButton } from '@/features/me/components/follow-button';
 import { FlagForm } from '@/features/curation/components/flag-form';
-import { ErrorState, Loading } from '@/components/ui/states';
+import { Loading } from '@/components/ui/states';
+import { ReferencePageError } from '@/components/ui/reference-page-error';
 import { useSteel } from '@/features/steels/api/get-steel';
 import { SteelDetail } from '@/features/steels/components/steel-detail';
 
@@ -13,12 +14,7 @@ export default function SteelRoute() {
   const page = useSteel(slug);
   if (page.isPending) return <Loading />;
   if (page.isError) {
-    return (
-      <div className="flex flex-col gap-4">
-        <ErrorState error={page.error} onRetry={() => page.refetch()} />
-        <Link to={paths.steels.getHref()}>All steels</Link>
-      </div>
-    );
+    return <ReferencePageError error={page.error} onRetry={() => page.refetch()} what="steel" slug={slug} list={{ href: paths.steels.getHref(), label: 'All steels' }} />;
   }
   return (
     <article className="flex flex-col gap-6">

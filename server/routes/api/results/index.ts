@@ -19,7 +19,8 @@ import { reviewDeskRevisions } from '../../../queries/pages';
 import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import { bulkApproveSchema, retractInputSchema, reviewDeskQuerySchema, type ReviewDeskQuery } from '@shared/schemas/publishing';
 import { openFlags, pendingImports, pendingResults } from '../../../queries/review-desk';
-import { presentDeskResults, presentDeskRevisions, presentOpenFlags, presentPendingImports } from '../../../presenters/review-desk';
+import { presentDeskContext, presentDeskResults, presentDeskRevisions, presentOpenFlags, presentPendingImports } from '../../../presenters/review-desk';
+import { deskContext } from '../../../queries/desk-context';
 import { bulkApproveResults } from '../../../commands/bulk-approve-results';
 import { retractResult } from '../../../commands/retract-result';
 
@@ -99,6 +100,13 @@ export function resultsRouter(ctx: AppContext): Router {
       // Corrections of published results, each with the changes against the published version.
       resultRevisions: show('result') ? presentPendingRevisions(await pendingResultRevisions(), actor) : [],
     });
+  });
+
+  // One pending result's context: its cell and place there, the outlier hint, readings, near-duplicates, the author's record.
+  router.get('/review-desk/results/:id/context', requireUser, validate({ params: idParams, query: emptyQuerySchema }), async (req, res) => {
+    if (!can(actorOf(req)!, 'read:review-desk')) throw forbidden('The review desk is for moderators.');
+    const { id } = req.valid.params as z.infer<typeof idParams>;
+    res.json(presentDeskContext(await deskContext(id)));
   });
 
   router.post('/review-desk/bulk-approve', requireUser, validate({ body: bulkApproveSchema }), async (req, res) => {

@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import { formatDate } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { controlA11y, Field, Input } from '@/components/ui/field';
@@ -15,6 +15,16 @@ export function TokensPanel({ tokens }: { tokens: ApiTokenInfo[] }) {
   const create = useCreateToken();
   const revoke = useRevokeToken();
   const fresh = create.data;
+  // The new token takes the focus, selected, so it can be copied at once (or with the button).
+  const tokenRef = useRef<HTMLInputElement>(null);
+  const [copied, setCopied] = useState<string | null>(null);
+  useEffect(() => {
+    if (fresh) {
+      tokenRef.current?.focus();
+      tokenRef.current?.select();
+    }
+    setCopied(null);
+  }, [fresh?.token]);
 
   return (
     <section aria-labelledby="tokens" className="flex flex-col gap-3">
@@ -50,8 +60,22 @@ export function TokensPanel({ tokens }: { tokens: ApiTokenInfo[] }) {
       {fresh ? (
         <div role="status" className="rounded-md border border-caution/40 bg-caution-soft px-4 py-3">
           <p className="font-semibold">Your new token “{fresh.name}”: copy it now, it is shown only once.</p>
-          <p className="mt-1 break-all font-mono" aria-label="New token">
-            {fresh.token}
+          <div className="mt-2 flex flex-wrap items-center gap-2">
+            <Input ref={tokenRef} readOnly value={fresh.token} aria-label="New token" className="min-w-0 flex-1 font-mono" onFocus={(e) => e.currentTarget.select()} />
+            <Button
+              variant="secondary"
+              onClick={() => {
+                (navigator.clipboard?.writeText(fresh.token) ?? Promise.reject(new Error('no clipboard'))).then(
+                  () => setCopied('Copied to the clipboard.'),
+                  () => setCopied('The browser did not allow copying; select the token and copy it yourself.'),
+                );
+              }}
+            >
+              Copy token
+            </Button>
+          </div>
+          <p aria-live="polite" className="mt-1 text-sm empty:hidden">
+            {copied}
           </p>
         </div>
       ) : null}

@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Field, Input, Select, controlA11y, PageOptions } from '@/components/ui/field';
 import type { AbrasiveSummary } from '@/types/api';
 import type { ResultInput } from '@shared/schemas/result';
-import type { ResultFormValues } from './result-form-values';
+import { initialBoxes, type ProgressionFormStep, type ResultFormValues } from './result-form-values';
 
 /** Focuses the element with `id` once React has drawn the change that made or moved it. */
 const focusSoon = (id: string) => requestAnimationFrame(() => document.getElementById(id)?.focus());
@@ -77,7 +77,7 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
           variant="secondary"
           disabled={fields.length >= PROGRESSION_MAX}
           onClick={() => {
-            append({ abrasive: '', gritGrade: '', perSideDeg: Number.NaN }, { shouldFocus: false });
+            append(initialBoxes({ abrasive: '', gritGrade: '', perSideDeg: Number.NaN }) as ProgressionFormStep, { shouldFocus: false });
             focusSoon(`step-${fields.length}-abrasive`);
           }}
         >

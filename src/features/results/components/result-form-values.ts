@@ -4,7 +4,7 @@
  * schema sees only what the person actually filled in, with empty optional groups left out,
  * because the schema is strict.
  */
-import type { FieldError, FieldErrors, FieldPath } from 'react-hook-form';
+import type { DefaultValues, FieldError, FieldErrors, FieldPath } from 'react-hook-form';
 import type { GritStandard } from '@shared/grit';
 import type { HardnessScale } from '@shared/hardness';
 import type { RichTextNode } from '@shared/rich-text';
@@ -178,4 +178,15 @@ export function flattenErrors(errors: FieldErrors | ErrorTree, prefix = ''): { p
     out.push(...flattenErrors(node, path));
   }
   return out;
+}
+
+/**
+ * The values as the form's boxes start: an empty number box is left empty rather than given NaN,
+ * which a number input cannot show (Chromium warns "The specified value "NaN" cannot be parsed").
+ * The form reads an untouched box as undefined, which counts as blank like NaN.
+ */
+export function initialBoxes<T>(values: T): DefaultValues<T> {
+  const clean = (v: unknown): unknown =>
+    typeof v === 'number' && Number.isNaN(v) ? undefined : Array.isArray(v) ? v.map(clean) : v && typeof v === 'object' ? Object.fromEntries(Object.entries(v).map(([k, x]) => [k, clean(x)])) : v;
+  return clean(values) as DefaultValues<T>;
 }

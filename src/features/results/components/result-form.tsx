@@ -7,7 +7,7 @@ import { HARDNESS_SCALE_LABELS, HARDNESS_SCALES, toHrc } from '@shared/hardness'
 import { angleFromSetup } from '@shared/geometry';
 import { median } from '@shared/stats';
 import { limits } from '@shared/validations';
-import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
+import { ABRASIVE_MATERIALS, isRetentionMethod } from '@shared/vocabulary';
 import { ApiError } from '@/lib/api-client';
 import { friendlyZodMessages } from '@/lib/zod-messages';
 import { formatDegrees, formatGrams, formatGritBand, formatMicrometres, formatNumber, label } from '@/lib/format';
@@ -27,6 +27,7 @@ import {
   formFieldFor,
   parseReadings,
   readingMessage,
+  initialBoxes,
   toResultInput,
   type ResultFormValues,
 } from './result-form-values';
@@ -148,14 +149,15 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
   } = useForm<ResultFormValues, unknown, ResultInput>({
     mode: 'onChange',
     resolver: resultResolver,
-    defaultValues: editing ? fromResultInput(editing.input) : emptyResultForm,
+    defaultValues: initialBoxes(editing ? fromResultInput(editing.input) : emptyResultForm),
   });
 
   const values = useWatch({ control });
   const angleMode = values.angleMode ?? 'perSide';
   const abrasive = abrasives.find((a) => a.slug === values.abrasive);
-  // Only methods that define a retention medium can count cuts.
-  const retentionMethods = methods.filter((m) => m.retentionMedium);
+  // Only methods that define a retention medium count cuts; the others measure sharpness.
+  const retentionMethods = methods.filter(isRetentionMethod);
+  const sharpnessMethods = methods.filter((m) => !isRetentionMethod(m));
 
   const hrcPreview = useMemo(() => {
     const v = values.hardness?.value;
@@ -461,7 +463,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
         <Field id="result-method" label="Sharpness method" error={methodError}>
           <Select {...controlA11y('result-method', { error: methodError })} {...register('sharpness.method')}>
             <option value="">Choose a method…</option>
-            <PageOptions pages={methods} />
+            <PageOptions pages={sharpnessMethods} />
           </Select>
         </Field>
         <Field

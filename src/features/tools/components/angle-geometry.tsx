@@ -136,12 +136,12 @@ export default function AngleGeometry() {
             {drift?.value ? (
               <Facts
                 items={[
-                  { term: 'Angle when set', value: formatDegrees(drift.value.originalPerSideDeg, 2) + ' per side' },
+                  { term: 'Angle when set', value: formatDegrees(drift.value.originalPerSideDeg) + ' per side' },
                   {
                     term: 'Angle now',
                     value: (
                       <span>
-                        <strong className="font-semibold">{formatDegrees(drift.value.currentPerSideDeg, 2)} per side</strong>{' '}
+                        <strong className="font-semibold">{formatDegrees(drift.value.currentPerSideDeg)} per side</strong>{' '}
                         <span className="text-muted">({changeText(drift.value.currentPerSideDeg - drift.value.originalPerSideDeg)})</span>
                       </span>
                     ),
@@ -243,7 +243,7 @@ function SetupDrawing({ setup, perSideDeg, lengthUnit }: { setup: WheelSetup; pe
       aria-labelledby={titleId}
     >
       <title id={titleId}>
-        {`Wheel of ${formatLength(setup.wheelDiameterMm, lengthUnit)}, bar of ${formatLength(setup.barDiameterMm, lengthUnit)} at a gap of ${formatLength(setup.gapMm, lengthUnit)}, blade projecting ${formatLength(L, lengthUnit)}${e ? ` with its plane ${formatLength(e, lengthUnit)} off the bar’s axis` : ''}: ${formatDegrees(perSideDeg, 1)} per side.`}
+        {`Wheel of ${formatLength(setup.wheelDiameterMm, lengthUnit)}, bar of ${formatLength(setup.barDiameterMm, lengthUnit)} at a gap of ${formatLength(setup.gapMm, lengthUnit)}, blade projecting ${formatLength(L, lengthUnit)}${e ? ` with its plane ${formatLength(e, lengthUnit)} off the bar’s axis` : ''}: ${formatDegrees(perSideDeg)} per side.`}
       </title>
       <circle cx={0} cy={0} r={R} className="fill-paper stroke-ink" strokeWidth={unit * 1.2} />
       <circle cx={0} cy={0} r={unit * 2} className="fill-ink" />
@@ -293,7 +293,7 @@ function SetupDrawing({ setup, perSideDeg, lengthUnit }: { setup: WheelSetup; pe
         className="fill-caution font-semibold"
         fontSize={unit * 11}
       >
-        {formatDegrees(perSideDeg, 1)}
+        {formatDegrees(perSideDeg)}
       </text>
       <circle cx={X(C)} cy={Y(C)} r={unit * 2.5} className="fill-caution" />
     </svg>

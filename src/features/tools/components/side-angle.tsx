@@ -115,7 +115,7 @@ function SideDrawing({ setup, perSideDeg, lengthUnit }: { setup: SideSetup; perS
   return (
     <svg viewBox={`${minX} ${-maxY} ${maxX - minX} ${maxY - minY}`} className="mx-auto h-auto max-h-[26rem] w-full" role="img" aria-labelledby={titleId}>
       <title id={titleId}>
-        {`Bar of ${formatLength(setup.barDiameterMm, lengthUnit)} at ${formatLength(setup.gapMm, lengthUnit)} from the wheel’s face, blade projecting ${formatLength(L, lengthUnit)}: ${formatDegrees(perSideDeg, 1)} per side.`}
+        {`Bar of ${formatLength(setup.barDiameterMm, lengthUnit)} at ${formatLength(setup.gapMm, lengthUnit)} from the wheel’s face, blade projecting ${formatLength(L, lengthUnit)}: ${formatDegrees(perSideDeg)} per side.`}
       </title>
       <rect x={minX} y={-maxY} width={-minX} height={maxY - minY} className="fill-rule" />
       <line x1={0} y1={-maxY} x2={0} y2={-minY} className="stroke-ink" strokeWidth={unit * 1.5} />
@@ -131,7 +131,7 @@ function SideDrawing({ setup, perSideDeg, lengthUnit }: { setup: SideSetup; perS
         strokeWidth={unit * 1.5}
       />
       <text x={arcR * Math.sin(a / 2) + unit * 4} y={-arcR * Math.cos(a / 2) - unit * 6} className="fill-caution font-semibold" fontSize={unit * 11}>
-        {formatDegrees(perSideDeg, 1)}
+        {formatDegrees(perSideDeg)}
       </text>
       <circle cx={0} cy={0} r={unit * 2.5} className="fill-caution" />
     </svg>

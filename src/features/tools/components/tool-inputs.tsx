@@ -150,8 +150,8 @@ export function SetupSection<F extends string>({
           {angle ? (
             <Facts
               items={[
-                { term: 'Angle per side', value: <strong className="text-xl font-semibold">{formatDegrees(angle.perSideDeg, 2)}</strong> },
-                { term: 'Inclusive angle', value: formatDegrees(angle.inclusiveDeg, 2) },
+                { term: 'Angle per side', value: <strong className="text-xl font-semibold">{formatDegrees(angle.perSideDeg)}</strong> },
+                { term: 'Inclusive angle', value: formatDegrees(angle.inclusiveDeg) },
               ]}
             />
           ) : null}

@@ -3,6 +3,7 @@
  * original diameter as a dashed reference line. Colour is not the only carrier: each point is
  * labelled in the table beside it.
  */
+import { formatDate } from '@/lib/format';
 export function WearChart({ original, series }: { original: number; series: { measuredOn: string; diameterMm: number }[] }) {
   if (series.length < 2) return null;
   const w = 320;
@@ -26,8 +27,8 @@ export function WearChart({ original, series }: { original: number; series: { me
       {series.map((s, i) => (
         <circle key={s.measuredOn + i} cx={x(times[i])} cy={y(s.diameterMm)} r="3" fill="#0f6e6a" />
       ))}
-      <text x={pad.l} y={h - 6} fontSize="10" fill="#5b6270">{series[0].measuredOn}</text>
-      <text x={w - pad.r} y={h - 6} textAnchor="end" fontSize="10" fill="#5b6270">{series[series.length - 1].measuredOn}</text>
+      <text x={pad.l} y={h - 6} fontSize="10" fill="#5b6270">{formatDate(series[0].measuredOn)}</text>
+      <text x={w - pad.r} y={h - 6} textAnchor="end" fontSize="10" fill="#5b6270">{formatDate(series[series.length - 1].measuredOn)}</text>
     </svg>
   );
 }

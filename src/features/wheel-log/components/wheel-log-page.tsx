@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { wheelInputSchema, wheelMeasurementSchema } from '@shared/schemas/wheels';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/config/paths';
-import { formatNumber } from '@/lib/format';
+import { formatDate, formatNumber } from '@/lib/format';
 import { PageTitle } from '@/components/ui/page-title';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { controlA11y, Field, Input, Select } from '@/components/ui/field';
@@ -131,7 +131,7 @@ function WheelCard({ wheel }: { wheel: LoggedWheel }) {
               <caption className="text-left font-medium">Measured diameters</caption>
               <tbody>
                 {wheel.series.map((m, i) => (
-                  <tr key={`${m.measuredOn}-${i}`} className="border-t border-rule"><td className="py-1">{m.measuredOn}</td><td className="py-1 text-right">{formatNumber(m.diameterMm, 1)} mm</td></tr>
+                  <tr key={`${m.measuredOn}-${i}`} className="border-t border-rule"><td className="py-1">{formatDate(m.measuredOn)}</td><td className="py-1 text-right">{formatNumber(m.diameterMm, 1)} mm</td></tr>
                 ))}
               </tbody>
             </table>

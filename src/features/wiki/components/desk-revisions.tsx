@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { FIELD_LABELS } from '@shared/schemas/pages';
 import { paths } from '@/config/paths';
@@ -17,9 +17,12 @@ function OpenEdit({ item, onDecided }: { item: DeskRevision; onDecided: () => vo
   const proposal = useRevision(page.section, page.slug, item.id);
   const base = useRevision(page.section, page.slug, item.baseRevisionId ?? 0);
   const type = SECTION_TYPES[page.section];
+  // Opened, the edit's heading takes the focus, which brings its diff into view above the rest of the queue.
+  const headingRef = useRef<HTMLHeadingElement>(null);
+  useEffect(() => headingRef.current?.focus(), []);
   return (
     <div className="flex flex-col gap-4">
-      <h3 className="text-xl font-semibold">
+      <h3 ref={headingRef} tabIndex={-1} className="text-xl font-semibold">
         Edit of <Link to={paths.wiki.page(page.section, page.slug)}>{page.name}</Link>: “{item.summary}”
       </h3>
       <p className="text-muted">
@@ -89,7 +92,8 @@ export function DeskRevisions() {
           </ol>
         )}
       </div>
-      <div className="min-w-0">
+      {/* On a phone the open edit comes first, so its diff opens at the top rather than below the list. */}
+      <div className={`min-w-0 ${open ? 'order-first lg:order-none' : ''}`}>
         {open && open.page ? (
           <OpenEdit key={open.id} item={open} onDecided={() => setOpenId(null)} />
         ) : items.length ? (

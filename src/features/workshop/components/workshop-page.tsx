@@ -174,7 +174,7 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
         <tbody>
           {wheel.measurements.map((x) => (
             <tr key={x.id} className="border-t border-rule">
-              <td className="py-1">{x.measuredOn}</td>
+              <td className="py-1">{formatDate(x.measuredOn)}</td>
               <td className="py-1">
                 {formatLength(x.diameterMm, unit)}
                 {x.dressed ? ' · dressed' : ''}
