@@ -9,6 +9,7 @@ import { forbidden } from '../../../errors';
 import { listUsers } from '../../../queries/users';
 import { manageUser } from '../../../commands/manage-user';
 import { presentAccount, presentManagedAccount } from '../../../presenters/user';
+import { setPageLinks } from '../../../presenters/page-links';
 
 /** Admins manage accounts: find them, change a role, ban or lift a ban (audited). */
 export function adminRouter(ctx: AppContext): Router {
@@ -17,7 +18,7 @@ export function adminRouter(ctx: AppContext): Router {
   router.get('/admin/users', requireUser, validate({ query: adminUsersQuerySchema }), async (req, res) => {
     if (!can(actorOf(req), 'manage:users')) throw forbidden('Managing members is for admins.');
     const page = await listUsers(req.valid.query as z.infer<typeof adminUsersQuerySchema>);
-    res.set('Cache-Control', 'no-store').json({ ...page, items: page.items.map(({ user, ...counts }) => presentManagedAccount(user, counts)) });
+    setPageLinks(req, res, page).set('Cache-Control', 'no-store').json({ ...page, items: page.items.map(({ user, ...counts }) => presentManagedAccount(user, counts)) });
   });
 
   router.patch('/admin/users/:handle', requireUser, validate({ params: handleParamsSchema, body: adminUserChangeSchema }), async (req, res) => {

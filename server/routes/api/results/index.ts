@@ -1,6 +1,6 @@
 import { Router, type Request, type Response } from 'express';
-import { z } from 'zod';
-import { resultInputSchema, resultListQuerySchema, reviewInputSchema, type ResultInput, type ReviewInput } from '@shared/schemas/result';
+import type { z } from 'zod';
+import { resultInputSchema, resultListQuerySchema, resultRevisionParams, reviewInputSchema, type ResultInput, type ReviewInput } from '@shared/schemas/result';
 import type { AppContext } from '../../../context';
 import type { User } from '../../../models';
 import { actorOf, requireUser } from '../../../middleware/auth';
@@ -22,8 +22,6 @@ import { openFlags, pendingImports, pendingResults } from '../../../queries/revi
 import { presentDeskResults, presentDeskRevisions, presentOpenFlags, presentPendingImports } from '../../../presenters/review-desk';
 import { bulkApproveResults } from '../../../commands/bulk-approve-results';
 import { retractResult } from '../../../commands/retract-result';
-
-const resultRevisionParams = z.object({ id: z.coerce.number().int().positive(), rev: z.coerce.number().int().positive() }).strict();
 
 /** Results: post, list, read, review; and the review desk's queue. */
 export function resultsRouter(ctx: AppContext): Router {

@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { wheelInputSchema, wheelMeasurementSchema, type WheelInput, type WheelMeasurementInput } from '@shared/schemas/wheels';
+import type { z } from 'zod';
+import { measurementParams, wheelInputSchema, wheelMeasurementSchema, type WheelInput, type WheelMeasurementInput } from '@shared/schemas/wheels';
 import { summarizeWheelLog } from '@shared/wheel-log';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
@@ -10,8 +10,6 @@ import { notFound } from '../../../errors';
 import { wheelsOf as own } from '../../../queries/wheels';
 import type { Wheel } from '../../../models';
 import { emptyQuerySchema, idParams } from '@shared/schemas/common';
-
-const measurementParams = z.object({ id: z.coerce.number().int().positive(), measurementId: z.coerce.number().int().positive() }).strict();
 
 function presentWheel(wheel: Wheel) {
   const measurements = (wheel.measurements ?? []).map((m) => ({ measuredOn: m.measuredOn, diameterMm: m.diameterMm }));

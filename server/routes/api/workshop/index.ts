@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import type { z } from 'zod';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import {
   grinderInputSchema,
   jigInputSchema,
@@ -22,8 +22,6 @@ import { validate } from '../../../middleware/validate';
 import { addGrinder, addJig, addWorkshopWheel, reportPrice, retireWheel, saveSetup } from '../../../commands/equip-workshop';
 import { abrasiveBySlug, priceSummary, readWorkshop } from '../../../queries/workshop';
 import { notFound } from '../../../errors';
-
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /**
  * A member's workshop: private, read and written only by its owner (every read is by the signed-in
