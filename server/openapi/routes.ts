@@ -4,7 +4,7 @@
  *
  * HOW TO DESCRIBE A NEW ROUTE: add one entry to `apiRoutes` below, beside its neighbours: the
  * method and the path exactly as the router registers it (`'/results/:id'`), a summary, who may
- * call it, and the schemas its `validate()` uses (params, query, body), with its response
+ * call it, and the schemas its `route()` validates with (params, query, body), with its response
  * schema (shared/schemas/responses.ts) or kind. tests/api/openapi.test.ts fails, naming the
  * route, while a mounted route has no entry or an entry names no mounted route.
  */

@@ -1,5 +1,4 @@
 import { Router, type Response } from 'express';
-import { z } from 'zod';
 import { can, type Actor } from '@shared/permissions';
 import { gritBandPhi } from '@shared/grit';
 import { matchesComposition, parseCompositionFilter } from '@shared/composition-filter';
@@ -16,16 +15,11 @@ import {
   revisionParams,
   slugParams,
   steelListQuerySchema,
-  type PageEdit,
-  type PageMerge,
-  type PageProtect,
-  type PageRevert,
-  type PageReview,
   type PageType,
 } from '@shared/schemas/pages';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 import type { AnswerCache } from '../../../middleware/answer-cache';
 import { forbidden, notFound } from '../../../errors';
 import { keptUntil } from '../../../queries/kept-until';
@@ -142,8 +136,8 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
   // A page's answer but for the viewer's actions, computed once for everyone (signed in or not).
   const sharedPages = keptUntil<string, Promise<SharedPage>>('pages', { max: 2_000 });
 
-  router.get('/steels', forVisitors, validate({ query: steelListQuerySchema }), async (req, res) => {
-    const q = req.valid.query as z.infer<typeof steelListQuerySchema>;
+  router.get('/steels', forVisitors, route({ query: steelListQuerySchema }, async (req, res) => {
+    const q = req.valid.query;
     const filters = q.composition ? parseCompositionFilter(q.composition) : [];
     const [steels, counts] = await Promise.all([listSteels(), approvedCounts('steelId')]);
     const items = steels.filter(
@@ -155,10 +149,10 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
         (q.hrcMax === undefined || (s.hardnessMinHrc ?? Infinity) <= q.hrcMax),
     );
     res.json({ items: items.map((s) => presentSteelSummary(s, counts.get(s.id) ?? 0)) });
-  });
+  }));
 
-  router.get('/abrasives', forVisitors, validate({ query: abrasiveListQuerySchema }), async (req, res) => {
-    const q = req.valid.query as z.infer<typeof abrasiveListQuerySchema>;
+  router.get('/abrasives', forVisitors, route({ query: abrasiveListQuerySchema }, async (req, res) => {
+    const q = req.valid.query;
     const [abrasives, counts] = await Promise.all([listAbrasives(), approvedCounts('abrasiveId')]);
     const items = abrasives.filter(
       (a) =>
@@ -168,19 +162,19 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
         (q.gritPhi === undefined || gritBandPhi(a.gritUm) === q.gritPhi),
     );
     res.json({ items: items.map((a) => presentAbrasiveSummary(a, counts.get(a.id) ?? 0)) });
-  });
+  }));
 
-  router.get('/methods', forVisitors, validate({ query: emptyQuerySchema }), async (_req, res) => {
+  router.get('/methods', forVisitors, route({ query: emptyQuerySchema }, async (_req, res) => {
     const methods = await listMethods();
     const slugById = new Map(methods.map((m) => [m.id, m.slug]));
     res.json({ items: methods.map((m) => presentMethodSummary(m, slugById)) });
-  });
+  }));
 
   for (const type of PAGE_TYPES) {
     const section = PAGE_SECTIONS[type];
 
-    router.get(`/${section}/:slug`, forVisitors, validate({ params: slugParams }), async (req, res) => {
-      const slug = (req.valid.params as { slug: string }).slug;
+    router.get(`/${section}/:slug`, forVisitors, route({ params: slugParams }, async (req, res) => {
+      const slug = req.valid.params.slug;
       const shared = await sharedPages.share(`${type}:${slug}`, () => sharedPage(type, slug));
       if ('moved' in shared) {
         const survivor = shared.moved;
@@ -192,11 +186,11 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
         return;
       }
       res.type('application/json').send(withActions(shared, actorOf(req)));
-    });
+    }));
 
-    router.put(`/${section}/:slug`, requireUser, validate({ params: slugParams, body: pageEditSchemas[type] }), async (req, res) => {
+    router.put(`/${section}/:slug`, requireUser, route({ params: slugParams, body: pageEditSchemas[type] }, async (req, res) => {
       const actor = actorOf(req)!;
-      const outcome = await revisePage(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageEdit);
+      const outcome = await revisePage(ctx, actor, type, req.valid.params.slug, req.valid.body);
       if (outcome.outcome === 'stale') return sendStale(res, outcome, actor);
       const revision = await findRevisionOf(type, outcome.page.id, outcome.revision.id);
       const page = await findPageOfType(type, outcome.page.slug);
@@ -206,11 +200,11 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
         return;
       }
       res.json({ status: 'live', revision: presentRevision(revision, page, actor, linkExists), page: await presentPage(type, page, actor) });
-    });
+    }));
 
-    router.get(`/${section}/:slug/revisions`, validate({ params: slugParams }), async (req, res) => {
+    router.get(`/${section}/:slug/revisions`, route({ params: slugParams }, async (req, res) => {
       const viewer = actorOf(req);
-      const page = await findPageOfType(type, (req.valid.params as { slug: string }).slug);
+      const page = await findPageOfType(type, req.valid.params.slug);
       const [revisions, events] = await Promise.all([revisionsOf(type, page.id), eventsOf(type, page.id)]);
       res.json({
         page: { slug: page.slug, name: page.name, currentRevisionId: page.currentRevisionId, isProtected: page.isProtected, mergedInto: (await survivorOf(type, page))?.slug ?? null },
@@ -219,47 +213,47 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
           .map((r) => presentRevisionSummary(r, page.currentRevisionId, viewer)),
         events: events.map(presentPageEvent),
       });
-    });
+    }));
 
-    router.get(`/${section}/:slug/revisions/:id`, validate({ params: revisionParams }), async (req, res) => {
+    router.get(`/${section}/:slug/revisions/:id`, route({ params: revisionParams }, async (req, res) => {
       const viewer = actorOf(req);
-      const { slug, id } = req.valid.params as z.infer<typeof revisionParams>;
+      const { slug, id } = req.valid.params;
       const page = await findPageOfType(type, slug);
       const revision = await findRevisionOf(type, page.id, id);
       if (!can(viewer, 'read:page-revision', { authorId: revision.authorId, status: revision.status })) throw notFound('Revision');
       res.json(presentRevision(revision, page, viewer, await linkCheckerFor([revision.body])));
-    });
+    }));
 
-    router.post(`/${section}/:slug/revert`, requireUser, validate({ params: slugParams, body: pageRevertSchema }), async (req, res) => {
+    router.post(`/${section}/:slug/revert`, requireUser, route({ params: slugParams, body: pageRevertSchema }, async (req, res) => {
       const actor = actorOf(req)!;
       if (!can(actor, 'revert:page')) throw forbidden('Only moderators revert pages.');
-      const outcome = await revertPage(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageRevert);
+      const outcome = await revertPage(ctx, actor, type, req.valid.params.slug, req.valid.body);
       if (outcome.outcome === 'stale') return sendStale(res, outcome, actor);
       const page = await findPageOfType(type, outcome.page.slug);
       const revision = await findRevisionOf(type, page.id, outcome.revision.id);
       res.json({ status: 'live', revision: presentRevision(revision, page, actor, await linkCheckerFor([revision.body])), page: await presentPage(type, page, actor) });
-    });
+    }));
 
-    router.post(`/${section}/:slug/protect`, requireUser, validate({ params: slugParams, body: pageProtectSchema }), async (req, res) => {
+    router.post(`/${section}/:slug/protect`, requireUser, route({ params: slugParams, body: pageProtectSchema }, async (req, res) => {
       const actor = actorOf(req)!;
       if (!can(actor, 'protect:page')) throw forbidden('Only moderators protect pages.');
-      const page = await protectPage(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageProtect);
+      const page = await protectPage(ctx, actor, type, req.valid.params.slug, req.valid.body);
       res.json(await presentPage(type, page, actor));
-    });
+    }));
 
-    router.post(`/${section}/:slug/merge`, requireUser, validate({ params: slugParams, body: pageMergeSchema }), async (req, res) => {
+    router.post(`/${section}/:slug/merge`, requireUser, route({ params: slugParams, body: pageMergeSchema }, async (req, res) => {
       const actor = actorOf(req)!;
       if (!can(actor, 'merge:page')) throw forbidden('Only moderators merge pages.');
-      const outcome = await mergePages(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageMerge);
+      const outcome = await mergePages(ctx, actor, type, req.valid.params.slug, req.valid.body);
       const survivor = await findPageOfType(type, outcome.target.slug);
       res.json({ merged: { slug: outcome.source.slug, name: outcome.source.name }, movedResults: outcome.movedResultIds.length, page: await presentPage(type, survivor, actor) });
-    });
+    }));
   }
 
-  router.post('/page-revisions/:id/review', requireUser, validate({ params: idParams, body: pageReviewSchema }), async (req, res) => {
+  router.post('/page-revisions/:id/review', requireUser, route({ params: idParams, body: pageReviewSchema }, async (req, res) => {
     const actor = actorOf(req)!;
     if (!can(actor, 'read:review-desk')) throw forbidden('Only moderators review page edits.');
-    const outcome = await reviewPageRevision(ctx, actor, (req.valid.params as z.infer<typeof idParams>).id, req.valid.body as PageReview);
+    const outcome = await reviewPageRevision(ctx, actor, req.valid.params.id, req.valid.body);
     const type = outcome.revision.pageType;
     const page = await findPageOfType(type, outcome.page.slug);
     if (outcome.outcome === 'conflict') {
@@ -277,16 +271,16 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
       revision: presentRevision(revision, page, actor),
       applied: presentRevision(applied, page, actor),
     });
-  });
+  }));
 
-  router.get('/page-revisions/:id', validate({ params: idParams }), async (req, res) => {
+  router.get('/page-revisions/:id', route({ params: idParams }, async (req, res) => {
     const viewer = actorOf(req);
-    const revision = await revisionById((req.valid.params as z.infer<typeof idParams>).id);
+    const revision = await revisionById(req.valid.params.id);
     if (!revision || !can(viewer, 'read:page-revision', { authorId: revision.authorId, status: revision.status })) throw notFound('Revision');
     const page = await pageById(revision.pageType, revision.pageId);
     if (!page) throw notFound('Page');
     res.json(presentRevision(await findRevisionOf(revision.pageType, page.id, revision.id), page, viewer));
-  });
+  }));
 
   return router;
 }
