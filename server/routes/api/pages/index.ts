@@ -1,7 +1,5 @@
-import { Router, type Response } from 'express';
-import { can, type Actor } from '@shared/permissions';
-import { gritBandPhi } from '@shared/grit';
-import { matchesComposition, parseCompositionFilter } from '@shared/composition-filter';
+import { Router } from 'express';
+import { can } from '@shared/permissions';
 import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import {
   abrasiveListQuerySchema,
@@ -15,7 +13,6 @@ import {
   revisionParams,
   slugParams,
   steelListQuerySchema,
-  type PageType,
 } from '@shared/schemas/pages';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
@@ -23,101 +20,30 @@ import { route } from '../../../middleware/validate';
 import type { AnswerCache } from '../../../middleware/answer-cache';
 import { forbidden, notFound } from '../../../errors';
 import { keptUntil } from '../../../queries/kept-until';
-import type { Abrasive, Method, Steel } from '../../../models';
+import { abrasivesMatching, pageHistory, steelsMatching } from '../../../queries/page-views';
+import { presentPage, sendStale, sharedPage, withActions, type SharedPage } from './answers';
 import {
-  approvedCounts,
-  eventsOf,
   findPageOfType,
   findRevisionOf,
   linkCheckerFor,
-  methodsWithoutBodies,
   pageById,
   revisionById,
-  listAbrasives,
   listMethods,
-  listSteels,
-  proposalCounts,
-  resultSummary,
-  revisionsOf,
-  survivorOf,
-  type PageModel,
 } from '../../../queries/pages';
 import {
-  presentAbrasive,
   presentAbrasiveSummary,
-  presentMethod,
   presentMethodSummary,
-  pageActions,
   presentPageEvent,
   presentRevision,
   presentRevisionSummary,
-  presentSteel,
   presentSteelSummary,
 } from '../../../presenters/pages';
-import { revisePage, type ReviseOutcome } from '../../../commands/revise-page';
+import { revisePage } from '../../../commands/revise-page';
 import { reviewPageRevision } from '../../../commands/review-page-revision';
 import { revertPage } from '../../../commands/revert-page';
 import { protectPage } from '../../../commands/protect-page';
 import { mergePages } from '../../../commands/merge-pages';
 
-
-/** Every method that is a version of the same protocol as `method` (linked by `replacesId`), oldest first. */
-function versionsOf(method: Method, all: Method[]): Method[] {
-  const byId = new Map(all.map((m) => [m.id, m]));
-  let first = method;
-  for (let hops = 0; first.replacesId && byId.has(first.replacesId) && hops < 50; hops++) first = byId.get(first.replacesId)!;
-  const chain = [first];
-  for (let next = all.find((m) => m.replacesId === first.id); next && chain.length < 50; next = all.find((m) => m.replacesId === chain[chain.length - 1].id)) {
-    chain.push(next);
-  }
-  return chain.filter((m) => !m.mergedIntoId || m.id === method.id);
-}
-
-/** A page whole, as GET /api/{section}/:slug answers it, for `viewer`. */
-async function presentPage(type: PageType, page: PageModel, viewer: Actor | null) {
-  const [linkExists, proposals] = await Promise.all([linkCheckerFor([page.body]), proposalCounts(type)]);
-  const extras = { viewer, linkExists, proposals: proposals.get(page.id) ?? 0 };
-  if (type === 'steel') {
-    const results = await resultSummary('steel', page.id);
-    return presentSteel(page as Steel, results.count, { ...extras, results });
-  }
-  if (type === 'abrasive') {
-    const results = await resultSummary('abrasive', page.id);
-    return presentAbrasive(page as Abrasive, results.count, { ...extras, results });
-  }
-  // Every method, for the version chain and the slugs it names: without their bodies.
-  const methods = await methodsWithoutBodies();
-  return presentMethod(page as Method, new Map(methods.map((m) => [m.id, m.slug])), { ...extras, versions: versionsOf(page as Method, methods) });
-}
-
-/**
- * A page's answer apart from what the viewer may do: the JSON of everything else (its closing
- * brace left off) and what the allowed actions depend on; or where a merged page now lives.
- */
-type SharedPage = { moved: PageModel } | { head: string; subject: Pick<PageModel, 'isProtected' | 'mergedIntoId'> };
-
-async function sharedPage(type: PageType, slug: string): Promise<SharedPage> {
-  const page = await findPageOfType(type, slug);
-  const survivor = await survivorOf(type, page);
-  if (survivor) return { moved: survivor };
-  const { can: _visitors, ...rest } = await presentPage(type, page, null);
-  return { head: JSON.stringify(rest).slice(0, -1), subject: { isProtected: page.isProtected, mergedIntoId: page.mergedIntoId } };
-}
-
-/** The whole answer for `viewer`: the shared part, then their allowed actions (`can`, last). */
-const withActions = (shared: Extract<SharedPage, { head: string }>, viewer: Actor | null) => `${shared.head},"can":${JSON.stringify(pageActions(shared.subject, viewer))}}`;
-
-/** Sends a refused stale save: 409 with the current revision, the conflicting fields and a suggested merge. */
-async function sendStale(res: Response, outcome: Extract<ReviseOutcome, { outcome: 'stale' }>, viewer: Actor) {
-  const linkExists = await linkCheckerFor([outcome.current.body]);
-  const author = outcome.current.author?.handle;
-  res.status(409).json({
-    error: `Someone saved this page while you were editing: revision ${outcome.current.id}${author ? ` by ${author}` : ''} is now current. Nothing was saved; review their changes, merge yours into the current revision and save again.`,
-    current: presentRevision(outcome.current, outcome.page, viewer, linkExists),
-    conflicts: outcome.conflicts,
-    merged: outcome.merged,
-  });
-}
 
 /**
  * The reference pages: steels, abrasives and methods, as lists (with filters) and one by one;
@@ -137,31 +63,11 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
   const sharedPages = keptUntil<string, Promise<SharedPage>>('pages', { max: 2_000 });
 
   router.get('/steels', forVisitors, route({ query: steelListQuerySchema }, async (req, res) => {
-    const q = req.valid.query;
-    const filters = q.composition ? parseCompositionFilter(q.composition) : [];
-    const [steels, counts] = await Promise.all([listSteels(), approvedCounts('steelId')]);
-    const items = steels.filter(
-      (s) =>
-        (!q.category || s.category === q.category) &&
-        matchesComposition(s.composition, filters) &&
-        // A hardness filter keeps steels whose typical range overlaps it.
-        (q.hrcMin === undefined || (s.hardnessMaxHrc ?? -Infinity) >= q.hrcMin) &&
-        (q.hrcMax === undefined || (s.hardnessMinHrc ?? Infinity) <= q.hrcMax),
-    );
-    res.json({ items: items.map((s) => presentSteelSummary(s, counts.get(s.id) ?? 0)) });
+    res.json({ items: (await steelsMatching(req.valid.query)).map((s) => presentSteelSummary(s.steel, s.resultCount)) });
   }));
 
   router.get('/abrasives', forVisitors, route({ query: abrasiveListQuerySchema }, async (req, res) => {
-    const q = req.valid.query;
-    const [abrasives, counts] = await Promise.all([listAbrasives(), approvedCounts('abrasiveId')]);
-    const items = abrasives.filter(
-      (a) =>
-        (!q.material || a.material === q.material) &&
-        (!q.bond || a.bond === q.bond) &&
-        (!q.form || a.form === q.form) &&
-        (q.gritPhi === undefined || gritBandPhi(a.gritUm) === q.gritPhi),
-    );
-    res.json({ items: items.map((a) => presentAbrasiveSummary(a, counts.get(a.id) ?? 0)) });
+    res.json({ items: (await abrasivesMatching(req.valid.query)).map((a) => presentAbrasiveSummary(a.abrasive, a.resultCount)) });
   }));
 
   router.get('/methods', forVisitors, route({ query: emptyQuerySchema }, async (_req, res) => {
@@ -204,13 +110,10 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
 
     router.get(`/${section}/:slug/revisions`, route({ params: slugParams }, async (req, res) => {
       const viewer = actorOf(req);
-      const page = await findPageOfType(type, req.valid.params.slug);
-      const [revisions, events] = await Promise.all([revisionsOf(type, page.id), eventsOf(type, page.id)]);
+      const { page, mergedInto, revisions, events } = await pageHistory(type, req.valid.params.slug, viewer);
       res.json({
-        page: { slug: page.slug, name: page.name, currentRevisionId: page.currentRevisionId, isProtected: page.isProtected, mergedInto: (await survivorOf(type, page))?.slug ?? null },
-        items: revisions
-          .filter((r) => can(viewer, 'read:page-revision', { authorId: r.authorId, status: r.status }))
-          .map((r) => presentRevisionSummary(r, page.currentRevisionId, viewer)),
+        page: { slug: page.slug, name: page.name, currentRevisionId: page.currentRevisionId, isProtected: page.isProtected, mergedInto: mergedInto?.slug ?? null },
+        items: revisions.map((r) => presentRevisionSummary(r, page.currentRevisionId, viewer)),
         events: events.map(presentPageEvent),
       });
     }));
