@@ -166,30 +166,25 @@ export const apiRoutes: RouteDoc[] = [
   // Results
   { method: 'post', path: '/results', summary: 'Submit a result', tag: 'results', access: 'signed-in', body: resultInputSchema, example: resultInputExample, answer: created(resultSchema) },
   { method: 'post', path: '/results/drafts', summary: 'Save a result as a draft (not on the review desk)', tag: 'results', access: 'signed-in', body: resultInputSchema, example: resultInputExample, answer: created(resultSchema) },
-  {
-    method: 'put',
-    path: '/results/:id',
-    summary: 'Edit one of your results: applied at once before publication (200), a correction waiting for a moderator after it (202)',
-    tag: 'results',
-    access: 'signed-in',
-    params: idParams,
-    body: resultInputSchema,
-    example: resultInputExample,
-    answer: { json: resultEditSchema, also: 202 },
-    errors: [409],
-  },
-  {
-    method: 'put',
-    path: '/results/:id/draft',
-    summary: 'Edit one of your results and keep it a draft (202 for a published result, as above)',
-    tag: 'results',
-    access: 'signed-in',
-    params: idParams,
-    body: resultInputSchema,
-    example: resultInputExample,
-    answer: { json: resultEditSchema, also: 202 },
-    errors: [409],
-  },
+  ...(
+    [
+      ['/results/:id', 'Edit one of your results: applied at once before publication (200), a correction waiting for a moderator after it (202)'],
+      ['/results/:id/draft', 'Edit one of your results and keep it a draft (202 for a published result, as above)'],
+    ] as const
+  ).map(
+    ([path, summary]): RouteDoc => ({
+      method: 'put',
+      path,
+      summary,
+      tag: 'results',
+      access: 'signed-in',
+      params: idParams,
+      body: resultInputSchema,
+      example: resultInputExample,
+      answer: { json: resultEditSchema, also: 202 },
+      errors: [409],
+    }),
+  ),
   { method: 'get', path: '/results/:id/revisions', summary: 'A result’s versions the viewer may see, with the changes of each', tag: 'results', access: 'public', params: idParams, query: emptyQuerySchema, answer: json(resultRevisionListSchema) },
   {
     method: 'post',
