@@ -51,6 +51,19 @@ export default tseslint.config(
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', destructuredArrayIgnorePattern: '^_', caughtErrors: 'none' }],
       'no-empty': ['error', { allowEmptyCatch: true }],
       '@typescript-eslint/no-unused-expressions': ['error', { allowTernary: true, allowShortCircuit: true }],
+      // Validated input is typed by its schema through route() (server/middleware/validate.ts):
+      // a cast of it would let the types drift from the schemas again.
+      'no-restricted-syntax': [
+        'error',
+        {
+          selector: ':matches(TSAsExpression, TSTypeAssertion, TSSatisfiesExpression) > MemberExpression.expression[object.property.name="valid"]',
+          message: 'Read validated input through route({ params, query, body }, handler): req.valid is typed by the schemas; do not cast it.',
+        },
+        {
+          selector: ':matches(TSAsExpression, TSTypeAssertion) > MemberExpression.expression[property.name="valid"]',
+          message: 'Read validated input through route({ params, query, body }, handler): req.valid is typed by the schemas; do not cast it.',
+        },
+      ],
     },
   },
   {

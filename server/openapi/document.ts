@@ -88,6 +88,7 @@ function responsesOf(route: RouteDoc, components: Record<string, JsonSchema>): R
         : {}),
       content: { 'application/json': { schema: toSchema(answer.json, 'output', components) } },
     };
+    if (answer.also) out[String(answer.also)] = { description: 'Accepted: proposed for review, not applied yet', content: { 'application/json': { schema: toSchema(answer.json, 'output', components) } } };
   }
   const errors = new Set<number>([400, ...(route.errors ?? [])]);
   if (route.access !== 'public') errors.add(401);

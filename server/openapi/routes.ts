@@ -4,7 +4,7 @@
  *
  * HOW TO DESCRIBE A NEW ROUTE: add one entry to `apiRoutes` below, beside its neighbours: the
  * method and the path exactly as the router registers it (`'/results/:id'`), a summary, who may
- * call it, and the schemas its `validate()` uses (params, query, body), with its response
+ * call it, and the schemas its `route()` validates with (params, query, body), with its response
  * schema (shared/schemas/responses.ts) or kind. tests/api/openapi.test.ts fails, naming the
  * route, while a mounted route has no entry or an entry names no mounted route.
  */
@@ -43,18 +43,38 @@ import {
   tokenCreateSchema,
   unsubscribeSchema,
 } from '@shared/schemas/publishing';
-import { resultInputSchema, resultListQuerySchema, reviewInputSchema, searchQuerySchema } from '@shared/schemas/result';
+import { resultInputSchema, resultListQuerySchema, resultRevisionParams, reviewInputSchema, searchQuerySchema } from '@shared/schemas/result';
+import { adminUserChangeSchema, adminUsersQuerySchema, handleParamsSchema } from '@shared/schemas/admin';
 import {
+  compareDifferenceSchema,
+  createdIdSchema,
   healthSchema,
   jsonObjectSchema,
+  loggedWheelSchema,
+  managedAccountPageSchema,
+  ownPageSchema,
   pageListSchema,
+  resultEditSchema,
   resultInputExample,
   resultPageSchema,
+  resultRevisionDecisionSchema,
+  resultRevisionListSchema,
   resultSchema,
   sessionSchema,
+  wheelListSchema,
+  workshopSchema,
 } from '@shared/schemas/responses';
-import { angleToolQuerySchema, gritToolQuerySchema, hardnessToolQuerySchema, retentionToolBodySchema, wearDriftQuerySchema } from '@shared/schemas/tools';
-import { wheelInputSchema, wheelMeasurementSchema } from '@shared/schemas/wheels';
+import { angleToolQuerySchema, gritToolQuerySchema, hardnessToolQuerySchema, retentionToolBodySchema, sideAngleToolQuerySchema, wearDriftQuerySchema } from '@shared/schemas/tools';
+import { measurementParams, wheelInputSchema, wheelMeasurementSchema } from '@shared/schemas/wheels';
+import {
+  grinderInputSchema,
+  jigInputSchema,
+  priceReportInputSchema,
+  priceReportQuerySchema,
+  retireWheelSchema,
+  setupInputSchema,
+  workshopWheelInputSchema,
+} from '@shared/schemas/workshop';
 
 /**
  * Who may call a route: anyone; any signed-in account (session cookie or API token); or an
@@ -64,12 +84,12 @@ export type Access = 'public' | 'signed-in' | 'publisher' | 'moderator' | 'admin
 
 /** What a route answers on success. */
 export type Answer =
-  | { json: z.ZodType; status?: 200 | 201 | 202; paged?: true }
+  | { json: z.ZodType; status?: 200 | 201 | 202; paged?: true; /** A second success status with the same body (202: proposed for review, not applied). */ also?: 202 }
   | { file: 'text/csv' | 'image/jpeg' | 'application/json'; status?: 200 }
   | { empty: 204 };
 
 export interface RouteDoc {
-  method: 'get' | 'post' | 'put' | 'delete';
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   /** The path under /api/v1 as the router registers it, with `:name` parameters. */
   path: string;
   summary: string;
@@ -108,7 +128,7 @@ const pageRoutes: RouteDoc[] = PAGE_TYPES.flatMap((type): RouteDoc[] => {
       access: 'signed-in',
       params: slugParams,
       body: pageEditSchemas[type],
-      answer: json(),
+      answer: { json: jsonObjectSchema, also: 202 },
       errors: [409],
     },
     { method: 'get', path: `/${section}/:slug/revisions`, summary: `The history of a ${type} page`, tag, access: 'public', params: slugParams, answer: json() },
@@ -132,6 +152,7 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'get', path: '/compare/export', summary: 'The whole comparison view as CSV or JSON, with licence and citation', tag: 'comparison', access: 'public', query: compareExportQuerySchema, answer: csv },
   { method: 'get', path: '/compare/cell', summary: 'One cell’s figures and a page of its results', tag: 'comparison', access: 'public', query: compareCellQuerySchema, answer: { json: jsonObjectSchema, paged: true } },
   { method: 'get', path: '/compare/paired', summary: 'Tester-paired differences between two cells', tag: 'comparison', access: 'public', query: comparePairedQuerySchema, answer: json() },
+  { method: 'get', path: '/compare/difference', summary: 'Two cells as independent samples: the shift B − A with its 95 % interval, and the within-edge spread', tag: 'comparison', access: 'public', query: comparePairedQuerySchema, answer: json(compareDifferenceSchema) },
   { method: 'get', path: '/compare/points', summary: 'The comparison’s chart points', tag: 'comparison', access: 'public', query: comparePointsQuerySchema, answer: json() },
 
   // Reference pages
@@ -144,6 +165,38 @@ export const apiRoutes: RouteDoc[] = [
 
   // Results
   { method: 'post', path: '/results', summary: 'Submit a result', tag: 'results', access: 'signed-in', body: resultInputSchema, example: resultInputExample, answer: created(resultSchema) },
+  { method: 'post', path: '/results/drafts', summary: 'Save a result as a draft (not on the review desk)', tag: 'results', access: 'signed-in', body: resultInputSchema, example: resultInputExample, answer: created(resultSchema) },
+  ...(
+    [
+      ['/results/:id', 'Edit one of your results: applied at once before publication (200), a correction waiting for a moderator after it (202)'],
+      ['/results/:id/draft', 'Edit one of your results and keep it a draft (202 for a published result, as above)'],
+    ] as const
+  ).map(
+    ([path, summary]): RouteDoc => ({
+      method: 'put',
+      path,
+      summary,
+      tag: 'results',
+      access: 'signed-in',
+      params: idParams,
+      body: resultInputSchema,
+      example: resultInputExample,
+      answer: { json: resultEditSchema, also: 202 },
+      errors: [409],
+    }),
+  ),
+  { method: 'get', path: '/results/:id/revisions', summary: 'A result’s versions the viewer may see, with the changes of each', tag: 'results', access: 'public', params: idParams, query: emptyQuerySchema, answer: json(resultRevisionListSchema) },
+  {
+    method: 'post',
+    path: '/results/:id/revisions/:rev/review',
+    summary: 'Approve, return or reject a pending correction of a published result',
+    tag: 'results',
+    access: 'moderator',
+    params: resultRevisionParams,
+    body: reviewInputSchema,
+    answer: json(resultRevisionDecisionSchema),
+    errors: [409],
+  },
   { method: 'get', path: '/results', summary: 'Results, newest first, one page at a time', tag: 'results', access: 'public', query: resultListQuerySchema, answer: { json: resultPageSchema, paged: true } },
   { method: 'get', path: '/results/:id', summary: 'One result', tag: 'results', access: 'public', params: idParams, answer: json(resultSchema) },
   { method: 'post', path: '/results/:id/review', summary: 'Approve, return or reject a pending result', tag: 'results', access: 'moderator', params: idParams, body: reviewInputSchema, answer: json(resultSchema), errors: [409] },
@@ -183,14 +236,27 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'get', path: '/tools/grit', summary: 'Translate a grit grade between standards (particle size in µm)', tag: 'tools', access: 'public', query: gritToolQuerySchema, answer: json() },
   { method: 'get', path: '/tools/hardness', summary: 'Convert a hardness between scales', tag: 'tools', access: 'public', query: hardnessToolQuerySchema, answer: json() },
   { method: 'get', path: '/tools/angle', summary: 'The edge angle from a wheel setup', tag: 'tools', access: 'public', query: angleToolQuerySchema, answer: json() },
+  { method: 'get', path: '/tools/side-angle', summary: 'The edge angle from a side-grinding setup, or the gap for an angle', tag: 'tools', access: 'public', query: sideAngleToolQuerySchema, answer: json() },
   { method: 'get', path: '/tools/wear-drift', summary: 'How the angle drifts as a wheel wears', tag: 'tools', access: 'public', query: wearDriftQuerySchema, answer: json() },
   { method: 'post', path: '/tools/retention', summary: 'Edge-retention figures from counts', tag: 'tools', access: 'public', body: retentionToolBodySchema, answer: json() },
-  { method: 'get', path: '/wheels', summary: 'Your logged wheels', tag: 'tools', access: 'signed-in', query: emptyQuerySchema, answer: json() },
-  { method: 'post', path: '/wheels', summary: 'Log a wheel', tag: 'tools', access: 'signed-in', body: wheelInputSchema, answer: created() },
-  { method: 'post', path: '/wheels/:id/measurements', summary: 'Log a wheel’s measured diameter', tag: 'tools', access: 'signed-in', params: idParams, body: wheelMeasurementSchema, answer: created() },
+  { method: 'get', path: '/wheels', summary: 'Your logged wheels', tag: 'tools', access: 'signed-in', query: emptyQuerySchema, answer: json(wheelListSchema) },
+  { method: 'post', path: '/wheels', summary: 'Log a wheel', tag: 'tools', access: 'signed-in', body: wheelInputSchema, answer: created(loggedWheelSchema) },
+  { method: 'post', path: '/wheels/:id/measurements', summary: 'Log a wheel’s measured diameter', tag: 'tools', access: 'signed-in', params: idParams, body: wheelMeasurementSchema, answer: created(loggedWheelSchema) },
+  { method: 'patch', path: '/wheels/:id/measurements/:measurementId', summary: 'Correct one measurement of your wheel', tag: 'tools', access: 'signed-in', params: measurementParams, body: wheelMeasurementSchema, answer: noContent },
+  { method: 'delete', path: '/wheels/:id/measurements/:measurementId', summary: 'Remove one measurement of your wheel', tag: 'tools', access: 'signed-in', params: measurementParams, answer: noContent },
+
+  // The workshop (private to its owner) and price reports
+  { method: 'get', path: '/workshop', summary: 'Your workshop: grinders, jigs, setups with today’s settings, wheels with forecasts and costs, the kit', tag: 'workshop', access: 'signed-in', query: emptyQuerySchema, answer: json(workshopSchema) },
+  { method: 'post', path: '/workshop/grinders', summary: 'Add a grinder', tag: 'workshop', access: 'signed-in', body: grinderInputSchema, answer: created(createdIdSchema) },
+  { method: 'post', path: '/workshop/jigs', summary: 'Add a jig', tag: 'workshop', access: 'signed-in', body: jigInputSchema, answer: created(createdIdSchema) },
+  { method: 'post', path: '/workshop/setups', summary: 'Save a setup (projection and angle, with a jig or none)', tag: 'workshop', access: 'signed-in', body: setupInputSchema, answer: created(createdIdSchema) },
+  { method: 'post', path: '/workshop/wheels', summary: 'Add a wheel to a grinder', tag: 'workshop', access: 'signed-in', body: workshopWheelInputSchema, answer: created(createdIdSchema) },
+  { method: 'post', path: '/workshop/wheels/:id/retire', summary: 'Retire a wheel, with the sharpenings it lasted', tag: 'workshop', access: 'signed-in', params: idParams, body: retireWheelSchema, answer: noContent },
+  { method: 'get', path: '/price-reports', summary: 'Reported prices of one abrasive: medians with n per currency and condition, no reporter named', tag: 'workshop', access: 'public', query: priceReportQuerySchema, answer: json() },
+  { method: 'post', path: '/price-reports', summary: 'Report a price you paid for an abrasive', tag: 'workshop', access: 'signed-in', body: priceReportInputSchema, answer: created() },
 
   // Members
-  { method: 'get', path: '/me', summary: 'Your own page: account, counts, drafts, follows, settings', tag: 'members', access: 'signed-in', query: emptyQuerySchema, answer: json() },
+  { method: 'get', path: '/me', summary: 'Your own page: account, counts, drafts, follows, settings', tag: 'members', access: 'signed-in', query: emptyQuerySchema, answer: json(ownPageSchema) },
   { method: 'get', path: '/me/results.csv', summary: 'All your results as CSV', tag: 'members', access: 'signed-in', query: emptyQuerySchema, answer: csv },
   { method: 'put', path: '/me/notifications', summary: 'Which e-mails you receive', tag: 'members', access: 'signed-in', body: notificationSettingsSchema, answer: json() },
   { method: 'post', path: '/me/follows', summary: 'Follow a page', tag: 'members', access: 'signed-in', body: followInputSchema, answer: created() },
@@ -223,6 +289,9 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'get', path: '/flags', summary: 'Open flags', tag: 'curation', access: 'moderator', query: emptyQuerySchema, answer: json() },
   { method: 'post', path: '/flags/:id/resolve', summary: 'Resolve a flag', tag: 'curation', access: 'moderator', params: idParams, body: flagResolutionSchema, answer: json(), errors: [409] },
   { method: 'get', path: '/audit', summary: 'The audit log, newest first, one page at a time', tag: 'curation', access: 'moderator', query: auditQuerySchema, answer: { json: jsonObjectSchema, paged: true } },
+
+  { method: 'get', path: '/admin/users', summary: 'Accounts whose handle or name contains q, with their result counts, one page at a time', tag: 'curation', access: 'admin', query: adminUsersQuerySchema, answer: { json: managedAccountPageSchema, paged: true } },
+  { method: 'patch', path: '/admin/users/:handle', summary: 'Change an account’s role, ban it or lift its ban, with the reason (audited)', tag: 'curation', access: 'admin', params: handleParamsSchema, body: adminUserChangeSchema, answer: json() },
 
   { method: 'get', path: '/dev/mail', summary: 'Mail caught by the local mail catcher (where it runs: never in production)', tag: 'service', access: 'admin', query: emptyQuerySchema, answer: json() },
 ];

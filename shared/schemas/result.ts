@@ -125,3 +125,6 @@ export const searchQuerySchema = z
     type: z.enum(['steel', 'abrasive', 'method', 'result', 'cell']).optional(),
   })
   .strict();
+
+/** The path of a route that names one revision of a result (`/results/:id/revisions/:rev`). */
+export const resultRevisionParams = z.object({ id: z.coerce.number().int().positive(), rev: z.coerce.number().int().positive() }).strict();

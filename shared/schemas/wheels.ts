@@ -27,3 +27,6 @@ export const wheelMeasurementSchema = z
   })
   .strict();
 export type WheelMeasurementInput = z.infer<typeof wheelMeasurementSchema>;
+
+/** The path of a route that names one measurement of one wheel (`/wheels/:id/measurements/:measurementId`). */
+export const measurementParams = z.object({ id: z.coerce.number().int().positive(), measurementId: z.coerce.number().int().positive() }).strict();

@@ -63,8 +63,7 @@ describe('the OpenAPI document', () => {
     });
   });
 
-  // Known failure after this round's merge: routes and answer fields added by other branches (revisions, admin users, workshop, difference, progression) are not yet described in server/openapi/routes.ts and shared/schemas/responses.ts. Un-skip once they are (issue 19).
-  it.skip('documents every route the app mounts under /api/v1, and mounts every documented one', () => {
+  it('documents every route the app mounts under /api/v1, and mounts every documented one', () => {
     const mounted = registeredRoutes(appOf())
       .filter((r) => r.includes(' /api/v1/'))
       .map((r) => {
@@ -96,8 +95,7 @@ describe('the OpenAPI document', () => {
 });
 
 describe('answers of the API hold to the document', () => {
-  // Known failure after this round's merge: routes and answer fields added by other branches (revisions, admin users, workshop, difference, progression) are not yet described in server/openapi/routes.ts and shared/schemas/responses.ts. Un-skip once they are (issue 19).
-  it.skip('health, session, lists and one result, for a visitor', async () => {
+  it('health, session, lists and one result, for a visitor', async () => {
     const get = (url: string) => request(server.url).get(`/api/v1${url}`);
     expectDocumented('get', '/health', await get('/health').expect(200));
     expectDocumented('get', '/session', await get('/session').expect(200));
@@ -108,6 +106,56 @@ describe('answers of the API hold to the document', () => {
     expectDocumented('get', '/results/{id}', await get(`/results/${results.body.items[0].id}`).expect(200));
   });
 
+  it('a signed-in member’s own lists, a workshop with one of everything, an edit and its revision list, the difference of two cells', async () => {
+    const member = await signIn(server.url, await demoHandle(server.url, 'member', 5));
+    const get = (url: string) => member.agent.get(`/api/v1${url}`);
+    const send = (method: 'post' | 'put', url: string, body: object) => member.agent[method](`/api/v1${url}`).set('X-CSRF-Token', member.csrf).send(body);
+    const example = (doc.paths['/results'] as unknown as Record<string, Operation>).post.requestBody!.content['application/json'].example as Record<string, unknown>;
+
+    // A draft, then an edit of it (applied at once: 200), then its versions.
+    const draft = await send('post', '/results/drafts', example).expect(201);
+    expectDocumented('post', '/results/drafts', draft);
+    const edited = await send('put', `/results/${draft.body.id}/draft`, { ...example, edgeAngle: { perSideDeg: 16 } }).expect(200);
+    expectDocumented('put', '/results/{id}/draft', edited);
+    const revisions = await get(`/results/${draft.body.id}/revisions`).expect(200);
+    expect(revisions.body.items.length).toBeGreaterThanOrEqual(2);
+    expectDocumented('get', '/results/{id}/revisions', revisions);
+
+    const me = await get('/me').expect(200);
+    expect(me.body.drafts.map((r: { id: number }) => r.id)).toContain(draft.body.id);
+    expectDocumented('get', '/me', me);
+    expectDocumented('get', '/results', await get(`/results?author=${me.body.account.handle}`).expect(200));
+
+    // The workshop: a grinder, a jig, a setup and a wheel, so every list of its answer has a row (invented figures).
+    const grinderId = (await send('post', '/workshop/grinders', { name: 'Test grinder', spindleRpm: 90, barDiameterMm: 12, barMount: 'with-rotation' }).expect(201)).body.id;
+    const jig = await send('post', '/workshop/jigs', { name: 'Test jig', offsetMm: 0 }).expect(201);
+    expectDocumented('post', '/workshop/jigs', jig);
+    await send('post', '/workshop/setups', { name: 'Test setup', jigId: jig.body.id, projectionMm: 140, perSideDeg: 15 }).expect(201);
+    const wheel = await send('post', '/workshop/wheels', { name: 'Test wheel', abrasive: 'cbn-electroplated-wheel-250-b126', grinderId, originalDiameterMm: 250, ratedSpeedMps: 20 }).expect(201);
+    expectDocumented('post', '/workshop/wheels', wheel);
+    await send('post', `/wheels/${wheel.body.id}/measurements`, { measuredOn: '2026-03-01', diameterMm: 249 }).expect(201);
+    const workshop = await get('/workshop').expect(200);
+    for (const list of ['grinders', 'jigs', 'setups', 'wheels']) expect(workshop.body[list], list).toHaveLength(1);
+    expectDocumented('get', '/workshop', workshop);
+    const wheels = await get('/wheels').expect(200);
+    expect(wheels.body.items.length).toBeGreaterThan(0);
+    expectDocumented('get', '/wheels', wheels);
+
+    // The difference of the two largest cells of the first steel in the comparison.
+    const rows = (await get('/compare?method=push-cut-test-v2&pageSize=5000').expect(200)).body.rows as { steel: string; cell: string; n: number }[];
+    const [a, b] = rows.filter((r) => r.steel === rows[0].steel).sort((x, y) => y.n - x.n);
+    const difference = await get(`/compare/difference?method=push-cut-test-v2&a=${a.cell}&b=${b.cell}`).expect(200);
+    expect(difference.body.sharpness).not.toBeNull();
+    expectDocumented('get', '/compare/difference', difference);
+  });
+
+  it('an admin’s page of accounts, with its Link header', async () => {
+    const admin = await signIn(server.url, await demoHandle(server.url, 'admin'));
+    const users = await admin.agent.get('/api/v1/admin/users').expect(200);
+    expect(users.headers.link).toContain('rel="first"');
+    expectDocumented('get', '/admin/users', users);
+  });
+
   it('refusals: 400 naming the field, 401, 404', async () => {
     const bad = await request(server.url).get('/api/v1/results?page=0').expect(400);
     expect(bad.body.issues[0].path).toBe('page');
@@ -116,8 +164,7 @@ describe('answers of the API hold to the document', () => {
     expectDocumented('get', '/me', await request(server.url).get('/api/v1/me').expect(401));
   });
 
-  // Known failure after this round's merge: routes and answer fields added by other branches (revisions, admin users, workshop, difference, progression) are not yet described in server/openapi/routes.ts and shared/schemas/responses.ts. Un-skip once they are (issue 19).
-  it.skip('the documented example of POST /results is accepted, and the answer fits, signed in with the session and its CSRF token', async () => {
+  it('the documented example of POST /results is accepted, and the answer fits, signed in with the session and its CSRF token', async () => {
     const member = await signIn(server.url, await demoHandle(server.url, 'member'));
     const example = (doc.paths['/results'] as unknown as Record<string, Operation>).post.requestBody!.content['application/json'].example;
     const session = await member.agent.get('/api/v1/session').expect(200);

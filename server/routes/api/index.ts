@@ -1,9 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import { searchQuerySchema } from '@shared/schemas/result';
-import type { z } from 'zod';
 import type { AppContext } from '../../context';
 import { csrfProtection, csrfTokenOf } from '../../middleware/auth';
-import { validate } from '../../middleware/validate';
+import { route } from '../../middleware/validate';
 import { notFound } from '../../errors';
 import { presentAccount } from '../../presenters/user';
 import type { User } from '../../models';
@@ -42,29 +41,29 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
   const router = Router();
   router.use(csrfProtection);
 
-  router.get('/health', validate({ query: emptyQuerySchema }), (_req, res) => {
+  router.get('/health', route({ query: emptyQuerySchema }, (_req, res) => {
     res.json({ ok: true, searchDocuments: ctx.search.size, pendingWrites: ctx.db.queue.size, answerCache: answers.stats(), eventLoop: eventLoopStalls() });
-  });
+  }));
 
-  router.get('/session', validate({ query: emptyQuerySchema }), (req, res) => {
+  router.get('/session', route({ query: emptyQuerySchema }, (req, res) => {
     const user = req.user as User | undefined;
     res.set('Cache-Control', 'no-store').json({ user: user ? presentAccount(user) : null, csrfToken: csrfTokenOf(req) });
-  });
+  }));
 
   // This API's OpenAPI 3.1 document (server/openapi/), the same for everyone.
-  router.get('/openapi.json', validate({ query: emptyQuerySchema }), (_req, res) => {
+  router.get('/openapi.json', route({ query: emptyQuerySchema }, (_req, res) => {
     res.type('application/json').set('Cache-Control', 'no-cache').send(openApiJson());
-  });
+  }));
 
   // The busiest reads first: Express tries each route of every router in turn until one matches.
   router.use(compareRouter(ctx, answers));
   // Search answers are the same for whoever asks, and are dropped once the index took a change;
   // every search, kept answer or not, counts against the search limit.
   const keptSearch = answers.keep('search', { forEveryone: true, guard: searchLimit });
-  router.get('/search', keptSearch, validate({ query: searchQuerySchema }), (req, res) => {
-    const { q, type } = req.valid.query as z.infer<typeof searchQuerySchema>;
+  router.get('/search', keptSearch, route({ query: searchQuerySchema }, (req, res) => {
+    const { q, type } = req.valid.query;
     res.json(ctx.search.search(q, type));
-  });
+  }));
   router.use(pagesRouter(ctx, answers));
   router.use(resultsRouter(ctx));
   router.use(toolsRouter());

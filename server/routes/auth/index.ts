@@ -2,7 +2,7 @@ import { Router } from 'express';
 import type passport from 'passport';
 import { z } from 'zod';
 import type { AppContext } from '../../context';
-import { validate } from '../../middleware/validate';
+import { route } from '../../middleware/validate';
 import { csrfProtection } from '../../middleware/auth';
 import { notFound } from '../../errors';
 import { activeAccounts } from '../../queries/accounts';
@@ -22,12 +22,12 @@ const signinQuery = z.object({ as: z.string().max(40).optional(), returnTo: loca
 export function authRouter(ctx: AppContext, auth: passport.PassportStatic): Router {
   const router = Router();
 
-  router.get('/signin', validate({ query: signinQuery }), (req, res, next) => {
-    const { as, returnTo } = req.valid.query as z.infer<typeof signinQuery>;
+  router.get('/signin', route({ query: signinQuery }, (req, res, next) => {
+    const { as, returnTo } = req.valid.query;
     if (as && ctx.env.isProduction) throw notFound('Demo sign-in');
     req.signinReturnTo = returnTo ?? '/';
     auth.authenticate('provider', { loginHint: as } as object)(req, res, next);
-  });
+  }));
 
   router.get('/callback', (req, res, next) => {
     auth.authenticate('provider', { failureRedirect: '/sign-in?failed=1' } as object)(req, res, (err?: unknown) => {
@@ -36,7 +36,7 @@ export function authRouter(ctx: AppContext, auth: passport.PassportStatic): Rout
     });
   });
 
-  router.post('/signout', csrfProtection, validate({}), (req, res, next) => {
+  router.post('/signout', csrfProtection, route({}, (req, res, next) => {
     req.logout((err) => {
       if (err) return next(err);
       req.session.destroy((destroyErr) => {
@@ -45,13 +45,13 @@ export function authRouter(ctx: AppContext, auth: passport.PassportStatic): Rout
         res.status(204).end();
       });
     });
-  });
+  }));
 
-  router.get('/demo-accounts', validate({ query: emptyQuerySchema }), async (_req, res) => {
+  router.get('/demo-accounts', route({ query: emptyQuerySchema }, async (_req, res) => {
     if (ctx.env.isProduction) throw notFound('Demo accounts');
     const users = await activeAccounts();
     res.json(users.map(presentAccount));
-  });
+  }));
 
   return router;
 }

@@ -1,5 +1,4 @@
 import { Router } from 'express';
-import type { z } from 'zod';
 import {
   compareCellQuerySchema,
   compareExportQuerySchema,
@@ -8,7 +7,7 @@ import {
   compareQuerySchema,
 } from '@shared/schemas/compare';
 import type { AppContext } from '../../../context';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 import { actorOf } from '../../../middleware/auth';
 import type { AnswerCache } from '../../../middleware/answer-cache';
 import { compareBody, compareExport } from '../../../queries/compare';
@@ -29,8 +28,8 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   // The same for whoever asks (what it follows: KEPT.compare in server/changes/kept.ts).
   const kept = answers.keep('compare', { forEveryone: true });
 
-  router.get('/compare', kept, validate({ query: compareQuerySchema }), async (req, res) => {
-    const { body, etag, page } = await compareBody(req.valid.query as z.infer<typeof compareQuerySchema>);
+  router.get('/compare', kept, route({ query: compareQuerySchema }, async (req, res) => {
+    const { body, etag, page } = await compareBody(req.valid.query);
     // Express would hash the body again for its ETag; this one was made once, with the body.
     setPageLinks(req, res, page).set('ETag', etag);
     if (req.fresh) {
@@ -38,36 +37,36 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
       return;
     }
     res.type('application/json').send(body);
-  });
+  }));
 
-  router.get('/compare/export', validate({ query: compareExportQuerySchema }), async (req, res) => {
-    const { format, ...filters } = req.valid.query as z.infer<typeof compareExportQuerySchema>;
+  router.get('/compare/export', route({ query: compareExportQuerySchema }, async (req, res) => {
+    const { format, ...filters } = req.valid.query;
     const file = await compareExport(filters, format, ctx.baseUrl);
     res
       .set('Content-Type', file.contentType)
       .set('Content-Disposition', `attachment; filename="${file.filename}"`)
       .set('Cache-Control', 'no-store')
       .send(file.body);
-  });
+  }));
 
-  router.get('/compare/cell', validate({ query: compareCellQuerySchema }), async (req, res) => {
-    const { results, ...cell } = await compareCell(req.valid.query as z.infer<typeof compareCellQuerySchema>);
+  router.get('/compare/cell', route({ query: compareCellQuerySchema }, async (req, res) => {
+    const { results, ...cell } = await compareCell(req.valid.query);
     const viewer = actorOf(req);
     setPageLinks(req, res, cell).json({ ...cell, items: results.map((r) => presentResult(r, viewer)) });
-  });
+  }));
 
-  router.get('/compare/paired', validate({ query: comparePairedQuerySchema }), async (req, res) => {
-    res.json(await comparePaired(req.valid.query as z.infer<typeof comparePairedQuerySchema>));
-  });
+  router.get('/compare/paired', route({ query: comparePairedQuerySchema }, async (req, res) => {
+    res.json(await comparePaired(req.valid.query));
+  }));
 
   // Two cells as independent samples; the same query as the paired comparison.
-  router.get('/compare/difference', kept, validate({ query: comparePairedQuerySchema }), async (req, res) => {
-    res.json(await compareDifference(req.valid.query as z.infer<typeof comparePairedQuerySchema>));
-  });
+  router.get('/compare/difference', kept, route({ query: comparePairedQuerySchema }, async (req, res) => {
+    res.json(await compareDifference(req.valid.query));
+  }));
 
-  router.get('/compare/points', validate({ query: comparePointsQuerySchema }), async (req, res) => {
-    res.json(await comparePoints(req.valid.query as z.infer<typeof comparePointsQuerySchema>));
-  });
+  router.get('/compare/points', route({ query: comparePointsQuerySchema }, async (req, res) => {
+    res.json(await comparePoints(req.valid.query));
+  }));
 
   return router;
 }

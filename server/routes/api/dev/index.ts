@@ -5,15 +5,15 @@ import { actorOf, requireUser } from '../../../middleware/auth';
 import { forbidden, notFound } from '../../../errors';
 import type { MailCatcher } from '../../../mail/mail-catcher';
 import { emptyQuerySchema } from '@shared/schemas/common';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 
 /** Development aids (never in production): the local mail catcher's messages, for admins. */
 export function devRouter(ctx: AppContext, mailCatcher?: MailCatcher): Router {
   const router = Router();
-  router.get('/dev/mail', requireUser, validate({ query: emptyQuerySchema }), (req, res) => {
+  router.get('/dev/mail', requireUser, route({ query: emptyQuerySchema }, (req, res) => {
     if (ctx.env.isProduction || !mailCatcher) throw notFound('The mail catcher');
     if (!can(actorOf(req), 'read:dev-mail')) throw forbidden('The mail catcher is for admins.');
     res.set('Cache-Control', 'no-store').json(mailCatcher.messages());
-  });
+  }));
   return router;
 }

@@ -1,11 +1,10 @@
 import { Router } from 'express';
-import type { z } from 'zod';
 import { can } from '@shared/permissions';
 import { toCsv } from '@shared/csv-writer';
 import { importLimits, importQuerySchema } from '@shared/schemas/import';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
-import { validate } from '../../../middleware/validate';
+import { route, validate } from '../../../middleware/validate';
 import { forbidden } from '../../../errors';
 import { receiveFile } from '../../../storage/upload';
 import { checkImport, ImportRefused, importResults, templateRows } from '../../../commands/import-results';
@@ -16,9 +15,9 @@ export function importRouter(ctx: AppContext): Router {
   const router = Router();
 
   // LF line ends: rows added in an editor that writes LF then match the rest of the file.
-  router.get('/import/template.csv', validate({ query: emptyQuerySchema }), (_req, res) => {
+  router.get('/import/template.csv', route({ query: emptyQuerySchema }, (_req, res) => {
     res.type('text/csv; charset=utf-8').attachment('edgeledger-import-template.csv').send(toCsv(templateRows(), '\n'));
-  });
+  }));
 
   router.post(
     '/import/results',
@@ -30,8 +29,8 @@ export function importRouter(ctx: AppContext): Router {
       next();
     },
     receiveFile({ field: 'file', maxBytes: importLimits.fileBytesMax, fields: 2, fieldBytes: 200, what: 'CSV file' }),
-    async (req, res) => {
-      const { dryRun } = req.valid.query as z.infer<typeof importQuerySchema>;
+    route({ query: importQuerySchema }, async (req, res) => {
+      const { dryRun } = req.valid.query;
       const file = req.file!.buffer;
       if (dryRun) {
         res.json((await checkImport(file)).report);
@@ -44,7 +43,7 @@ export function importRouter(ctx: AppContext): Router {
         if (!(err instanceof ImportRefused)) throw err;
         res.status(400).json({ error: err.message, ...err.report });
       }
-    },
+    }),
   );
 
   return router;

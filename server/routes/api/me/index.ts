@@ -1,11 +1,10 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { resultInputSchema, type ResultInput } from '@shared/schemas/result';
+import { resultInputSchema } from '@shared/schemas/result';
 import { followParams, followInputSchema, notificationSettingsSchema, unsubscribeSchema } from '@shared/schemas/publishing';
 import { EMAIL_TOPICS } from '@shared/schemas/publishing';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 import { badRequest } from '../../../errors';
 import type { User } from '../../../models';
 import { ownPage, resultsForExport } from '../../../queries/profiles';
@@ -22,35 +21,35 @@ import { emptyQuerySchema } from '@shared/schemas/common';
 export function meRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/me', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
+  router.get('/me', requireUser, route({ query: emptyQuerySchema }, async (req, res) => {
     res.set('Cache-Control', 'no-store').json(presentOwnPage(await ownPage(req.user as User)));
-  });
+  }));
 
-  router.get('/me/results.csv', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
+  router.get('/me/results.csv', requireUser, route({ query: emptyQuerySchema }, async (req, res) => {
     const user = req.user as User;
     res.set('Cache-Control', 'no-store').type('text/csv; charset=utf-8').attachment(`edgeledger-${user.handle}-all-results.csv`).send(resultsCsv(await resultsForExport(user.id, true)));
-  });
+  }));
 
-  router.put('/me/notifications', requireUser, validate({ body: notificationSettingsSchema }), async (req, res) => {
-    const s = await updateNotificationSettings(ctx, actorOf(req)!.id, req.valid.body as z.infer<typeof notificationSettingsSchema>);
+  router.put('/me/notifications', requireUser, route({ body: notificationSettingsSchema }, async (req, res) => {
+    const s = await updateNotificationSettings(ctx, actorOf(req)!.id, req.valid.body);
     res.json({ review: s.review, application: s.application, digest: s.digest });
-  });
+  }));
 
-  router.post('/me/follows', requireUser, validate({ body: followInputSchema }), async (req, res) => {
-    const { pageType, slug } = req.valid.body as z.infer<typeof followInputSchema>;
+  router.post('/me/follows', requireUser, route({ body: followInputSchema }, async (req, res) => {
+    const { pageType, slug } = req.valid.body;
     await followPage(ctx, actorOf(req)!, pageType, slug);
     res.status(201).json({ pageType, slug, following: true });
-  });
+  }));
 
-  router.delete('/me/follows/:pageType/:slug', requireUser, validate({ params: followParams }), async (req, res) => {
-    const { pageType, slug } = req.valid.params as z.infer<typeof followParams>;
+  router.delete('/me/follows/:pageType/:slug', requireUser, route({ params: followParams }, async (req, res) => {
+    const { pageType, slug } = req.valid.params;
     await unfollowPage(ctx, actorOf(req)!, pageType, slug);
     res.status(204).end();
-  });
+  }));
 
-  router.post('/me/duplicate-check', requireUser, validate({ body: resultInputSchema }), async (req, res) => {
-    res.json({ duplicates: await findDuplicates(actorOf(req)!.id, req.valid.body as ResultInput) });
-  });
+  router.post('/me/duplicate-check', requireUser, route({ body: resultInputSchema }, async (req, res) => {
+    res.json({ duplicates: await findDuplicates(actorOf(req)!.id, req.valid.body) });
+  }));
 
   // No sign-in: the signed link from an e-mail is the proof. Accepts the parameters in the query
   // (one-click List-Unsubscribe, RFC 8058) or in a JSON body (the unsubscribe page).

@@ -1,8 +1,5 @@
-import { Router, type Response } from 'express';
-import { z } from 'zod';
-import { can, type Actor } from '@shared/permissions';
-import { gritBandPhi } from '@shared/grit';
-import { matchesComposition, parseCompositionFilter } from '@shared/composition-filter';
+import { Router } from 'express';
+import { can } from '@shared/permissions';
 import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import {
   abrasiveListQuerySchema,
@@ -16,115 +13,37 @@ import {
   revisionParams,
   slugParams,
   steelListQuerySchema,
-  type PageEdit,
-  type PageMerge,
-  type PageProtect,
-  type PageRevert,
-  type PageReview,
-  type PageType,
 } from '@shared/schemas/pages';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 import type { AnswerCache } from '../../../middleware/answer-cache';
 import { forbidden, notFound } from '../../../errors';
 import { keptUntil } from '../../../queries/kept-until';
-import type { Abrasive, Method, Steel } from '../../../models';
+import { abrasivesMatching, pageHistory, steelsMatching } from '../../../queries/page-views';
+import { presentPage, sendStale, sharedPage, withActions, type SharedPage } from './answers';
 import {
-  approvedCounts,
-  eventsOf,
   findPageOfType,
   findRevisionOf,
   linkCheckerFor,
-  methodsWithoutBodies,
   pageById,
   revisionById,
-  listAbrasives,
   listMethods,
-  listSteels,
-  proposalCounts,
-  abrasiveResults,
-  steelResults,
-  revisionsOf,
-  survivorOf,
-  type PageModel,
 } from '../../../queries/pages';
 import {
-  presentAbrasive,
   presentAbrasiveSummary,
-  presentMethod,
   presentMethodSummary,
-  pageActions,
   presentPageEvent,
   presentRevision,
   presentRevisionSummary,
-  presentSteel,
   presentSteelSummary,
 } from '../../../presenters/pages';
-import { revisePage, type ReviseOutcome } from '../../../commands/revise-page';
+import { revisePage } from '../../../commands/revise-page';
 import { reviewPageRevision } from '../../../commands/review-page-revision';
 import { revertPage } from '../../../commands/revert-page';
 import { protectPage } from '../../../commands/protect-page';
 import { mergePages } from '../../../commands/merge-pages';
 
-
-/** Every method that is a version of the same protocol as `method` (linked by `replacesId`), oldest first. */
-function versionsOf(method: Method, all: Method[]): Method[] {
-  const byId = new Map(all.map((m) => [m.id, m]));
-  let first = method;
-  for (let hops = 0; first.replacesId && byId.has(first.replacesId) && hops < 50; hops++) first = byId.get(first.replacesId)!;
-  const chain = [first];
-  for (let next = all.find((m) => m.replacesId === first.id); next && chain.length < 50; next = all.find((m) => m.replacesId === chain[chain.length - 1].id)) {
-    chain.push(next);
-  }
-  return chain.filter((m) => !m.mergedIntoId || m.id === method.id);
-}
-
-/** A page whole, as GET /api/{section}/:slug answers it, for `viewer`. */
-async function presentPage(type: PageType, page: PageModel, viewer: Actor | null) {
-  const [linkExists, proposals] = await Promise.all([linkCheckerFor([page.body]), proposalCounts(type)]);
-  const extras = { viewer, linkExists, proposals: proposals.get(page.id) ?? 0 };
-  if (type === 'steel') {
-    const results = await steelResults(page.id);
-    return presentSteel(page as Steel, results.count, { ...extras, results });
-  }
-  if (type === 'abrasive') {
-    const results = await abrasiveResults(page.id);
-    return presentAbrasive(page as Abrasive, results.count, { ...extras, results });
-  }
-  // Every method, for the version chain and the slugs it names: without their bodies.
-  const methods = await methodsWithoutBodies();
-  return presentMethod(page as Method, new Map(methods.map((m) => [m.id, m.slug])), { ...extras, versions: versionsOf(page as Method, methods) });
-}
-
-/**
- * A page's answer apart from what the viewer may do: the JSON of everything else (its closing
- * brace left off) and what the allowed actions depend on; or where a merged page now lives.
- */
-type SharedPage = { moved: PageModel } | { head: string; subject: Pick<PageModel, 'isProtected' | 'mergedIntoId'> };
-
-async function sharedPage(type: PageType, slug: string): Promise<SharedPage> {
-  const page = await findPageOfType(type, slug);
-  const survivor = await survivorOf(type, page);
-  if (survivor) return { moved: survivor };
-  const { can: _visitors, ...rest } = await presentPage(type, page, null);
-  return { head: JSON.stringify(rest).slice(0, -1), subject: { isProtected: page.isProtected, mergedIntoId: page.mergedIntoId } };
-}
-
-/** The whole answer for `viewer`: the shared part, then their allowed actions (`can`, last). */
-const withActions = (shared: Extract<SharedPage, { head: string }>, viewer: Actor | null) => `${shared.head},"can":${JSON.stringify(pageActions(shared.subject, viewer))}}`;
-
-/** Sends a refused stale save: 409 with the current revision, the conflicting fields and a suggested merge. */
-async function sendStale(res: Response, outcome: Extract<ReviseOutcome, { outcome: 'stale' }>, viewer: Actor) {
-  const linkExists = await linkCheckerFor([outcome.current.body]);
-  const author = outcome.current.author?.handle;
-  res.status(409).json({
-    error: `Someone saved this page while you were editing: revision ${outcome.current.id}${author ? ` by ${author}` : ''} is now current. Nothing was saved; review their changes, merge yours into the current revision and save again.`,
-    current: presentRevision(outcome.current, outcome.page, viewer, linkExists),
-    conflicts: outcome.conflicts,
-    merged: outcome.merged,
-  });
-}
 
 /**
  * The reference pages: steels, abrasives and methods, as lists (with filters) and one by one;
@@ -143,45 +62,25 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
   // A page's answer but for the viewer's actions, computed once for everyone (signed in or not).
   const sharedPages = keptUntil<string, Promise<SharedPage>>('pages', { max: 2_000 });
 
-  router.get('/steels', forVisitors, validate({ query: steelListQuerySchema }), async (req, res) => {
-    const q = req.valid.query as z.infer<typeof steelListQuerySchema>;
-    const filters = q.composition ? parseCompositionFilter(q.composition) : [];
-    const [steels, counts] = await Promise.all([listSteels(), approvedCounts('steelId')]);
-    const items = steels.filter(
-      (s) =>
-        (!q.category || s.category === q.category) &&
-        matchesComposition(s.composition, filters) &&
-        // A hardness filter keeps steels whose typical range overlaps it.
-        (q.hrcMin === undefined || (s.hardnessMaxHrc ?? -Infinity) >= q.hrcMin) &&
-        (q.hrcMax === undefined || (s.hardnessMinHrc ?? Infinity) <= q.hrcMax),
-    );
-    res.json({ items: items.map((s) => presentSteelSummary(s, counts.get(s.id) ?? 0)) });
-  });
+  router.get('/steels', forVisitors, route({ query: steelListQuerySchema }, async (req, res) => {
+    res.json({ items: (await steelsMatching(req.valid.query)).map((s) => presentSteelSummary(s.steel, s.resultCount)) });
+  }));
 
-  router.get('/abrasives', forVisitors, validate({ query: abrasiveListQuerySchema }), async (req, res) => {
-    const q = req.valid.query as z.infer<typeof abrasiveListQuerySchema>;
-    const [abrasives, counts] = await Promise.all([listAbrasives(), approvedCounts('abrasiveId')]);
-    const items = abrasives.filter(
-      (a) =>
-        (!q.material || a.material === q.material) &&
-        (!q.bond || a.bond === q.bond) &&
-        (!q.form || a.form === q.form) &&
-        (q.gritPhi === undefined || gritBandPhi(a.gritUm) === q.gritPhi),
-    );
-    res.json({ items: items.map((a) => presentAbrasiveSummary(a, counts.get(a.id) ?? 0)) });
-  });
+  router.get('/abrasives', forVisitors, route({ query: abrasiveListQuerySchema }, async (req, res) => {
+    res.json({ items: (await abrasivesMatching(req.valid.query)).map((a) => presentAbrasiveSummary(a.abrasive, a.resultCount)) });
+  }));
 
-  router.get('/methods', forVisitors, validate({ query: emptyQuerySchema }), async (_req, res) => {
+  router.get('/methods', forVisitors, route({ query: emptyQuerySchema }, async (_req, res) => {
     const methods = await listMethods();
     const slugById = new Map(methods.map((m) => [m.id, m.slug]));
     res.json({ items: methods.map((m) => presentMethodSummary(m, slugById)) });
-  });
+  }));
 
   for (const type of PAGE_TYPES) {
     const section = PAGE_SECTIONS[type];
 
-    router.get(`/${section}/:slug`, forVisitors, validate({ params: slugParams }), async (req, res) => {
-      const slug = (req.valid.params as { slug: string }).slug;
+    router.get(`/${section}/:slug`, forVisitors, route({ params: slugParams }, async (req, res) => {
+      const slug = req.valid.params.slug;
       const shared = await sharedPages.share(`${type}:${slug}`, () => sharedPage(type, slug));
       if ('moved' in shared) {
         const survivor = shared.moved;
@@ -193,11 +92,11 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
         return;
       }
       res.type('application/json').send(withActions(shared, actorOf(req)));
-    });
+    }));
 
-    router.put(`/${section}/:slug`, requireUser, validate({ params: slugParams, body: pageEditSchemas[type] }), async (req, res) => {
+    router.put(`/${section}/:slug`, requireUser, route({ params: slugParams, body: pageEditSchemas[type] }, async (req, res) => {
       const actor = actorOf(req)!;
-      const outcome = await revisePage(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageEdit);
+      const outcome = await revisePage(ctx, actor, type, req.valid.params.slug, req.valid.body);
       if (outcome.outcome === 'stale') return sendStale(res, outcome, actor);
       const revision = await findRevisionOf(type, outcome.page.id, outcome.revision.id);
       const page = await findPageOfType(type, outcome.page.slug);
@@ -207,60 +106,57 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
         return;
       }
       res.json({ status: 'live', revision: presentRevision(revision, page, actor, linkExists), page: await presentPage(type, page, actor) });
-    });
+    }));
 
-    router.get(`/${section}/:slug/revisions`, validate({ params: slugParams }), async (req, res) => {
+    router.get(`/${section}/:slug/revisions`, route({ params: slugParams }, async (req, res) => {
       const viewer = actorOf(req);
-      const page = await findPageOfType(type, (req.valid.params as { slug: string }).slug);
-      const [revisions, events] = await Promise.all([revisionsOf(type, page.id), eventsOf(type, page.id)]);
+      const { page, mergedInto, revisions, events } = await pageHistory(type, req.valid.params.slug, viewer);
       res.json({
-        page: { slug: page.slug, name: page.name, currentRevisionId: page.currentRevisionId, isProtected: page.isProtected, mergedInto: (await survivorOf(type, page))?.slug ?? null },
-        items: revisions
-          .filter((r) => can(viewer, 'read:page-revision', { authorId: r.authorId, status: r.status }))
-          .map((r) => presentRevisionSummary(r, page.currentRevisionId, viewer)),
+        page: { slug: page.slug, name: page.name, currentRevisionId: page.currentRevisionId, isProtected: page.isProtected, mergedInto: mergedInto?.slug ?? null },
+        items: revisions.map((r) => presentRevisionSummary(r, page.currentRevisionId, viewer)),
         events: events.map(presentPageEvent),
       });
-    });
+    }));
 
-    router.get(`/${section}/:slug/revisions/:id`, validate({ params: revisionParams }), async (req, res) => {
+    router.get(`/${section}/:slug/revisions/:id`, route({ params: revisionParams }, async (req, res) => {
       const viewer = actorOf(req);
-      const { slug, id } = req.valid.params as z.infer<typeof revisionParams>;
+      const { slug, id } = req.valid.params;
       const page = await findPageOfType(type, slug);
       const revision = await findRevisionOf(type, page.id, id);
       if (!can(viewer, 'read:page-revision', { authorId: revision.authorId, status: revision.status })) throw notFound('Revision');
       res.json(presentRevision(revision, page, viewer, await linkCheckerFor([revision.body])));
-    });
+    }));
 
-    router.post(`/${section}/:slug/revert`, requireUser, validate({ params: slugParams, body: pageRevertSchema }), async (req, res) => {
+    router.post(`/${section}/:slug/revert`, requireUser, route({ params: slugParams, body: pageRevertSchema }, async (req, res) => {
       const actor = actorOf(req)!;
       if (!can(actor, 'revert:page')) throw forbidden('Only moderators revert pages.');
-      const outcome = await revertPage(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageRevert);
+      const outcome = await revertPage(ctx, actor, type, req.valid.params.slug, req.valid.body);
       if (outcome.outcome === 'stale') return sendStale(res, outcome, actor);
       const page = await findPageOfType(type, outcome.page.slug);
       const revision = await findRevisionOf(type, page.id, outcome.revision.id);
       res.json({ status: 'live', revision: presentRevision(revision, page, actor, await linkCheckerFor([revision.body])), page: await presentPage(type, page, actor) });
-    });
+    }));
 
-    router.post(`/${section}/:slug/protect`, requireUser, validate({ params: slugParams, body: pageProtectSchema }), async (req, res) => {
+    router.post(`/${section}/:slug/protect`, requireUser, route({ params: slugParams, body: pageProtectSchema }, async (req, res) => {
       const actor = actorOf(req)!;
       if (!can(actor, 'protect:page')) throw forbidden('Only moderators protect pages.');
-      const page = await protectPage(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageProtect);
+      const page = await protectPage(ctx, actor, type, req.valid.params.slug, req.valid.body);
       res.json(await presentPage(type, page, actor));
-    });
+    }));
 
-    router.post(`/${section}/:slug/merge`, requireUser, validate({ params: slugParams, body: pageMergeSchema }), async (req, res) => {
+    router.post(`/${section}/:slug/merge`, requireUser, route({ params: slugParams, body: pageMergeSchema }, async (req, res) => {
       const actor = actorOf(req)!;
       if (!can(actor, 'merge:page')) throw forbidden('Only moderators merge pages.');
-      const outcome = await mergePages(ctx, actor, type, (req.valid.params as { slug: string }).slug, req.valid.body as PageMerge);
+      const outcome = await mergePages(ctx, actor, type, req.valid.params.slug, req.valid.body);
       const survivor = await findPageOfType(type, outcome.target.slug);
       res.json({ merged: { slug: outcome.source.slug, name: outcome.source.name }, movedResults: outcome.movedResultIds.length, page: await presentPage(type, survivor, actor) });
-    });
+    }));
   }
 
-  router.post('/page-revisions/:id/review', requireUser, validate({ params: idParams, body: pageReviewSchema }), async (req, res) => {
+  router.post('/page-revisions/:id/review', requireUser, route({ params: idParams, body: pageReviewSchema }, async (req, res) => {
     const actor = actorOf(req)!;
     if (!can(actor, 'read:review-desk')) throw forbidden('Only moderators review page edits.');
-    const outcome = await reviewPageRevision(ctx, actor, (req.valid.params as z.infer<typeof idParams>).id, req.valid.body as PageReview);
+    const outcome = await reviewPageRevision(ctx, actor, req.valid.params.id, req.valid.body);
     const type = outcome.revision.pageType;
     const page = await findPageOfType(type, outcome.page.slug);
     if (outcome.outcome === 'conflict') {
@@ -278,16 +174,16 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
       revision: presentRevision(revision, page, actor),
       applied: presentRevision(applied, page, actor),
     });
-  });
+  }));
 
-  router.get('/page-revisions/:id', validate({ params: idParams }), async (req, res) => {
+  router.get('/page-revisions/:id', route({ params: idParams }, async (req, res) => {
     const viewer = actorOf(req);
-    const revision = await revisionById((req.valid.params as z.infer<typeof idParams>).id);
+    const revision = await revisionById(req.valid.params.id);
     if (!revision || !can(viewer, 'read:page-revision', { authorId: revision.authorId, status: revision.status })) throw notFound('Revision');
     const page = await pageById(revision.pageType, revision.pageId);
     if (!page) throw notFound('Page');
     res.json(presentRevision(await findRevisionOf(revision.pageType, page.id, revision.id), page, viewer));
-  });
+  }));
 
   return router;
 }

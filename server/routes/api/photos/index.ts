@@ -1,11 +1,10 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { can } from '@shared/permissions';
 import { photoFieldsSchema, photoLimits } from '@shared/schemas/publishing';
 import { idParams } from '@shared/schemas/common';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 import { forbidden, notFound } from '../../../errors';
 import { photosOf, photoWithResult, resultForPhotos } from '../../../queries/photos';
 import { receiveFile } from '../../../storage/upload';
@@ -20,10 +19,9 @@ export function photosRouter(ctx: AppContext): Router {
   router.post(
     '/results/:id/photos',
     requireUser,
-    validate({ params: idParams }),
-    async (req, _res, next) => {
+    route({ params: idParams }, async (req, _res, next) => {
       // Refuse before reading the upload: only the author sends a file.
-      const { id } = req.valid.params as z.infer<typeof idParams>;
+      const { id } = req.valid.params;
       const result = await resultForPhotos(id);
       const actor = actorOf(req);
       if (!result || !can(actor, 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Result');
@@ -31,28 +29,27 @@ export function photosRouter(ctx: AppContext): Router {
         throw forbidden(result.authorId === actor?.id ? `Photos cannot be added to a result that is ${result.status}.` : 'Only the result’s author adds photos.');
       }
       next();
-    },
+    }),
     receiveFile({ field: 'photo', maxBytes: photoLimits.fileBytesMax, fields: 2, fieldBytes: 1000, what: 'photo' }),
-    validate({ body: photoFieldsSchema }),
-    async (req, res) => {
-      const { id } = req.valid.params as z.infer<typeof idParams>;
-      const { alt } = req.valid.body as z.infer<typeof photoFieldsSchema>;
+    route({ params: idParams, body: photoFieldsSchema }, async (req, res) => {
+      const { id } = req.valid.params;
+      const { alt } = req.valid.body;
       const photo = await uploadPhoto(ctx, actorOf(req)!, id, req.file!.buffer, alt);
       res.status(201).json(presentPhoto(photo));
-    },
+    }),
   );
 
-  router.get('/results/:id/photos', validate({ params: idParams }), async (req, res) => {
-    const { id } = req.valid.params as z.infer<typeof idParams>;
+  router.get('/results/:id/photos', route({ params: idParams }, async (req, res) => {
+    const { id } = req.valid.params;
     const result = await resultForPhotos(id);
     if (!result || !can(actorOf(req), 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Result');
     const photos = await photosOf(id);
     res.json({ items: photos.map(presentPhoto), max: photoLimits.perResult, canAdd: can(actorOf(req), 'upload:photo', { authorId: result.authorId, status: result.status }) });
-  });
+  }));
 
   for (const variant of ['image', 'thumb'] as const) {
-    router.get(variant === 'image' ? '/photos/:id' : '/photos/:id/thumb', validate({ params: idParams }), async (req, res) => {
-      const { id } = req.valid.params as z.infer<typeof idParams>;
+    router.get(variant === 'image' ? '/photos/:id' : '/photos/:id/thumb', route({ params: idParams }, async (req, res) => {
+      const { id } = req.valid.params;
       const photo = await photoWithResult(id);
       const result = photo?.result;
       if (!photo || photo.removedAt || !result || !can(actorOf(req), 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Photo');
@@ -66,14 +63,14 @@ export function photosRouter(ctx: AppContext): Router {
         ...(object.contentLength ? { 'Content-Length': String(object.contentLength) } : {}),
       });
       object.body.pipe(res);
-    });
+    }));
   }
 
-  router.delete('/photos/:id', requireUser, validate({ params: idParams }), async (req, res) => {
-    const { id } = req.valid.params as z.infer<typeof idParams>;
+  router.delete('/photos/:id', requireUser, route({ params: idParams }, async (req, res) => {
+    const { id } = req.valid.params;
     await removePhoto(ctx, actorOf(req)!, id);
     res.status(204).end();
-  });
+  }));
 
   return router;
 }

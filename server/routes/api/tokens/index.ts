@@ -1,10 +1,9 @@
 import { Router, type Request } from 'express';
-import { z } from 'zod';
 import { can } from '@shared/permissions';
 import { tokenCreateSchema } from '@shared/schemas/publishing';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 import { forbidden } from '../../../errors';
 import { tokensOf } from '../../../queries/accounts';
 import { createToken } from '../../../commands/create-token';
@@ -23,25 +22,25 @@ function requireSessionPublisher(req: Request) {
 export function tokensRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/tokens', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
+  router.get('/tokens', requireUser, route({ query: emptyQuerySchema }, async (req, res) => {
     requireSessionPublisher(req);
     const tokens = await tokensOf(actorOf(req)!.id);
     res.set('Cache-Control', 'no-store').json({ items: tokens.map(presentToken) });
-  });
+  }));
 
-  router.post('/tokens', requireUser, validate({ body: tokenCreateSchema }), async (req, res) => {
+  router.post('/tokens', requireUser, route({ body: tokenCreateSchema }, async (req, res) => {
     requireSessionPublisher(req);
-    const { name } = req.valid.body as z.infer<typeof tokenCreateSchema>;
+    const { name } = req.valid.body;
     const { record, token } = await createToken(ctx, actorOf(req)!, name);
     res.status(201).set('Cache-Control', 'no-store').json({ ...presentToken(record), token });
-  });
+  }));
 
-  router.delete('/tokens/:id', requireUser, validate({ params: idParams }), async (req, res) => {
+  router.delete('/tokens/:id', requireUser, route({ params: idParams }, async (req, res) => {
     requireSessionPublisher(req);
-    const { id } = req.valid.params as z.infer<typeof idParams>;
+    const { id } = req.valid.params;
     await revokeToken(ctx, actorOf(req)!, id);
     res.status(204).end();
-  });
+  }));
 
   return router;
 }

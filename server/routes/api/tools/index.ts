@@ -1,5 +1,4 @@
 import { Router } from 'express';
-import type { z } from 'zod';
 import { gritBand, nearestGrades, parseGrit } from '@shared/grit';
 import { convertHardness } from '@shared/hardness';
 import { angleFromSetup, gapForAngle, sideAngleFromSetup, sideGapForAngle, wearDrift } from '@shared/geometry';
@@ -12,7 +11,7 @@ import {
   sideAngleToolQuerySchema,
   wearDriftQuerySchema,
 } from '@shared/schemas/tools';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 
 /**
  * The calculators as an API: the shared computations, unchanged. Their ComputationErrors become
@@ -21,8 +20,8 @@ import { validate } from '../../../middleware/validate';
 export function toolsRouter(): Router {
   const router = Router();
 
-  router.get('/tools/grit', validate({ query: gritToolQuerySchema }), (req, res) => {
-    const q = req.valid.query as z.infer<typeof gritToolQuerySchema>;
+  router.get('/tools/grit', route({ query: gritToolQuerySchema }, (req, res) => {
+    const q = req.valid.query;
     const parsed = parseGrit(q.grade, q.standard);
     res.json({
       standard: parsed.standard,
@@ -32,32 +31,32 @@ export function toolsRouter(): Router {
       band: gritBand(parsed.micrometres, q.step === '0.5' ? 0.5 : 1),
       nearest: nearestGrades(parsed.micrometres),
     });
-  });
+  }));
 
-  router.get('/tools/hardness', validate({ query: hardnessToolQuerySchema }), (req, res) => {
-    const q = req.valid.query as z.infer<typeof hardnessToolQuerySchema>;
+  router.get('/tools/hardness', route({ query: hardnessToolQuerySchema }, (req, res) => {
+    const q = req.valid.query;
     res.json(convertHardness(q.value, q.scale));
-  });
+  }));
 
-  router.get('/tools/angle', validate({ query: angleToolQuerySchema }), (req, res) => {
-    const q = req.valid.query as z.infer<typeof angleToolQuerySchema>;
+  router.get('/tools/angle', route({ query: angleToolQuerySchema }, (req, res) => {
+    const q = req.valid.query;
     const { gapMm, perSideDeg, ...setup } = q;
     res.json(gapMm !== undefined ? angleFromSetup({ ...setup, gapMm }) : gapForAngle({ ...setup, perSideDeg: perSideDeg! }));
-  });
+  }));
 
-  router.get('/tools/side-angle', validate({ query: sideAngleToolQuerySchema }), (req, res) => {
-    const { gapMm, perSideDeg, ...setup } = req.valid.query as z.infer<typeof sideAngleToolQuerySchema>;
+  router.get('/tools/side-angle', route({ query: sideAngleToolQuerySchema }, (req, res) => {
+    const { gapMm, perSideDeg, ...setup } = req.valid.query;
     res.json(gapMm !== undefined ? sideAngleFromSetup({ ...setup, gapMm }) : sideGapForAngle({ ...setup, perSideDeg: perSideDeg! }));
-  });
+  }));
 
-  router.get('/tools/wear-drift', validate({ query: wearDriftQuerySchema }), (req, res) => {
-    res.json(wearDrift(req.valid.query as z.infer<typeof wearDriftQuerySchema>));
-  });
+  router.get('/tools/wear-drift', route({ query: wearDriftQuerySchema }, (req, res) => {
+    res.json(wearDrift(req.valid.query));
+  }));
 
-  router.post('/tools/retention', validate({ body: retentionToolBodySchema }), (req, res) => {
-    const r = cardCutRetention((req.valid.body as z.infer<typeof retentionToolBodySchema>).cutsMm);
+  router.post('/tools/retention', route({ body: retentionToolBodySchema }, (req, res) => {
+    const r = cardCutRetention(req.valid.body.cutsMm);
     res.json({ icpMm: r.icpMm, tccMm: r.tccMm, cycles: r.cycles, limits: r.limits, icpPass: r.icpPass, tccPass: r.tccPass });
-  });
+  }));
 
   return router;
 }

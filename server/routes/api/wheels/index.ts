@@ -1,17 +1,14 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { wheelInputSchema, wheelMeasurementSchema, type WheelInput, type WheelMeasurementInput } from '@shared/schemas/wheels';
+import { measurementParams, wheelInputSchema, wheelMeasurementSchema } from '@shared/schemas/wheels';
 import { summarizeWheelLog } from '@shared/wheel-log';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 import { addWheel, deleteMeasurement, editMeasurement, measureWheel } from '../../../commands/log-wheel';
 import { notFound } from '../../../errors';
 import { wheelsOf as own } from '../../../queries/wheels';
 import type { Wheel } from '../../../models';
 import { emptyQuerySchema, idParams } from '@shared/schemas/common';
-
-const measurementParams = z.object({ id: z.coerce.number().int().positive(), measurementId: z.coerce.number().int().positive() }).strict();
 
 function presentWheel(wheel: Wheel) {
   const measurements = (wheel.measurements ?? []).map((m) => ({ measuredOn: m.measuredOn, diameterMm: m.diameterMm }));
@@ -31,37 +28,37 @@ function presentWheel(wheel: Wheel) {
 export function wheelsRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/wheels', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
+  router.get('/wheels', requireUser, route({ query: emptyQuerySchema }, async (req, res) => {
     res.json({ items: (await own(actorOf(req)!.id)).map(presentWheel) });
-  });
+  }));
 
-  router.post('/wheels', requireUser, validate({ body: wheelInputSchema }), async (req, res) => {
+  router.post('/wheels', requireUser, route({ body: wheelInputSchema }, async (req, res) => {
     const actor = actorOf(req)!;
-    const wheel = await addWheel(ctx, actor, req.valid.body as WheelInput);
+    const wheel = await addWheel(ctx, actor, req.valid.body);
     const [created] = await own(actor.id, wheel.id);
     res.status(201).json(presentWheel(created));
-  });
+  }));
 
-  router.post('/wheels/:id/measurements', requireUser, validate({ params: idParams, body: wheelMeasurementSchema }), async (req, res) => {
+  router.post('/wheels/:id/measurements', requireUser, route({ params: idParams, body: wheelMeasurementSchema }, async (req, res) => {
     const actor = actorOf(req)!;
-    const { id } = req.valid.params as z.infer<typeof idParams>;
-    await measureWheel(ctx, actor, id, req.valid.body as WheelMeasurementInput);
+    const { id } = req.valid.params;
+    await measureWheel(ctx, actor, id, req.valid.body);
     const [wheel] = await own(actor.id, id);
     if (!wheel) throw notFound('Wheel');
     res.status(201).json(presentWheel(wheel));
-  });
+  }));
 
-  router.patch('/wheels/:id/measurements/:measurementId', requireUser, validate({ params: measurementParams, body: wheelMeasurementSchema }), async (req, res) => {
-    const { id, measurementId } = req.valid.params as z.infer<typeof measurementParams>;
-    await editMeasurement(ctx, actorOf(req)!, id, measurementId, req.valid.body as WheelMeasurementInput);
+  router.patch('/wheels/:id/measurements/:measurementId', requireUser, route({ params: measurementParams, body: wheelMeasurementSchema }, async (req, res) => {
+    const { id, measurementId } = req.valid.params;
+    await editMeasurement(ctx, actorOf(req)!, id, measurementId, req.valid.body);
     res.status(204).end();
-  });
+  }));
 
-  router.delete('/wheels/:id/measurements/:measurementId', requireUser, validate({ params: measurementParams }), async (req, res) => {
-    const { id, measurementId } = req.valid.params as z.infer<typeof measurementParams>;
+  router.delete('/wheels/:id/measurements/:measurementId', requireUser, route({ params: measurementParams }, async (req, res) => {
+    const { id, measurementId } = req.valid.params;
     await deleteMeasurement(ctx, actorOf(req)!, id, measurementId);
     res.status(204).end();
-  });
+  }));
 
   return router;
 }

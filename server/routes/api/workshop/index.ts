@@ -1,6 +1,5 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { emptyQuerySchema } from '@shared/schemas/common';
+import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import {
   grinderInputSchema,
   jigInputSchema,
@@ -9,21 +8,13 @@ import {
   retireWheelSchema,
   setupInputSchema,
   workshopWheelInputSchema,
-  type GrinderInput,
-  type JigInput,
-  type PriceReportInput,
-  type RetireWheelInput,
-  type SetupInput,
-  type WorkshopWheelInput,
 } from '@shared/schemas/workshop';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
-import { validate } from '../../../middleware/validate';
+import { route } from '../../../middleware/validate';
 import { addGrinder, addJig, addWorkshopWheel, reportPrice, retireWheel, saveSetup } from '../../../commands/equip-workshop';
 import { abrasiveBySlug, priceSummary, readWorkshop } from '../../../queries/workshop';
 import { notFound } from '../../../errors';
-
-const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 
 /**
  * A member's workshop: private, read and written only by its owner (every read is by the signed-in
@@ -32,46 +23,46 @@ const idParams = z.object({ id: z.coerce.number().int().positive() }).strict();
 export function workshopRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/workshop', requireUser, validate({ query: emptyQuerySchema }), async (req, res) => {
+  router.get('/workshop', requireUser, route({ query: emptyQuerySchema }, async (req, res) => {
     res.json(await readWorkshop(actorOf(req)!.id));
-  });
+  }));
 
-  router.post('/workshop/grinders', requireUser, validate({ body: grinderInputSchema }), async (req, res) => {
-    const grinder = await addGrinder(ctx, actorOf(req)!, req.valid.body as GrinderInput);
+  router.post('/workshop/grinders', requireUser, route({ body: grinderInputSchema }, async (req, res) => {
+    const grinder = await addGrinder(ctx, actorOf(req)!, req.valid.body);
     res.status(201).json({ id: grinder.id });
-  });
+  }));
 
-  router.post('/workshop/jigs', requireUser, validate({ body: jigInputSchema }), async (req, res) => {
-    const jig = await addJig(ctx, actorOf(req)!, req.valid.body as JigInput);
+  router.post('/workshop/jigs', requireUser, route({ body: jigInputSchema }, async (req, res) => {
+    const jig = await addJig(ctx, actorOf(req)!, req.valid.body);
     res.status(201).json({ id: jig.id });
-  });
+  }));
 
-  router.post('/workshop/setups', requireUser, validate({ body: setupInputSchema }), async (req, res) => {
-    const setup = await saveSetup(ctx, actorOf(req)!, req.valid.body as SetupInput);
+  router.post('/workshop/setups', requireUser, route({ body: setupInputSchema }, async (req, res) => {
+    const setup = await saveSetup(ctx, actorOf(req)!, req.valid.body);
     res.status(201).json({ id: setup.id });
-  });
+  }));
 
-  router.post('/workshop/wheels', requireUser, validate({ body: workshopWheelInputSchema }), async (req, res) => {
-    const wheel = await addWorkshopWheel(ctx, actorOf(req)!, req.valid.body as WorkshopWheelInput);
+  router.post('/workshop/wheels', requireUser, route({ body: workshopWheelInputSchema }, async (req, res) => {
+    const wheel = await addWorkshopWheel(ctx, actorOf(req)!, req.valid.body);
     res.status(201).json({ id: wheel.id });
-  });
+  }));
 
-  router.post('/workshop/wheels/:id/retire', requireUser, validate({ params: idParams, body: retireWheelSchema }), async (req, res) => {
-    await retireWheel(ctx, actorOf(req)!, (req.valid.params as z.infer<typeof idParams>).id, req.valid.body as RetireWheelInput);
+  router.post('/workshop/wheels/:id/retire', requireUser, route({ params: idParams, body: retireWheelSchema }, async (req, res) => {
+    await retireWheel(ctx, actorOf(req)!, req.valid.params.id, req.valid.body);
     res.status(204).end();
-  });
+  }));
 
-  router.get('/price-reports', validate({ query: priceReportQuerySchema }), async (req, res) => {
-    const { abrasive: slug } = req.valid.query as z.infer<typeof priceReportQuerySchema>;
+  router.get('/price-reports', route({ query: priceReportQuerySchema }, async (req, res) => {
+    const { abrasive: slug } = req.valid.query;
     const abrasive = await abrasiveBySlug(slug);
     if (!abrasive) throw notFound('Abrasive');
     res.json({ abrasive: abrasive.slug, groups: await priceSummary(abrasive.id) });
-  });
+  }));
 
-  router.post('/price-reports', requireUser, validate({ body: priceReportInputSchema }), async (req, res) => {
-    await reportPrice(ctx, actorOf(req)!, req.valid.body as PriceReportInput);
+  router.post('/price-reports', requireUser, route({ body: priceReportInputSchema }, async (req, res) => {
+    await reportPrice(ctx, actorOf(req)!, req.valid.body);
     res.status(201).json({ ok: true });
-  });
+  }));
 
   return router;
 }
