@@ -1,4 +1,4 @@
-import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 /**
  * A sign-in under way (migration 0013): passport-oauth2's state handle, the PKCE verifier, where
@@ -25,20 +25,20 @@ export class SignInState extends Model<InferAttributes<SignInState>, InferCreati
   }
 }
 
-/** One client's count in one rate limit's window (migration 0013), keyed by limit and client. */
-export class RateLimitCount extends Model<InferAttributes<RateLimitCount>, InferCreationAttributes<RateLimitCount>> {
+/** One counted request of one client in one rate limit (migration 0013), keyed by limit and client. */
+export class RateLimitHit extends Model<InferAttributes<RateLimitHit>, InferCreationAttributes<RateLimitHit>> {
+  declare id: CreationOptional<number>;
   declare key: string;
-  declare hits: number;
-  declare resetAt: Date;
+  declare at: Date;
 
   static initModel(sequelize: Sequelize) {
-    RateLimitCount.init(
+    RateLimitHit.init(
       {
-        key: { type: DataTypes.STRING(300), primaryKey: true },
-        hits: { type: DataTypes.INTEGER, allowNull: false },
-        resetAt: { type: DataTypes.DATE, allowNull: false },
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        key: { type: DataTypes.STRING(300), allowNull: false },
+        at: { type: DataTypes.DATE, allowNull: false },
       },
-      { sequelize, tableName: 'rate_limit_counts', timestamps: false },
+      { sequelize, tableName: 'rate_limit_hits', timestamps: false },
     );
   }
 }

@@ -14,15 +14,18 @@ export async function up({ context: qi }: { context: QueryInterface }) {
     expiresAt: { type: DataTypes.DATE, allowNull: false },
   });
   await qi.addIndex('sign_in_states', ['expiresAt']);
-  await qi.createTable('rate_limit_counts', {
-    key: { type: DataTypes.STRING(300), primaryKey: true },
-    hits: { type: DataTypes.INTEGER, allowNull: false },
-    resetAt: { type: DataTypes.DATE, allowNull: false },
+  // One row per counted request: inserts never conflict, where a shared counter row made
+  // concurrent requests of one client fail each other's SERIALIZABLE transactions.
+  await qi.createTable('rate_limit_hits', {
+    id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+    key: { type: DataTypes.STRING(300), allowNull: false },
+    at: { type: DataTypes.DATE, allowNull: false },
   });
-  await qi.addIndex('rate_limit_counts', ['resetAt']);
+  await qi.addIndex('rate_limit_hits', ['key', 'at']);
+  await qi.addIndex('rate_limit_hits', ['at']);
 }
 
 export async function down({ context: qi }: { context: QueryInterface }) {
-  await qi.dropTable('rate_limit_counts');
+  await qi.dropTable('rate_limit_hits');
   await qi.dropTable('sign_in_states');
 }
