@@ -7,6 +7,8 @@ export interface ServerProcess {
   oauthUrl?: string;
   /** Resolves with the exit code once the process has ended. */
   exited: Promise<number | null>;
+  /** What the process wrote to stdout and stderr so far. */
+  output(): string;
   /** SIGTERM, then waits for the process to finish its requests and close its database. */
   stop(): Promise<void>;
 }
@@ -39,8 +41,8 @@ export function startServerProcess(env: Record<string, string>): Promise<ServerP
       if (ready) {
         clearTimeout(timer);
         proc.stdout!.off('data', onData);
-        proc.stdout!.resume();
-        resolve({ proc, url: ready[1], oauthUrl: /Local OAuth2 provider at (http:\/\/[\d.:]+)/.exec(out)?.[1], exited, stop });
+        proc.stdout!.on('data', (more: Buffer) => (out += more.toString()));
+        resolve({ proc, url: ready[1], oauthUrl: /Local OAuth2 provider at (http:\/\/[\d.:]+)/.exec(out)?.[1], exited, stop, output: () => out });
       }
     };
     proc.stdout!.on('data', onData);
