@@ -123,7 +123,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
 
   // API tokens authenticate before the other rate limits, so a token's calls count against its
   // account; refused tokens count against the address first.
-  const limits = rateLimits(ctx.env);
+  const limits = rateLimits(ctx.env, ctx.db);
   app.use('/api', limits.tokenGuesses, bearerToken(ctx));
   app.use('/auth/signin', limits.signin);
   app.use('/auth/callback', signInOutcomeLog(SIGN_IN_FAILED_PATH));

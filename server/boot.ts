@@ -80,7 +80,8 @@ export async function boot(env: Env, log: (line: string) => void = console.log, 
   if (!s3Endpoint) throw new Error('S3_ENDPOINT: required in production');
   const storage = new ObjectStorage({ endpoint: s3Endpoint, bucket: env.S3_BUCKET, region: env.S3_REGION, accessKeyId: env.S3_ACCESS_KEY, secretAccessKey: env.S3_SECRET_KEY });
 
-  // The followers in this process build from the tables now, so they start at the newest change.
+  // The followers in this process build from the tables now, so they start at the newest change
+  // (read before they build: what commits meanwhile is handed to them once they follow).
   await db.changes.startAtNewest();
   const search = new SearchIndex();
   const started = Date.now();
@@ -108,6 +109,9 @@ export async function boot(env: Env, log: (line: string) => void = console.log, 
   };
   // The index follows the change feed from here on: pages, published results, comparison cells.
   const stopSearchFollow = searchFollowsChanges(ctx);
+  // Other processes' commits (and the command-line tools'): read from the `changes` table and
+  // handed to the same followers as this process's own.
+  const stopFollowingOthers = db.changes.follow();
   const app = createApp(ctx, { clientDir: path.resolve('dist'), mailCatcher });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
@@ -145,6 +149,7 @@ export async function boot(env: Env, log: (line: string) => void = console.log, 
         });
         server.closeIdleConnections();
       });
+      await stopFollowingOthers();
       stopSearchFollow();
       await db.close();
       mailer.close();

@@ -1,6 +1,7 @@
 import passport from 'passport';
 import OAuth2Strategy, { type VerifyCallback } from 'passport-oauth2';
 import type { AppContext } from '../context';
+import type { Database } from '../db/database';
 import type { InferAttributes } from 'sequelize';
 import { User } from '../models';
 import { keptUntil } from '../queries/kept-until';
@@ -43,10 +44,14 @@ class ProviderStrategy extends OAuth2Strategy {
  * Accounts by id, as their fields, kept until any account is written (a ban, a role, a new
  * member): every signed-in request reads one, and a ban still takes effect on the next request
  * after its commit. Each request gets a User of its own, so nothing a handler does to it leaks.
+ * Kept on SQLite only, where one process makes every write: on PostgreSQL another process may
+ * ban, and this one would hear of it only at its next poll of the change feed, so each
+ * request reads the account, as it reads its session there.
  */
 const accounts = keptUntil<number, InferAttributes<User> | null>('accounts');
 
-async function findAccount(id: number): Promise<User | null> {
+async function findAccount(db: Database, id: number): Promise<User | null> {
+  if (!db.isSqlite) return User.findByPk(id);
   const fields = await accounts.read(id, async () => ((await User.findByPk(id))?.get({ plain: true }) as InferAttributes<User> | undefined) ?? null);
   return fields ? User.build(fields, { isNewRecord: false }) : null;
 }
@@ -65,7 +70,7 @@ export function configurePassport(ctx: AppContext): passport.PassportStatic {
         // Relative: passport-oauth2 resolves it against the request's own origin.
         callbackURL: ctx.env.PUBLIC_URL ? `${ctx.env.PUBLIC_URL}/auth/callback` : '/auth/callback',
         pkce: true,
-        store: new SignInStateStore(ctx.env.isProduction) as unknown as OAuth2Strategy.StateStore,
+        store: new SignInStateStore(ctx.db, ctx.env.isProduction) as unknown as OAuth2Strategy.StateStore,
         scope: ['openid', 'profile'],
       },
       (_accessToken: string, _refreshToken: string, profile: ProviderProfile, done: VerifyCallback) => {
@@ -77,7 +82,7 @@ export function configurePassport(ctx: AppContext): passport.PassportStatic {
   );
   instance.serializeUser((user, done) => done(null, (user as User).id));
   instance.deserializeUser((id: number, done) => {
-    findAccount(id)
+    findAccount(ctx.db, id)
       .then((user) => done(null, user && !user.banned ? user : false))
       .catch((err) => done(err));
   });

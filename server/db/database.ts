@@ -17,6 +17,7 @@ import * as m0009 from './migrations/0009-changes';
 import * as m0010 from './migrations/0010-result-revisions';
 import * as m0011 from './migrations/0011-result-progression';
 import * as m0012 from './migrations/0012-workshop';
+import * as m0013 from './migrations/0013-shared-process-state';
 
 /** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
 const migrations = [
@@ -31,6 +32,7 @@ const migrations = [
   { name: '0010-result-revisions', module: m0010 },
   { name: '0011-result-progression', module: m0011 },
   { name: '0012-workshop', module: m0012 },
+  { name: '0013-shared-process-state', module: m0013 },
 ];
 
 export interface DatabaseOptions {
@@ -53,7 +55,7 @@ export class Database {
   readonly sequelize: Sequelize;
   readonly queue: WriteQueue;
   /** What the writes changed: recorded in each transaction, dispatched after its commit. */
-  readonly changes = new ChangeFeed(this, refreshCells);
+  readonly changes: ChangeFeed;
   readonly isSqlite: boolean;
 
   constructor(readonly options: DatabaseOptions) {
@@ -64,6 +66,7 @@ export class Database {
       ? postgresSequelize(options.url, { logging: options.logging })
       : sqliteSequelize({ storage: options.storage, synchronous: options.synchronous ?? 'NORMAL', busyTimeoutMs: options.busyTimeoutMs ?? 5000, logging: options.logging });
     initModels(this.sequelize);
+    this.changes = new ChangeFeed(this, this.sequelize, refreshCells, (work) => this.write(work));
   }
 
   /** Applies every pending migration. */

@@ -22,7 +22,11 @@ export function postgresSequelize(url: string, options: { logging?: boolean; poo
 
 /** SQLSTATEs after which the same transaction, run again, can succeed. */
 const RETRYABLE = new Set(['40001', '40P01']);
-const MAX_ATTEMPTS = 12;
+/**
+ * Transactions that touch one comparison cell (approvals in one steel, method and band) all
+ * conflict; 40 at once from two processes exhausted 12 attempts with a short linear back-off.
+ */
+const MAX_ATTEMPTS = 25;
 
 function sqlState(err: unknown): string | undefined {
   const e = err as { parent?: { code?: string }; original?: { code?: string }; code?: string } | null;
@@ -41,8 +45,9 @@ export async function postgresWrite<T>(sequelize: Sequelize, work: (t: Transacti
       return await sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.SERIALIZABLE }, work);
     } catch (err) {
       if (attempt >= MAX_ATTEMPTS || !RETRYABLE.has(sqlState(err) ?? '')) throw err;
-      // Back off a little, more after each failure, so the transactions that collided part.
-      await new Promise((resolve) => setTimeout(resolve, Math.random() * 5 * attempt));
+      // Back off a random while, doubling after each failure up to a quarter second, so the
+      // transactions that collided part.
+      await new Promise((resolve) => setTimeout(resolve, Math.random() * Math.min(250, 4 * 2 ** attempt)));
     }
   }
 }

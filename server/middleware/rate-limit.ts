@@ -1,6 +1,8 @@
 import type { Request, RequestHandler, Response } from 'express';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import type { Env } from '../config/env';
+import type { Database } from '../db/database';
+import { DatabaseRateLimitStore } from './rate-limit-store';
 import { logEvent } from '../logging';
 
 const MINUTE_MS = 60_000;
@@ -23,12 +25,17 @@ export function isUpload(req: Request): boolean {
   return !!req.is('multipart/form-data');
 }
 
-function limiter(
-  name: string,
-  perMinute: number,
-  options: { key?: (req: Request) => string; skip?: (req: Request) => boolean; counts?: (res: Response) => boolean },
-): RequestHandler {
+interface LimiterOptions {
+  key?: (req: Request) => string;
+  skip?: (req: Request) => boolean;
+  counts?: (res: Response) => boolean;
+}
+
+function limiterOf(db: Database, name: string, perMinute: number, options: LimiterOptions): RequestHandler {
   const limit = rateLimit({
+    // One process owns a SQLite database, so its counts stay in its memory (the library's
+    // MemoryStore); on PostgreSQL several processes may serve, so they count in the database.
+    ...(db.isSqlite ? {} : { store: new DatabaseRateLimitStore(db, name) }),
     // `counts`: only requests whose answer it picks count (the rest are handed back).
     ...(options.counts ? { skipSuccessfulRequests: true, requestWasSuccessful: (_req: Request, res: Response) => !options.counts!(res) } : {}),
     windowMs: MINUTE_MS,
@@ -51,8 +58,12 @@ function limiter(
   return skip ? (req, res, next) => (skip(req) ? next() : limit(req, res, next)) : limit;
 }
 
-/** The rate limits: sign-in (and guessed API tokens), posting (any write under /api), uploads and search, per client per minute. */
-export function rateLimits(env: Env) {
+/**
+ * The rate limits: sign-in (and guessed API tokens), posting (any write under /api), uploads and
+ * search, per client per minute, counted across every process of the database.
+ */
+export function rateLimits(env: Env, db: Database) {
+  const limiter = (name: string, perMinute: number, options: LimiterOptions) => limiterOf(db, name, perMinute, options);
   return {
     /** Sign-in starts, per address (nobody is signed in yet). */
     signin: limiter('sign-in', env.RATE_LIMIT_SIGNIN_PER_MIN, { key: (req) => `ip:${ipKeyGenerator(req.ip ?? 'unknown')}` }),

@@ -6,6 +6,7 @@ import { PageEvent } from './page-event';
 import { ChangeRow } from '../changes/change-row';
 import { pageRowsOf, pagesOf, recordWritesOf, resultsOf, resultTrailOf, rowsOf, settingsOf } from '../changes/model-writes';
 import { Grinder, Jig, PriceReport, Setup, Wheel, WheelMeasurement } from './wheel';
+import { RateLimitHit, SignInState } from './process-state';
 import { ApiToken, AuditEntry, Flag, Follow, ImportBatch, ImportBatchResult, NotificationSetting, Photo, PublisherApplication, SiteSetting, initPublishingModels } from './publishing';
 
 /** Initialises every model on `sequelize` and declares their associations. */
@@ -29,6 +30,8 @@ export function initModels(sequelize: Sequelize) {
   Wheel.hasMany(WheelMeasurement, { as: 'measurements', foreignKey: 'wheelId' });
   initPublishingModels(sequelize);
   ChangeRow.initModel(sequelize);
+  SignInState.initModel(sequelize);
+  RateLimitHit.initModel(sequelize);
   // Every write through these models records its change in its transaction (server/changes/).
   // The comparison cells are not here: the feed itself refreshes them from the result changes.
   const recorded: [ModelStatic<Model>, Parameters<typeof recordWritesOf>[1]][] = [
@@ -45,6 +48,7 @@ export function initModels(sequelize: Sequelize) {
 export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ResultRevision, ComparisonCell, Wheel, WheelMeasurement, Grinder, Jig, Setup, PriceReport };
 export { PublisherApplication, ApiToken, ImportBatch, ImportBatchResult, Photo, Flag, AuditEntry, Follow, NotificationSetting, SiteSetting };
 export { PageEvent };
+export { SignInState, RateLimitHit };
 
 /**
  * A reference page's long columns: its rich-text body and its references. Whatever lists pages

@@ -12,11 +12,12 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { afterAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
 import sqlite3 from 'sqlite3';
 import { demoHandle, signIn, testRateLimits } from '../setup/test-server';
+import { startServerProcess, type ServerProcess } from '../setup/server-process';
 
 const ITERATIONS = Number(process.env.CRASH_ITERATIONS ?? 4);
 const SEED = Number(process.env.CRASH_SEED ?? Date.now() % 1_000_000);
@@ -43,33 +44,11 @@ afterAll(() => {
   fs.rmSync(dataDir, { recursive: true, force: true });
 });
 
-/** Starts the server as a child; resolves with its URL once it says it is ready. */
-function startServer(): Promise<{ proc: ChildProcess; url: string; exited: Promise<number | null> }> {
-  const proc = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, NODE_ENV: 'test', PORT: '0', OAUTH_PORT: '0', SMTP_PORT: '0', DATA_DIR: dataDir, SEED_DEMO: 'never', LOG_LEVEL: 'silent', ...testRateLimits },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  child = proc;
-  const exited = new Promise<number | null>((resolve) => proc.once('exit', (code) => resolve(code)));
-  return new Promise((resolve, reject) => {
-    let out = '';
-    const timer = setTimeout(() => reject(new Error(`server not ready after 45 s:\n${out}`)), 45_000);
-    const onData = (chunk: Buffer) => {
-      out += chunk.toString();
-      const ready = /Edgeledger ready at (http:\/\/[\d.:]+)/.exec(out);
-      if (ready) {
-        clearTimeout(timer);
-        proc.stdout!.off('data', onData);
-        resolve({ proc, url: ready[1], exited });
-      }
-    };
-    proc.stdout!.on('data', onData);
-    proc.stderr!.on('data', (chunk: Buffer) => (out += chunk.toString()));
-    proc.once('exit', (code) => {
-      clearTimeout(timer);
-      reject(new Error(`server exited (${code}) before it was ready:\n${out}`));
-    });
-  });
+/** Starts the server as a child (kept in `child`, so it is killed whatever the test's outcome). */
+async function startServer(): Promise<ServerProcess> {
+  const server = await startServerProcess({ DATA_DIR: dataDir, ...testRateLimits });
+  child = server.proc;
+  return server;
 }
 
 /** Read-only look at the file while no server runs. */

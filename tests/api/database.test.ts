@@ -179,3 +179,35 @@ describe('insertRows', () => {
     }
   });
 });
+
+describe('following the changes other processes wrote (ChangeFeed.poll)', () => {
+  it('hands them on in one batch each poll, a change that became visible after a newer one too, and never this process’s own again', async () => {
+    const heard: number[][] = [];
+    const stop = follow(['account'], (batch) => void heard.push(batch.changes.map((c) => c.id)));
+    try {
+      await db.changes.startAtNewest();
+      const newest = ((await ChangeRow.max('id')) as number | null) ?? 0;
+      // Another process's rows, written as its feed writes them (raw rows: this process records nothing).
+      const theirs = (id: number) => db.write((t) => ChangeRow.create({ id, kind: 'account', keys: JSON.stringify({ ids: [1] }) }, { transaction: t }));
+      await db.changes.poll();
+      expect(heard).toEqual([]);
+      // On PostgreSQL an id becomes visible at its commit: here the newer one commits first.
+      await theirs(newest + 2);
+      await db.changes.poll();
+      expect(heard).toEqual([[newest + 2]]);
+      await theirs(newest + 1);
+      await theirs(newest + 3);
+      await db.changes.poll();
+      expect(heard).toEqual([[newest + 2], [newest + 1, newest + 3]]);
+      // This process's own write is handed on at its commit, once: the poller passes it by.
+      await db.write((t) => insertRows(User, [{ handle: 'poll-own', displayName: 'Own', role: 'member' as const, oauthSubject: 'poll-own' }], t));
+      expect(heard).toHaveLength(3); // the two batches above and this one
+      await db.changes.poll();
+      expect(heard).toHaveLength(3);
+      await db.changes.poll();
+      expect(heard).toHaveLength(3);
+    } finally {
+      stop();
+    }
+  });
+});

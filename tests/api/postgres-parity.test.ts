@@ -6,6 +6,7 @@ import request from 'supertest';
 import { boot, type Running } from '../../server/boot';
 import { loadEnv } from '../../server/config/env';
 import { onCluster, testRateLimits } from '../setup/test-server';
+import { loadDemoData } from '../../seed/load';
 
 /**
  * With TEST_DATABASE=postgres: the same demo data loaded at the same instant into a new SQLite
@@ -26,7 +27,8 @@ describe.runIf(clusterUrl)('PostgreSQL answers byte for byte as SQLite does', ()
     const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-parity-'));
     dirs.push(dataDir);
     const env = { NODE_ENV: 'test', PORT: '0', OAUTH_PORT: '0', SMTP_PORT: '0', DATA_DIR: dataDir, SEED_DEMO: 'auto', PUBLIC_URL: 'http://edgeledger.test', ...testRateLimits, ...(databaseUrl && { DATABASE_URL: databaseUrl }) };
-    return boot(loadEnv(env), () => undefined);
+    // The entry (server/index.ts) hands boot the demo-data loader; a test hands it in the same way.
+    return boot(loadEnv(env), () => undefined, { demoData: loadDemoData });
   };
 
   beforeAll(async () => {

@@ -44,14 +44,17 @@ async function rowsFromMemory(query: CompareQuery) {
   return sortRows(rows);
 }
 
-/** Random filter combinations over the pages and dates the database holds; every one has a live filter. */
+/**
+ * Random filter combinations over the pages and dates the database holds; every one has a live
+ * filter. Read in id order, so both dialects draw the same combinations.
+ */
 async function combinations(seed: number, count: number): Promise<CompareQuery[]> {
   const rand = mulberry32(seed);
   const pick = <T>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
   const some = <T>(list: readonly T[], most: number) => [...new Set(Array.from({ length: 1 + Math.floor(rand() * most) }, () => pick(list)))];
-  const methods = (await Method.findAll({ attributes: ['slug'] })).map((m) => m.slug);
-  const steels = (await Steel.findAll({ attributes: ['slug'] })).map((s) => s.slug);
-  const stored = await Result.findAll({ where: { status: 'approved' }, attributes: ['hrc', 'perSideDeg', 'createdAt'], raw: true });
+  const methods = (await Method.findAll({ attributes: ['slug'], order: [['id', 'ASC']] })).map((m) => m.slug);
+  const steels = (await Steel.findAll({ attributes: ['slug'], order: [['id', 'ASC']] })).map((s) => s.slug);
+  const stored = await Result.findAll({ where: { status: 'approved' }, attributes: ['hrc', 'perSideDeg', 'createdAt'], order: [['id', 'ASC']], raw: true });
   const days = stored.map((r) => new Date(r.createdAt).toISOString().slice(0, 10)).sort();
   const hrcs = stored.map((r) => r.hrc);
   const angles = stored.map((r) => r.perSideDeg);

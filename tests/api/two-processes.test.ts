@@ -3,61 +3,185 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import request from 'supertest';
-import { boot, type Running } from '../../server/boot';
-import { loadEnv } from '../../server/config/env';
 import { copyBaseDatabase, demoHandle, signIn, testRateLimits } from '../setup/test-server';
+import { eventually, startServerProcess, type ServerProcess } from '../setup/server-process';
+import { Database } from '../../server/db/database';
+import { Steel } from '../../server/models';
 
 /**
- * With TEST_DATABASE=postgres: two servers (A and B) on one PostgreSQL database, as two app
- * processes behind a load balancer would be. Sessions are read from the database on every
- * request there, so a session begun on A serves on B, and a sign-out on A counts on B at once.
+ * With TEST_DATABASE=postgres: two server processes (A and B) on one PostgreSQL database, as two
+ * app processes behind a load balancer would be. Each has its own memory (kept answers, read
+ * models, search index); B hears of A's writes only through the `changes` table, which every
+ * process polls. Sessions, sign-in state and rate-limit counts are in the database. B signs in
+ * through A's local OAuth2 stand-in, as both would through one hosted provider.
  */
 const clusterUrl = inject('postgresUrl');
 
-const goodResult = () => ({
+/** Uploads allowed per client per minute on both processes: the limit test counts them across A and B. */
+const UPLOADS_PER_MIN = 4;
+/** A word only this file's result notes hold, so the search can be asked for them. */
+const MARK = 'twoprocmark';
+
+const result = (grams: number, note?: string) => ({
   steel: 'aisi-d2',
   hardness: { value: 61, scale: 'HRC' },
   abrasive: 'cbn-electroplated-wheel-250-b126',
   edgeAngle: { perSideDeg: 15 },
-  sharpness: { method: 'push-cut-test-v2', readingsG: [180, 175, 190] },
+  sharpness: { method: 'push-cut-test-v2', readingsG: [grams, grams + 5, grams + 10] },
+  ...(note ? { notes: { type: 'doc', content: [{ type: 'paragraph', content: [{ type: 'text', text: note }] }] } } : {}),
 });
 
-describe.runIf(clusterUrl)('two servers on one PostgreSQL database', () => {
+type Session = Awaited<ReturnType<typeof signIn>>;
+/** The session's cookies as one header, to send the same browser's requests to the other process. */
+const cookiesOf = (s: Session) =>
+  s.agent.jar
+    .getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false })
+    .map((c) => c.toValueString())
+    .join('; ');
+const post = (url: string, s: Session, body: object) => request(url).post('/api/results').set('Cookie', cookiesOf(s)).set('X-CSRF-Token', s.csrf).send(body);
+const review = (url: string, s: Session, id: number) => request(url).post(`/api/results/${id}/review`).set('Cookie', cookiesOf(s)).set('X-CSRF-Token', s.csrf).send({ decision: 'approve' });
+
+describe.runIf(clusterUrl)('two server processes on one PostgreSQL database', () => {
   const dirs: string[] = [];
   let database: Awaited<ReturnType<typeof copyBaseDatabase>>;
-  let a: Running;
-  let b: Running;
+  let a: ServerProcess;
+  let b: ServerProcess;
 
   beforeAll(async () => {
-    const start = async () => {
-      const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-two-'));
-      dirs.push(dataDir);
-      database ??= await copyBaseDatabase(dataDir);
-      return boot(loadEnv({ NODE_ENV: 'test', PORT: '0', OAUTH_PORT: '0', SMTP_PORT: '0', DATA_DIR: dataDir, SEED_DEMO: 'never', ...testRateLimits, ...database.env }), () => undefined);
+    const dataDir = () => {
+      const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-two-'));
+      dirs.push(dir);
+      return dir;
     };
-    a = await start();
-    b = await start();
-  }, 120_000);
+    const first = dataDir();
+    database = await copyBaseDatabase(first);
+    const env = { LOG_LEVEL: 'error', ...testRateLimits, RATE_LIMIT_UPLOADS_PER_MIN: String(UPLOADS_PER_MIN), ...database.env };
+    a = await startServerProcess({ ...env, DATA_DIR: first });
+    b = await startServerProcess({
+      ...env,
+      DATA_DIR: dataDir(),
+      OAUTH_AUTHORIZE_URL: `${a.oauthUrl}/authorize`,
+      OAUTH_TOKEN_URL: `${a.oauthUrl}/token`,
+      OAUTH_USERINFO_URL: `${a.oauthUrl}/userinfo`,
+    });
+  }, 200_000);
   afterAll(async () => {
-    await a?.stop();
     await b?.stop();
+    await a?.stop();
     await database?.drop();
     for (const dir of dirs) fs.rmSync(dir, { recursive: true, force: true });
   });
 
-  it('serves a session begun on A from B, and a sign-out on A ends it on B at once', async () => {
+  it('shows an approval made on A in B’s comparison, search and steel page', async () => {
     const member = await signIn(a.url, await demoHandle(a.url, 'member'));
-    const cookie = member.agent.jar
-      .getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false })
-      .map((c) => c.toValueString())
-      .join('; ');
-    const onB = await request(b.url).get('/api/session').set('Cookie', cookie).expect(200);
-    expect(onB.body.user).toMatchObject({ handle: member.user.handle });
-    await request(b.url).post('/api/results').set('Cookie', cookie).set('X-CSRF-Token', member.csrf).send(goodResult()).expect(201);
+    const mod = await signIn(a.url, await demoHandle(a.url, 'moderator'));
+    // B's kept answers and read models, read (so kept) before the approval.
+    const compared = async () => (await request(b.url).get('/api/compare?method=push-cut-test-v2').expect(200)).body.totalResults as number;
+    const steelCount = async () => (await request(b.url).get('/api/steels/aisi-d2').expect(200)).body.resultCount as number;
+    const found = async () => (await request(b.url).get(`/api/search?q=${MARK}&type=result`).expect(200)).body.facets.result as number;
+    const [total, count] = [await compared(), await steelCount()];
+    expect(await found()).toBe(0);
 
+    const id = (await post(a.url, member, result(150, `${MARK} approved on A`)).expect(201)).body.id as number;
+    await review(a.url, mod, id).expect(200);
+
+    await eventually('B’s comparison counts the approval', async () => (await compared()) === total + 1);
+    await eventually('B’s steel page counts the approval', async () => (await steelCount()) === count + 1);
+    await eventually('B’s search finds the approved result', async () => (await found()) === 1);
+  });
+
+  it('ends a session on B at once when it signs out on A, and a banned account’s on B at once', async () => {
+    const member = await signIn(a.url, await demoHandle(a.url, 'member'));
+    expect((await request(b.url).get('/api/session').set('Cookie', cookiesOf(member)).expect(200)).body.user).toMatchObject({ handle: member.user.handle });
+    await post(b.url, member, result(160)).expect(201);
     await member.agent.post('/auth/signout').set('X-CSRF-Token', member.csrf).expect(204);
-    const afterOnB = await request(b.url).get('/api/session').set('Cookie', cookie).expect(200);
-    expect(afterOnB.body.user).toBeNull();
-    await request(b.url).post('/api/results').set('Cookie', cookie).set('X-CSRF-Token', member.csrf).send(goodResult()).expect(401);
+    expect((await request(b.url).get('/api/session').set('Cookie', cookiesOf(member)).expect(200)).body.user).toBeNull();
+    await post(b.url, member, result(160)).expect(401);
+
+    const admin = await signIn(a.url, await demoHandle(a.url, 'admin'));
+    const other = await signIn(a.url, await demoHandle(a.url, 'member', 1));
+    // B has read (and, on SQLite, would keep) the account before the ban.
+    await post(b.url, other, result(165)).expect(201);
+    await admin.agent.patch(`/api/admin/users/${other.user.handle}`).set('X-CSRF-Token', admin.csrf).send({ banned: true, reason: 'Two-process test.' }).expect(200);
+    await post(b.url, other, result(165)).expect(401);
+    expect((await request(b.url).get('/api/session').set('Cookie', cookiesOf(other)).expect(200)).body.user).toBeNull();
+  });
+
+  it('finishes on B a sign-in begun on A', async () => {
+    const handle = await demoHandle(a.url, 'member', 2);
+    const start = await request(a.url).get(`/auth/signin?as=${handle}`).expect(302);
+    const signinCookie = (start.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
+    const authorize = await fetch(start.headers.location, { redirect: 'manual' });
+    const callback = new URL(authorize.headers.get('location')!);
+    const onB = request.agent(b.url);
+    const done = await onB.get(`${callback.pathname}${callback.search}`).set('Cookie', signinCookie).expect(302);
+    expect(done.headers.location).toBe('/');
+    expect((await onB.get('/api/session').expect(200)).body.user).toMatchObject({ handle });
+  });
+
+  it('counts a rate limit across both processes', async () => {
+    const upload = (url: string) => request(url).post('/api/photos').attach('file', Buffer.from('not a photo'), 'note.txt');
+    for (let i = 0; i < UPLOADS_PER_MIN; i += 1) expect((await upload(i % 2 ? b.url : a.url)).status).not.toBe(429);
+    expect((await upload(a.url)).status).toBe(429);
+    expect((await upload(b.url)).status).toBe(429);
+  });
+
+  it('of two approvals of one result at the same moment through A and B, exactly one wins (20 tries), and both comparisons agree', async () => {
+    const member = await signIn(a.url, await demoHandle(a.url, 'member'));
+    const [mod1, mod2] = [await signIn(a.url, await demoHandle(a.url, 'moderator')), await signIn(b.url, await demoHandle(b.url, 'moderator', 1))];
+    const compared = async (url: string) => (await request(url).get('/api/compare?method=push-cut-test-v2').expect(200)).body.totalResults as number;
+    const before = await compared(a.url);
+    const ids: number[] = [];
+    for (let i = 0; i < 20; i += 1) ids.push((await post(a.url, member, result(170 + i)).expect(201)).body.id as number);
+    const outcomes = await Promise.all(ids.map((id) => Promise.all([review(a.url, mod1, id), review(b.url, mod2, id)])));
+    if (outcomes.flat().some((r) => r.status >= 500)) console.error(a.output().slice(-4000), b.output().slice(-4000));
+    for (const [i, pair] of outcomes.entries()) expect(pair.map((r) => r.status).sort(), `result ${ids[i]}`).toEqual([200, 409]);
+    for (const id of ids) {
+      const trail = (await request(b.url).get(`/api/results/${id}`).set('Cookie', cookiesOf(mod2)).expect(200)).body.trail as { to: string }[];
+      expect(trail.filter((e) => e.to === 'approved'), `approvals of ${id}`).toHaveLength(1);
+    }
+    await eventually('A’s comparison counts the 20 approvals', async () => (await compared(a.url)) === before + 20);
+    await eventually('B’s comparison counts the 20 approvals', async () => (await compared(b.url)) === before + 20);
+    const cellsOf = async (url: string) => (await request(url).get('/api/compare?method=push-cut-test-v2&pageSize=5000').expect(200)).body.rows as unknown[];
+    expect(await cellsOf(b.url)).toEqual(await cellsOf(a.url));
+  }, 120_000);
+});
+
+/**
+ * On either dialect: a server process follows writes another process made (here the test, as a
+ * command-line tool would: `npm run reaggregate`, a restore, another app process on PostgreSQL),
+ * which reach it only through the `changes` table.
+ */
+describe('a server process follows writes made by another process', () => {
+  let dataDir: string;
+  let database: Awaited<ReturnType<typeof copyBaseDatabase>>;
+  let server: ServerProcess;
+  let db: Database;
+
+  beforeAll(async () => {
+    dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-follow-'));
+    database = await copyBaseDatabase(dataDir);
+    server = await startServerProcess({ ...testRateLimits, ...database.env, DATA_DIR: dataDir });
+    db = new Database({ storage: path.join(dataDir, 'edgeledger.sqlite'), url: database.env.DATABASE_URL });
+  }, 120_000);
+  afterAll(async () => {
+    await db?.close();
+    await server?.stop();
+    await database?.drop();
+    fs.rmSync(dataDir, { recursive: true, force: true });
+  });
+
+  it('shows a steel renamed by another process on its kept page and in its search', async () => {
+    const page = async () => (await request(server.url).get('/api/steels/aisi-o1').expect(200)).body.name as string;
+    const found = async (q: string) => ((await request(server.url).get(`/api/search?q=${q}&type=steel`).expect(200)).body.hits as { slug: string }[]).some((h) => h.slug === 'aisi-o1');
+    const name = await page();
+    expect(await page()).toBe(name); // kept now
+    expect(await found('Followteststeel')).toBe(false);
+    await db.write(async (transaction) => {
+      const steel = await Steel.findOne({ where: { slug: 'aisi-o1' }, transaction });
+      await steel!.update({ name: 'Followteststeel O1' }, { transaction });
+    });
+    await eventually('the server’s page shows the new name', async () => (await page()) === 'Followteststeel O1');
+    await eventually('the server’s search finds the new name', () => found('Followteststeel'));
   });
 });
