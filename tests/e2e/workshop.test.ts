@@ -90,12 +90,12 @@ describe('the workshop, as a member sets it up', () => {
     await log.getByLabel('Date').fill('2026-01-01');
     await log.getByLabel('Diameter (mm)').fill('250');
     await log.getByRole('button', { name: 'Log measurement' }).click();
-    await card.getByRole('cell', { name: '2026-01-01' }).waitFor();
+    await card.getByRole('cell', { name: '1 Jan 2026' }).waitFor();
     await log.getByLabel('Date').fill('2026-03-01');
     await log.getByLabel('Diameter (mm)').fill('246');
     await log.getByLabel('Sharpenings since').fill('40');
     await log.getByRole('button', { name: 'Log measurement' }).click();
-    await card.getByRole('cell', { name: '2026-03-01' }).waitFor();
+    await card.getByRole('cell', { name: '1 Mar 2026' }).waitFor();
 
     const setup = page.getByRole('article', { name: 'Setup Chef knife 15°' });
     await expect.poll(() => setup.innerText()).toMatch(/Vitrified has worn: the setting moved \+\d/);
