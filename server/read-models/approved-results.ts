@@ -13,7 +13,7 @@ type CellChange = { keys: CellKey[] } | { all: true };
 /**
  * The approved results' filterable columns as typed arrays in memory: what the comparison's
  * live filters (hardness, angle, dates, bond, publishers) need, so that a view filtered by them
- * is a scan of a few MB rather than a read of result rows (decision 017). Built once at
+ * is a scan of a few MB rather than a read of result rows (decision 019). Built once at
  * start-up (its rows in cell order, decision 026), then kept current by `apply` after each
  * commit that changed approved results: the whole-φ cells a commit named are read again
  * (through the covering index of 0008) and their rows replaced. A read waits for the updates under way, so an answer never predates a commit
