@@ -343,7 +343,7 @@ describe('the whole loop in a browser', () => {
     const table = page.getByRole('region', { name: 'Comparison table' });
     const row = table.getByRole('row').filter({ hasText: `${um(band.loUm)}–${um(band.hiUm)}` });
     await row.waitFor();
-    const nCell = row.getByRole('cell').nth(4);
+    const nCell = row.locator('td[data-label="n"]');
     expect((await nCell.textContent())?.replace(/\D+/g, '')).toBe(String(before + 1));
 
     await page.goto(`${base}/search?q=${marker}`);
