@@ -60,10 +60,11 @@ export interface SearchHit {
  */
 const STOP_WORDS = new Set(['a', 'an', 'and', 'at', 'by', 'for', 'from', 'g', 'hrc', 'in', 'is', 'median', 'of', 'on', 'or', 'per', 'side', 'the', 'to', 'um', 'with', 'µm']);
 
-const SPLIT = /[\s,;:()[\]{}"'!?/\\|<>=+*&^%$#@~`]+/u;
+const SPLIT = /[\s,;:()[\]{}"'!?/\\|<>=+*&^%$#@~`·]+/u;
 
 /**
- * Splits on white space and punctuation but keeps a dot or hyphen between letters and digits,
+ * Splits on white space and punctuation (the middle dot that joins a body's blocks too) but keeps
+ * a dot or hyphen between letters and digits,
  * so "1.2379" and "x153crmov12" stay whole; each dotted token is indexed also without dots.
  */
 function tokenize(text: string): string[] {
