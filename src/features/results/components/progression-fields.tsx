@@ -29,8 +29,9 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
   return (
     <fieldset className="rounded-md border border-rule bg-panel px-4 pb-4 pt-2">
       <legend className="px-1 font-serif text-lg font-semibold">
-        Progression <span className="ml-2 font-sans text-sm font-normal text-muted">optional: the steps before the final abrasive, coarse to fine</span>
+        Progression <span className="ml-2 font-sans text-sm font-normal text-muted">optional</span>
       </legend>
+      <p className="mt-1 text-sm text-muted">The steps before the final abrasive, coarse to fine.</p>
       <ol className="mt-2 flex flex-col gap-3" aria-label="Steps before the final abrasive">
         {fields.map((field, i) => {
           const e = errors.progression?.[i];
