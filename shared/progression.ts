@@ -7,7 +7,7 @@
 import { z } from 'zod';
 import { gritInputSchema, slugSchema as slug } from './schemas/common';
 import { ComputationError } from './computation-error';
-import { GRIT_STANDARDS, formatGrade, formatMicrometres, parseGrit, type GritStandard } from './grit';
+import { GRIT_STANDARDS, formatMicrometres, parseGrit, type GritStandard } from './grit';
 import { ABRASIVE_MATERIALS } from './vocabulary';
 
 /** Most steps before the final abrasive. */
@@ -134,9 +134,4 @@ export function parseProgressionCell(text: string, abrasiveOf: (text: string) =>
     steps.push(step);
   });
   return { steps, issues };
-}
-
-/** A step's grit written for people: the grade with its standard when given, else the page's. */
-export function stepGritWords(step: Pick<DerivedStep, 'gritStandard' | 'gritGrade' | 'gritUm'>): string {
-  return `${formatGrade({ standard: step.gritStandard, grade: step.gritGrade })} (${formatMicrometres(step.gritUm)})`;
 }

@@ -86,7 +86,3 @@ export async function listResults(query: z.infer<typeof resultListQuerySchema>, 
   return { items: rows, page: query.page, pageSize: limits.pageSize, total: count };
 }
 
-/** Pending results, oldest first: the review desk's queue. */
-export async function reviewQueue(): Promise<Result[]> {
-  return Result.findAll({ where: { status: 'pending' }, include: withTrail, order: [['createdAt', 'ASC'], ['id', 'ASC']], limit: 200 });
-}
