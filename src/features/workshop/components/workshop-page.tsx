@@ -100,13 +100,13 @@ function costText(wheel: WorkshopWheelView): string {
   }
   const head = `${money(cost.costPerSharpening, wheel.currency, 3)} over about ${formatNumber(cost.expectedSharpenings, 0)} sharpenings`;
   if (cost.basis === 'measured-wear') {
-    const n = wheel.measurements.length;
+    const n = cost.measurements;
     return `${head}: the diameter lost per sharpening on this wheel alone (${cost.restsOn} sharpenings across ${n} measurements) against its usable range${
-      n < FEW || cost.restsOn < FEW ? `. Only ${n < FEW ? `${n} measurements` : `${cost.restsOn} sharpenings`}: a rough estimate that will move as you log more` : ''
+      cost.rough ? `. Only ${n < FEW ? `${n} measurements` : `${cost.restsOn} sharpenings`}: a rough estimate that will move as you log more` : ''
     }.`;
   }
   return `${head}: the median life of ${cost.restsOn} retired wheel${cost.restsOn === 1 ? '' : 's'} of this abrasive that members reported${
-    cost.restsOn < FEW ? `. Only ${cost.restsOn}: a rough estimate` : ''
+    cost.rough ? `. Only ${cost.restsOn}: a rough estimate` : ''
   }.`;
 }
 
@@ -257,6 +257,44 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
   );
 }
 
+/**
+ * One sharpening on the whole kit (shared/workshop.ts `kitSharpeningCost`): the sum of the active
+ * wheels' figures, the rule it rests on, the wheels left out and why, and plainly when it is rough.
+ */
+function KitPerSharpening({ workshop, name }: { workshop: Workshop; name: (id: number) => string }) {
+  const { byCurrency, missing } = workshop.kit.perSharpening;
+  const active = workshop.wheels.filter((w) => !w.retiredOn);
+  if (active.length === 0) return null;
+  const why = (m: (typeof missing)[number]) => {
+    if (m.why === 'no-price') return 'no price paid';
+    const wheel = active.find((w) => w.id === m.wheelId);
+    if (wheel?.wears) return wheel.minDiameterMm === null ? 'no minimum diameter' : 'not two measurements with sharpenings between them yet';
+    return 'no member has reported the life of a wheel of its abrasive yet';
+  };
+  return (
+    <div className="mt-3 border-t border-rule pt-3">
+      <h4 className="font-semibold">Per sharpening, the whole kit</h4>
+      {byCurrency.length === 0 ? <p className="text-muted">No wheel has a figure yet: see each wheel’s card for what it needs.</p> : null}
+      {byCurrency.map((c) => (
+        <p key={c.currency}>
+          <strong>{money(c.costPerSharpening, c.currency, 2)}</strong> a sharpening{missing.length ? ' at least' : ''}, from {c.wheelIds.length} of {active.length} wheel
+          {active.length === 1 ? '' : 's'} ({c.wheelIds.map((id) => `${name(id)} ${money(active.find((w) => w.id === id)!.cost!.costPerSharpening, c.currency, 3)}`).join(' + ')})
+          {c.rough ? '. A rough estimate: it rests on few measurements or reports, as the wheels’ cards say' : ''}.
+        </p>
+      ))}
+      {missing.length ? (
+        <p className="mt-1">
+          Not counted: {missing.map((m) => `${name(m.wheelId)} (${why(m)})`).join('; ')}.
+        </p>
+      ) : null}
+      <p className="mt-1 text-sm text-muted">
+        The rule: one sharpening takes the blade across every active wheel once, coarse to fine, so the kit’s figure is the sum of each wheel’s. Use
+        fewer wheels and it costs less.
+      </p>
+    </div>
+  );
+}
+
 /** The kit: what it cost against the machine, and where the coolant must change. */
 function Kit({ workshop }: { workshop: Workshop }) {
   const name = (id: number) => workshop.wheels.find((w) => w.id === id)?.name ?? `wheel ${id}`;
@@ -276,7 +314,8 @@ function Kit({ workshop }: { workshop: Workshop }) {
             {t.machinesTotal > 0 ? ` against ${money(t.machinesTotal, t.currency, 0)} for the machine${workshop.grinders.length > 1 ? 's' : ''} (${formatNumber(t.wheelsTotal / t.machinesTotal, 2)} times)` : ''}
           </p>
         ))}
-        <p className="mt-2 text-sm text-muted">Totals are per currency, never converted. Costs per sharpening are on each wheel, with what they rest on.</p>
+        <KitPerSharpening workshop={workshop} name={name} />
+        <p className="mt-2 text-sm text-muted">Totals are per currency, never converted. Each wheel’s own figure, with what it rests on, is on its card.</p>
       </div>
       <div className="min-w-0 rounded-md border border-rule bg-panel p-4">
         <h3 className="text-lg font-semibold">Coolant in the trough</h3>
