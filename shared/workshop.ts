@@ -6,6 +6,7 @@
  * Pure arithmetic: no I/O, no clock (today's date is an argument), no framework imports.
  */
 import { gapForAngle, ratedSpeedCheck } from './geometry';
+import { gritBand } from './grit';
 import { median } from './stats';
 import type { Coolant } from './vocabulary';
 
@@ -331,4 +332,33 @@ export function progressionCoolant(steps: CoolantStep[], final: CoolantStep) {
   const indexed = [...steps, { ...final, micrometres: null }].map((step, index) => ({ ...step, index }));
   const plan = coolantPlan(indexed);
   return { changes: plan.changes, suggestedOrder: plan.suggested.slice(0, -1).map((s) => s.index), suggestedChanges: plan.suggestedChanges };
+}
+
+/** The coolants one option of the decision view (an abrasive material at a grit band) runs on. */
+export interface OptionCoolants {
+  /** 'band': from the abrasive pages of that material in that band; 'material': none is in the band, so from every page of the material. */
+  basis: 'band' | 'material' | 'none';
+  coolants: { coolant: Coolant; pages: string[] }[];
+}
+
+/**
+ * Which coolants an option of the decision view needs, as its abrasive pages say: the pages of
+ * the option's material whose own size falls in the option's band (bands are (loUm, hiUm], as
+ * `gritBand`), or, when none does, every page of the material. Grouped by coolant, in the order
+ * first met.
+ */
+export function optionCoolants(
+  pages: readonly { name: string; material: string; gritUm: number | null; coolant: Coolant }[],
+  option: { material: string; band: { hiUm: number; step: 1 | 0.5 } },
+): OptionCoolants {
+  const ofMaterial = pages.filter((p) => p.material === option.material);
+  const inBand = ofMaterial.filter((p) => p.gritUm !== null && Math.abs(gritBand(p.gritUm, option.band.step).hiUm - option.band.hiUm) < 1e-9 * option.band.hiUm);
+  const chosen = inBand.length ? inBand : ofMaterial;
+  const coolants: OptionCoolants['coolants'] = [];
+  for (const page of chosen) {
+    const group = coolants.find((c) => c.coolant === page.coolant);
+    if (group) group.pages.push(page.name);
+    else coolants.push({ coolant: page.coolant, pages: [page.name] });
+  }
+  return { basis: inBand.length ? 'band' : ofMaterial.length ? 'material' : 'none', coolants };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { angleFromSetup } from '@shared/geometry';
-import { angleFromSavedSetup, coolantPlan, kitSharpeningCost, progressionCoolant, replacementForecast, settingsToday, sharpeningCost, type CoolantStep, type WorkshopWheel } from '@shared/workshop';
+import { angleFromSavedSetup, coolantPlan, kitSharpeningCost, optionCoolants, progressionCoolant, replacementForecast, settingsToday, sharpeningCost, type CoolantStep, type WorkshopWheel } from '@shared/workshop';
 
 const grinder = { id: 1, name: 'Wet grinder', spindleRpm: 90, barDiameterMm: 12 };
 const setup = { id: 7, name: 'Kitchen knife 15°', projectionMm: 140, perSideDeg: 15, offsetMm: 0 };
@@ -208,5 +208,39 @@ describe('coolant along a result\'s progression', () => {
       const final = step('final', coolants[Math.floor(random() * 3)], 5);
       expect(progressionCoolant(steps, final).suggestedChanges.length).toBe(fewestByBruteForce(steps, final));
     }
+  });
+});
+
+describe('the coolants of a decision view\'s option (abrasive material at a grit band)', () => {
+  // Invented pages; band edges are powers of two in mm (Krumbein's φ): (31.25, 62.5] µm is φ 4 to 5, (7.8125, 15.625] µm φ 6 to 7.
+  const pages = [
+    { name: 'CBN plated B46', material: 'cbn', gritUm: 46, coolant: 'water-inhibitor' as const },
+    { name: 'Diamond plated D46', material: 'diamond', gritUm: 46, coolant: 'water-inhibitor' as const },
+    { name: 'Diamond resin 15 µm', material: 'diamond', gritUm: 15, coolant: 'water' as const },
+    { name: 'Diamond strop 1 µm', material: 'diamond', gritUm: 1, coolant: 'dry' as const },
+    { name: 'Diamond resin 12 µm', material: 'diamond', gritUm: 12, coolant: 'water-inhibitor' as const },
+  ];
+  const whole = (hiUm: number) => ({ hiUm, step: 1 as const });
+
+  it('takes the pages of the material in the band; several coolants are each named with their pages', () => {
+    expect(optionCoolants(pages, { material: 'cbn', band: whole(62.5) })).toEqual({ basis: 'band', coolants: [{ coolant: 'water-inhibitor', pages: ['CBN plated B46'] }] });
+    expect(optionCoolants(pages, { material: 'diamond', band: whole(15.625) })).toEqual({
+      basis: 'band',
+      coolants: [
+        { coolant: 'water', pages: ['Diamond resin 15 µm'] },
+        { coolant: 'water-inhibitor', pages: ['Diamond resin 12 µm'] },
+      ],
+    });
+  });
+
+  it('falls back to every page of the material when none is in the band; none without a page', () => {
+    expect(optionCoolants(pages, { material: 'cbn', band: whole(15.625) })).toEqual({ basis: 'material', coolants: [{ coolant: 'water-inhibitor', pages: ['CBN plated B46'] }] });
+    expect(optionCoolants(pages, { material: 'silicon-carbide', band: whole(62.5) })).toEqual({ basis: 'none', coolants: [] });
+  });
+
+  it('a size on a band\'s edge belongs to the band it is the coarse edge of, as gritBand says', () => {
+    const edge = [{ name: 'edge', material: 'cbn', gritUm: 62.5, coolant: 'water' as const }];
+    expect(optionCoolants(edge, { material: 'cbn', band: whole(62.5) }).basis).toBe('band');
+    expect(optionCoolants(edge, { material: 'cbn', band: whole(125) }).basis).toBe('material');
   });
 });

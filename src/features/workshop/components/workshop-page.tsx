@@ -12,6 +12,7 @@ import { buttonClasses } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { describeError, Empty, ErrorState, Loading } from '@/components/ui/states';
 import { LengthUnitPicker } from '@/components/ui/length-unit-picker';
+import { CoolantCaution, coolantWord } from './coolant-caution';
 import { SafetyCautions } from '@/features/tools/components/safety-cautions';
 import { useAbrasives } from '@/features/abrasives/api/get-abrasives';
 import { useWorkshop, type Workshop, type WorkshopWheelView } from '../api/get-workshop';
@@ -302,7 +303,7 @@ function Kit({ workshop }: { workshop: Workshop }) {
   const changeText = (changes: typeof coolant.changes, order: number[]) =>
     changes.length === 0
       ? 'no change of coolant'
-      : changes.map((c) => `after ${name(order[c.afterStep])}, change ${coolantName(c.from).toLowerCase()} for ${coolantName(c.to).toLowerCase()}`).join('; ');
+      : changes.map((c) => `after ${name(order[c.afterStep])}, change ${coolantWord(c.from)} for ${coolantWord(c.to)}`).join('; ');
   return (
     <div className="grid gap-4 md:grid-cols-2">
       <div className="min-w-0 rounded-md border border-rule bg-panel p-4">
@@ -327,10 +328,7 @@ function Kit({ workshop }: { workshop: Workshop }) {
             Fewer changes, still coarse to fine: {coolant.suggestedOrder.map(name).join(' → ')} ({changeText(coolant.suggestedChanges, coolant.suggestedOrder)}).
           </p>
         ) : null}
-        <p className="mt-2 text-sm text-muted">
-          Empty and rinse the trough between coolants. Read the safety data sheet of any inhibitor and follow the wheel maker’s instructions on
-          which coolant it may run in.
-        </p>
+        <CoolantCaution />
       </div>
     </div>
   );
