@@ -402,7 +402,7 @@ export default function WorkshopPage() {
                       { key: 'name', label: 'Name' },
                       { key: 'spindleRpm', label: 'Spindle speed (rpm)', inputMode: 'decimal' },
                       { key: 'barDiameterMm', label: `Support bar diameter (${unit})`, inputMode: 'decimal' },
-                      { key: 'barMount', label: 'Where the bar mounts', options: BAR_MOUNTS },
+                      { key: 'barMount', label: 'Where the bar mounts', options: BAR_MOUNTS, wide: true },
                       ...PRICE_FIELDS,
                     ]}
                     initial={{ barMount: 'with-rotation' }}
