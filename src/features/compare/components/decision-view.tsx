@@ -74,7 +74,7 @@ export function DecisionView({ steel, steelName, methods }: { steel: string; ste
   return (
     <div className="flex flex-col gap-6">
       <form className="flex flex-wrap items-end gap-4 rounded-md border border-rule bg-panel p-4" onSubmit={(e) => e.preventDefault()} aria-label="What to decide about">
-        <Field id="decide-method" label="Method" className="min-w-0 w-full sm:w-72">
+        <Field id="decide-method" label="Method" className="min-w-0 w-full sm:w-96">
           <Select id="decide-method" value={method?.slug ?? get('method') ?? ''} onChange={(e) => set({ method: e.target.value, a: undefined, b: undefined })}>
             <PageOptions pages={methods} />
           </Select>
@@ -257,10 +257,10 @@ function DifferencePanel({ filters, a, b, abrasives, onClear }: { filters: Recor
           </div>
           {query.data.sharpness ? <ShiftDrawing shift={query.data.sharpness} within={query.data.withinEdge} title="Force to cut" /> : null}
           {query.data.retention ? <ShiftDrawing shift={query.data.retention} within={null} title="Retention" /> : null}
-          {query.data.a && query.data.b && abrasives ? <TroughBetween a={query.data.a} b={query.data.b} pages={abrasives} /> : null}
           <p className="text-sm text-muted">
             The shift is the Hodges–Lehmann estimate (the median of every difference between a result of B and a result of A); its interval comes from the exact distribution of the Mann–Whitney statistic and assumes only that results are independent (Hollander, Wolfe &amp; Chicken, Nonparametric Statistical Methods, 3rd ed., §4.3).
           </p>
+          {query.data.a && query.data.b && abrasives ? <TroughBetween a={query.data.a} b={query.data.b} pages={abrasives} /> : null}
         </>
       )}
     </section>

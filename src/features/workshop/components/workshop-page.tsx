@@ -278,7 +278,8 @@ function KitPerSharpening({ workshop, name }: { workshop: Workshop; name: (id: n
       {byCurrency.length === 0 ? <p className="text-muted">No wheel has a figure yet: see each wheel’s card for what it needs.</p> : null}
       {byCurrency.map((c) => (
         <p key={c.currency}>
-          <strong>{money(c.costPerSharpening, c.currency, 2)}</strong> a sharpening{missing.length ? ' at least' : ''}, from {c.wheelIds.length} of {active.length} wheel
+          {missing.length ? 'At least ' : ''}
+          <strong>{money(c.costPerSharpening, c.currency, 2)}</strong> a sharpening, from {c.wheelIds.length} of {active.length} wheel
           {active.length === 1 ? '' : 's'} ({c.wheelIds.map((id) => `${name(id)} ${money(active.find((w) => w.id === id)!.cost!.costPerSharpening, c.currency, 3)}`).join(' + ')})
           {c.rough ? '. A rough estimate: it rests on few measurements or reports, as the wheels’ cards say' : ''}.
         </p>
@@ -315,8 +316,8 @@ function Kit({ workshop }: { workshop: Workshop }) {
             {t.machinesTotal > 0 ? ` against ${money(t.machinesTotal, t.currency, 0)} for the machine${workshop.grinders.length > 1 ? 's' : ''} (${formatNumber(t.wheelsTotal / t.machinesTotal, 2)} times)` : ''}
           </p>
         ))}
+        <p className="mt-2 text-sm text-muted">Totals are per currency, never converted. Each wheel’s own figure per sharpening, with what it rests on, is on its card.</p>
         <KitPerSharpening workshop={workshop} name={name} />
-        <p className="mt-2 text-sm text-muted">Totals are per currency, never converted. Each wheel’s own figure, with what it rests on, is on its card.</p>
       </div>
       <div className="min-w-0 rounded-md border border-rule bg-panel p-4">
         <h3 className="text-lg font-semibold">Coolant in the trough</h3>
