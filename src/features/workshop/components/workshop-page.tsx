@@ -417,12 +417,12 @@ export default function WorkshopPage() {
                       send={addWheel}
                       fields={[
                         { key: 'name', label: 'Name' },
-                        { key: 'abrasive', label: 'Abrasive page', options: { '': 'Choose…', ...wheelAbrasives } },
+                        { key: 'abrasive', label: 'Abrasive page', options: { '': 'Choose…', ...wheelAbrasives }, wide: true },
                         { key: 'grinderId', label: 'On grinder', options: grinderOptions },
                         { key: 'originalDiameterMm', label: `Diameter when new (${unit})`, inputMode: 'decimal' },
                         { key: 'minDiameterMm', label: `Minimum usable diameter (${unit}, from the maker)`, inputMode: 'decimal' },
                         { key: 'ratedSpeedMps', label: 'Rated maximum speed (m/s, on the wheel)', inputMode: 'decimal' },
-                        { key: 'coolant', label: 'Coolant', options: { '': 'As on the abrasive page', ...COOLANTS } },
+                        { key: 'coolant', label: 'Coolant', options: { '': 'As on the abrasive page', ...COOLANTS }, wide: true },
                         { key: 'acquiredOn', label: 'Bought on', type: 'date' },
                         ...PRICE_FIELDS,
                       ]}
