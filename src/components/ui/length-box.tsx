@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type Ref } from 'react';
 import { lengthText, toMillimetres, useLengthUnit, type LengthUnit } from '@/lib/lengths';
 import { controlA11y, Field, Input } from './field';
 
@@ -18,6 +18,7 @@ export function LengthBox({
   valueMm,
   onChangeMm,
   onBlur,
+  inputRef,
 }: {
   id: string;
   /** The label without its unit: "(mm)" or "(in)" is added. */
@@ -27,6 +28,8 @@ export function LengthBox({
   valueMm: number | undefined;
   onChangeMm: (mm: number) => void;
   onBlur?: () => void;
+  /** The form's ref, so an error can move the focus here. */
+  inputRef?: Ref<HTMLInputElement>;
 }) {
   const [unit] = useLengthUnit();
   const [typed, setTyped] = useState<{ text: string; unit: LengthUnit; mm: number } | null>(null);
@@ -37,6 +40,7 @@ export function LengthBox({
     <Field id={id} label={`${label} (${unit})`} hint={hint} error={error}>
       <Input
         {...controlA11y(id, { hint, error })}
+        ref={inputRef}
         value={text}
         inputMode="decimal"
         autoComplete="off"

@@ -281,6 +281,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
             valueMm={field.value}
             onChangeMm={field.onChange}
             onBlur={field.onBlur}
+            inputRef={field.ref}
           />
         )}
       />
