@@ -6,6 +6,7 @@
  * Pure arithmetic: no I/O, no clock (today's date is an argument), no framework imports.
  */
 import { gapForAngle, ratedSpeedCheck } from './geometry';
+import { gritBand } from './grit';
 import { median } from './stats';
 import type { Coolant } from './vocabulary';
 
@@ -151,6 +152,10 @@ export interface SharpeningCost {
   basis: 'measured-wear' | 'reported-life';
   /** Sharpenings counted (measured wear) or retired wheels reported (reported life). */
   restsOn: number;
+  /** Measured diameters the wear rests on (measured wear; 0 for reported life). */
+  measurements: number;
+  /** Fewer than FEW measurements, sharpenings or reported lives: a rough estimate, said plainly. */
+  rough: boolean;
 }
 
 /**
@@ -173,12 +178,56 @@ export function sharpeningCost(
     const lostMm = series[0].diameterMm - series[series.length - 1].diameterMm;
     if (sharpenings <= 0 || lostMm <= 0) return null;
     const expectedSharpenings = (wheel.originalDiameterMm - wheel.minDiameterMm) / (lostMm / sharpenings);
-    return { costPerSharpening: wheel.pricePaid / expectedSharpenings, expectedSharpenings, basis: 'measured-wear', restsOn: sharpenings };
+    const rough = series.length < FEW || sharpenings < FEW;
+    return { costPerSharpening: wheel.pricePaid / expectedSharpenings, expectedSharpenings, basis: 'measured-wear', restsOn: sharpenings, measurements: series.length, rough };
   }
   if (reportedLives.length === 0) return null;
   const expectedSharpenings = median(reportedLives);
   if (!(expectedSharpenings > 0)) return null;
-  return { costPerSharpening: wheel.pricePaid / expectedSharpenings, expectedSharpenings, basis: 'reported-life', restsOn: reportedLives.length };
+  const rough = reportedLives.length < FEW;
+  return { costPerSharpening: wheel.pricePaid / expectedSharpenings, expectedSharpenings, basis: 'reported-life', restsOn: reportedLives.length, measurements: 0, rough };
+}
+
+/** A wheel of the kit as its cost per sharpening sees it. */
+export interface KitWheelCost {
+  wheelId: number;
+  pricePaid: number | null;
+  currency: string | null;
+  cost: SharpeningCost | null;
+}
+
+/** The kit's cost per sharpening in one currency: the sum over the wheels that have a figure in it. */
+export interface KitSharpeningCost {
+  currency: string;
+  costPerSharpening: number;
+  /** The wheels summed, each with its own figure. */
+  wheelIds: number[];
+  /** One or more of those figures is a rough estimate (the per-wheel rule). */
+  rough: boolean;
+}
+
+/**
+ * What one sharpening costs on the whole kit. The rule: a sharpening takes the blade across every
+ * active wheel once, coarse to fine (the same kit the trough's plan orders), so its cost is the sum
+ * of each wheel's cost per sharpening. Sums are per currency, never converted. A wheel without a
+ * price, or whose figure has nothing to rest on yet, is not summed and is named in `missing`: the
+ * sum is then a lower bound. Rough when any summed figure is.
+ */
+export function kitSharpeningCost(wheels: KitWheelCost[]): { byCurrency: KitSharpeningCost[]; missing: { wheelId: number; why: 'no-price' | 'no-estimate' }[] } {
+  const byCurrency = new Map<string, KitSharpeningCost>();
+  const missing: { wheelId: number; why: 'no-price' | 'no-estimate' }[] = [];
+  for (const w of wheels) {
+    if (w.pricePaid === null || !w.currency) missing.push({ wheelId: w.wheelId, why: 'no-price' });
+    else if (!w.cost) missing.push({ wheelId: w.wheelId, why: 'no-estimate' });
+    else {
+      const sum = byCurrency.get(w.currency) ?? { currency: w.currency, costPerSharpening: 0, wheelIds: [], rough: false };
+      sum.costPerSharpening += w.cost.costPerSharpening;
+      sum.wheelIds.push(w.wheelId);
+      sum.rough ||= w.cost.rough;
+      byCurrency.set(w.currency, sum);
+    }
+  }
+  return { byCurrency: [...byCurrency.values()], missing };
 }
 
 /** One step of a progression with the coolant its abrasive runs on. */
@@ -283,4 +332,33 @@ export function progressionCoolant(steps: CoolantStep[], final: CoolantStep) {
   const indexed = [...steps, { ...final, micrometres: null }].map((step, index) => ({ ...step, index }));
   const plan = coolantPlan(indexed);
   return { changes: plan.changes, suggestedOrder: plan.suggested.slice(0, -1).map((s) => s.index), suggestedChanges: plan.suggestedChanges };
+}
+
+/** The coolants one option of the decision view (an abrasive material at a grit band) runs on. */
+export interface OptionCoolants {
+  /** 'band': from the abrasive pages of that material in that band; 'material': none is in the band, so from every page of the material. */
+  basis: 'band' | 'material' | 'none';
+  coolants: { coolant: Coolant; pages: string[] }[];
+}
+
+/**
+ * Which coolants an option of the decision view needs, as its abrasive pages say: the pages of
+ * the option's material whose own size falls in the option's band (bands are (loUm, hiUm], as
+ * `gritBand`), or, when none does, every page of the material. Grouped by coolant, in the order
+ * first met.
+ */
+export function optionCoolants(
+  pages: readonly { name: string; material: string; gritUm: number | null; coolant: Coolant }[],
+  option: { material: string; band: { hiUm: number; step: 1 | 0.5 } },
+): OptionCoolants {
+  const ofMaterial = pages.filter((p) => p.material === option.material);
+  const inBand = ofMaterial.filter((p) => p.gritUm !== null && Math.abs(gritBand(p.gritUm, option.band.step).hiUm - option.band.hiUm) < 1e-9 * option.band.hiUm);
+  const chosen = inBand.length ? inBand : ofMaterial;
+  const coolants: OptionCoolants['coolants'] = [];
+  for (const page of chosen) {
+    const group = coolants.find((c) => c.coolant === page.coolant);
+    if (group) group.pages.push(page.name);
+    else coolants.push({ coolant: page.coolant, pages: [page.name] });
+  }
+  return { basis: inBand.length ? 'band' : ofMaterial.length ? 'material' : 'none', coolants };
 }

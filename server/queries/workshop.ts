@@ -5,6 +5,7 @@ import type { Coolant } from '@shared/vocabulary';
 import {
   coolantPlan,
   currentDiameterMm,
+  kitSharpeningCost,
   replacementForecast,
   settingsToday,
   sharpeningCost,
@@ -118,6 +119,9 @@ export async function readWorkshop(ownerId: number) {
     .sort((a, b) => (b.abrasive?.gritUm ?? 0) - (a.abrasive?.gritUm ?? 0))
     .map((w) => ({ label: w.name, coolant: w.coolant as Coolant, micrometres: w.abrasive?.gritUm ?? null, wheelId: w.id }));
   const plan = coolantPlan(kitSteps);
+  const perSharpening = kitSharpeningCost(
+    presentedWheels.filter((w) => !w.retiredOn).map((w) => ({ wheelId: w.id, pricePaid: w.pricePaid, currency: w.currency, cost: w.cost })),
+  );
 
   return {
     grinders: grinders.map((g) => ({ id: g.id, name: g.name, spindleRpm: g.spindleRpm, barDiameterMm: g.barDiameterMm, barMount: g.barMount, pricePaid: g.pricePaid, currency: g.currency })),
@@ -133,6 +137,7 @@ export async function readWorkshop(ownerId: number) {
     wheels: presentedWheels,
     kit: {
       totals: [...totals.entries()].map(([currency, t]) => ({ currency, wheelsTotal: t.wheels, wheelCount: t.wheelCount, machinesTotal: t.machines })),
+      perSharpening,
       coolant: {
         order: kitSteps.map((s) => s.wheelId),
         changes: plan.changes,

@@ -152,7 +152,14 @@ export const workshopSchema = z
         measurements: z.array(z.looseObject({ id: z.number().int(), measuredOn: z.string(), diameterMm: z.number() })),
       }),
     ),
-    kit: z.looseObject({ totals: z.array(z.looseObject({ currency: z.string() })), coolant: z.looseObject({ order: z.array(z.number().int()) }) }),
+    kit: z.looseObject({
+      totals: z.array(z.looseObject({ currency: z.string() })),
+      perSharpening: z.looseObject({
+        byCurrency: z.array(z.looseObject({ currency: z.string(), costPerSharpening: z.number(), wheelIds: z.array(z.number().int()), rough: z.boolean() })),
+        missing: z.array(z.looseObject({ wheelId: z.number().int(), why: z.enum(['no-price', 'no-estimate']) })),
+      }),
+      coolant: z.looseObject({ order: z.array(z.number().int()) }),
+    }),
   })
   .meta({ id: 'Workshop' });
 

@@ -42,7 +42,11 @@ export function formatLength(mm: number | null | undefined, unit: LengthUnit, si
 export function toMillimetres(text: string, unit: LengthUnit): number {
   const t = text.trim().replace(',', '.');
   const n = t === '' ? Number.NaN : Number(t);
-  return unit === 'in' ? n * MM_PER_INCH : n;
+  if (unit === 'mm' || !Number.isFinite(n)) return n;
+  // 25.4 has one decimal, so a plain decimal in inches is an exact decimal in mm with one more
+  // place: rounded to it, "0.1" in is 2.54 mm, not the binary product's 2.5400000000000005.
+  const places = /^[+-]?\d*\.?(\d*)$/.exec(t)?.[1].length;
+  return places === undefined || places > 14 ? n * MM_PER_INCH : Number((n * MM_PER_INCH).toFixed(places + 1));
 }
 
 /** A length in mm as the text to put in a box in the chosen unit (no grouping, up to 4 decimals in inches). */

@@ -67,6 +67,15 @@ describe('my workshop', () => {
     expect(wheel.speed.overspeed).toBe(false);
     // the kit: 440 EUR of wheels against a 700 EUR machine
     expect(w.kit.totals).toEqual([{ currency: 'EUR', wheelsTotal: 440, wheelCount: 2, machinesTotal: 700 }]);
+    // the kit per sharpening: each active wheel's figure summed (rule of shared/workshop.ts, worked by hand in
+    // tests/unit/workshop.test.ts); the CBN wheel counts only if members reported lives of its abrasive
+    const cbnCost = w.wheels.find((x: { id: number }) => x.id === cbn).cost;
+    const kit = w.kit.perSharpening;
+    expect(kit.byCurrency).toHaveLength(1);
+    expect(kit.byCurrency[0].wheelIds).toEqual(cbnCost ? [cbn, alox] : [alox]);
+    expect(kit.byCurrency[0].costPerSharpening).toBeCloseTo(0.2 + (cbnCost?.costPerSharpening ?? 0), 12);
+    expect(kit.byCurrency[0].rough).toBe(true); // two measurements on the vitrified wheel
+    expect(kit.missing).toEqual(cbnCost ? [] : [{ wheelId: cbn, why: 'no-estimate' }]);
   });
 
   it('edits and deletes a measurement, only the owner\'s', async () => {

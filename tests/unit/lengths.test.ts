@@ -12,6 +12,10 @@ describe('lengths in the chosen unit', () => {
     expect(toMillimetres('0,5', 'in')).toBeCloseTo(12.7, 12); // decimal comma
     expect(toMillimetres('250', 'mm')).toBe(250);
     expect(toMillimetres('', 'in')).toBeNaN();
+    // 25.4 has one decimal, so a decimal in inches is exact in mm with one more place (arithmetic, NIST's exact inch)
+    expect(toMillimetres('0.1', 'in')).toBe(2.54); // the binary product alone is 2.5400000000000005
+    expect(toMillimetres('0.4724', 'in')).toBe(11.99896);
+    expect(toMillimetres('1e-1', 'in')).toBeCloseTo(2.54, 12);
     expect(formatLength(254, 'in')).toBe('10\u00a0in');
     expect(formatLength(12, 'in')).toBe('0.472\u00a0in'); // 12 / 25.4 = 0.47244…
     expect(formatLength(-0.5, 'mm', true)).toBe('−0.5\u00a0mm');

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { angleFromSetup } from '@shared/geometry';
-import { angleFromSavedSetup, coolantPlan, progressionCoolant, replacementForecast, settingsToday, sharpeningCost, type CoolantStep, type WorkshopWheel } from '@shared/workshop';
+import { angleFromSavedSetup, coolantPlan, kitSharpeningCost, optionCoolants, progressionCoolant, replacementForecast, settingsToday, sharpeningCost, type CoolantStep, type WorkshopWheel } from '@shared/workshop';
 
 const grinder = { id: 1, name: 'Wet grinder', spindleRpm: 90, barDiameterMm: 12 };
 const setup = { id: 7, name: 'Kitchen knife 15°', projectionMm: 140, perSideDeg: 15, offsetMm: 0 };
@@ -61,7 +61,7 @@ describe('cost per sharpening', () => {
   it('dressable: usable range over diameter lost per sharpening (by hand)', () => {
     // 250 → 246 mm over 40 sharpenings: 0.1 mm each; usable 250 − 180 = 70 mm → 700 sharpenings; 140 / 700 = 0.20
     const w = { ...wheel(1, 250, [['2026-01-01', 250], ['2026-03-01', 246, 40]]), pricePaid: 140 };
-    expect(sharpeningCost(w, [])).toEqual({ costPerSharpening: 0.2, expectedSharpenings: 700, basis: 'measured-wear', restsOn: 40 });
+    expect(sharpeningCost(w, [])).toEqual({ costPerSharpening: 0.2, expectedSharpenings: 700, basis: 'measured-wear', restsOn: 40, measurements: 2, rough: true });
   });
 
   it('fixed: the median reported life of retired wheels of the same abrasive, with n', () => {
@@ -70,6 +70,48 @@ describe('cost per sharpening', () => {
     expect(c).toMatchObject({ expectedSharpenings: 1500, basis: 'reported-life', restsOn: 3 });
     expect(c.costPerSharpening).toBeCloseTo(0.2, 12);
     expect(sharpeningCost(w, [])).toBeNull();
+  });
+
+  it('rough below five measurements, sharpenings or reports; not at five (FEW)', () => {
+    const five: [string, number, number?][] = [['2026-01-01', 250], ['2026-02-01', 249, 10], ['2026-03-01', 248, 10], ['2026-04-01', 247, 10], ['2026-05-01', 246, 10]];
+    expect(sharpeningCost({ ...wheel(1, 250, five), pricePaid: 140 }, [])).toMatchObject({ costPerSharpening: 0.2, measurements: 5, rough: false });
+    expect(sharpeningCost({ ...wheel(2, 250, [], false), pricePaid: 300 }, [1500, 1500, 1500, 1500, 1500])).toMatchObject({ rough: false });
+  });
+});
+
+describe('the whole kit per sharpening', () => {
+  it('sums each active wheel\'s figure per currency and names the wheels left out (worked by hand)', () => {
+    // Worked by hand, written here:
+    //   vitrified, 140 EUR: 250 → 246 mm over 40 sharpenings = 0.1 mm each; (250 − 180) / 0.1 = 700 sharpenings; 140 / 700 = 0.20 EUR
+    //   CBN, 300 EUR: reported lives 1000, 1500, 2000 → median 1500 sharpenings; 300 / 1500 = 0.20 EUR
+    //   diamond, 450 EUR: nobody reported a life → no figure, left out (the sum is a lower bound)
+    //   fine vitrified, no price → left out
+    //   a 90 USD CBN wheel over a median life of 900 → 0.10 USD, summed apart (never converted)
+    //   kit: 0.20 + 0.20 = 0.40 EUR a sharpening from 2 wheels; rough, since both rest on fewer than 5
+    const vit = sharpeningCost({ ...wheel(1, 250, [['2026-01-01', 250], ['2026-03-01', 246, 40]]), pricePaid: 140 }, []);
+    const cbn = sharpeningCost({ ...wheel(2, 250, [], false), pricePaid: 300 }, [1000, 1500, 2000]);
+    const diamond = sharpeningCost({ ...wheel(3, 250, [], false), pricePaid: 450 }, []);
+    const usd = sharpeningCost({ ...wheel(5, 200, [], false), pricePaid: 90 }, [900]);
+    const kit = kitSharpeningCost([
+      { wheelId: 1, pricePaid: 140, currency: 'EUR', cost: vit },
+      { wheelId: 2, pricePaid: 300, currency: 'EUR', cost: cbn },
+      { wheelId: 3, pricePaid: 450, currency: 'EUR', cost: diamond },
+      { wheelId: 4, pricePaid: null, currency: null, cost: null },
+      { wheelId: 5, pricePaid: 90, currency: 'USD', cost: usd },
+    ]);
+    expect(kit.byCurrency).toHaveLength(2);
+    expect(kit.byCurrency[0]).toMatchObject({ currency: 'EUR', wheelIds: [1, 2], rough: true });
+    expect(kit.byCurrency[0].costPerSharpening).toBeCloseTo(0.4, 12);
+    expect(kit.byCurrency[1]).toMatchObject({ currency: 'USD', wheelIds: [5], rough: true });
+    expect(kit.byCurrency[1].costPerSharpening).toBeCloseTo(0.1, 12);
+    expect(kit.missing).toEqual([{ wheelId: 3, why: 'no-estimate' }, { wheelId: 4, why: 'no-price' }]);
+  });
+
+  it('not rough when every summed figure rests on five or more; empty kit, empty answer', () => {
+    const life = sharpeningCost({ ...wheel(2, 250, [], false), pricePaid: 300 }, [1500, 1500, 1500, 1500, 1500]);
+    const kit = kitSharpeningCost([{ wheelId: 2, pricePaid: 300, currency: 'EUR', cost: life }]);
+    expect(kit.byCurrency).toEqual([{ currency: 'EUR', costPerSharpening: 0.2, wheelIds: [2], rough: false }]); // 300 / 1500, by hand
+    expect(kitSharpeningCost([])).toEqual({ byCurrency: [], missing: [] });
   });
 });
 
@@ -166,5 +208,39 @@ describe('coolant along a result\'s progression', () => {
       const final = step('final', coolants[Math.floor(random() * 3)], 5);
       expect(progressionCoolant(steps, final).suggestedChanges.length).toBe(fewestByBruteForce(steps, final));
     }
+  });
+});
+
+describe('the coolants of a decision view\'s option (abrasive material at a grit band)', () => {
+  // Invented pages; band edges are powers of two in mm (Krumbein's φ): (31.25, 62.5] µm is φ 4 to 5, (7.8125, 15.625] µm φ 6 to 7.
+  const pages = [
+    { name: 'CBN plated B46', material: 'cbn', gritUm: 46, coolant: 'water-inhibitor' as const },
+    { name: 'Diamond plated D46', material: 'diamond', gritUm: 46, coolant: 'water-inhibitor' as const },
+    { name: 'Diamond resin 15 µm', material: 'diamond', gritUm: 15, coolant: 'water' as const },
+    { name: 'Diamond strop 1 µm', material: 'diamond', gritUm: 1, coolant: 'dry' as const },
+    { name: 'Diamond resin 12 µm', material: 'diamond', gritUm: 12, coolant: 'water-inhibitor' as const },
+  ];
+  const whole = (hiUm: number) => ({ hiUm, step: 1 as const });
+
+  it('takes the pages of the material in the band; several coolants are each named with their pages', () => {
+    expect(optionCoolants(pages, { material: 'cbn', band: whole(62.5) })).toEqual({ basis: 'band', coolants: [{ coolant: 'water-inhibitor', pages: ['CBN plated B46'] }] });
+    expect(optionCoolants(pages, { material: 'diamond', band: whole(15.625) })).toEqual({
+      basis: 'band',
+      coolants: [
+        { coolant: 'water', pages: ['Diamond resin 15 µm'] },
+        { coolant: 'water-inhibitor', pages: ['Diamond resin 12 µm'] },
+      ],
+    });
+  });
+
+  it('falls back to every page of the material when none is in the band; none without a page', () => {
+    expect(optionCoolants(pages, { material: 'cbn', band: whole(15.625) })).toEqual({ basis: 'material', coolants: [{ coolant: 'water-inhibitor', pages: ['CBN plated B46'] }] });
+    expect(optionCoolants(pages, { material: 'silicon-carbide', band: whole(62.5) })).toEqual({ basis: 'none', coolants: [] });
+  });
+
+  it('a size on a band\'s edge belongs to the band it is the coarse edge of, as gritBand says', () => {
+    const edge = [{ name: 'edge', material: 'cbn', gritUm: 62.5, coolant: 'water' as const }];
+    expect(optionCoolants(edge, { material: 'cbn', band: whole(62.5) }).basis).toBe('band');
+    expect(optionCoolants(edge, { material: 'cbn', band: whole(125) }).basis).toBe('material');
   });
 });

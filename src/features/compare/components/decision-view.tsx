@@ -3,6 +3,8 @@ import { Link, useSearchParams } from 'react-router-dom';
 import type { CompareRow } from '@shared/compare-view';
 import type { WordedShift, WithinEdgeSpread } from '@shared/compare-difference';
 import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
+import type { Coolant } from '@shared/vocabulary';
+import { optionCoolants, progressionCoolant, type OptionCoolants } from '@shared/workshop';
 import { NOTATIONS, bandGrade, notationOf } from '../lib/grit-notation';
 import { paths } from '@/config/paths';
 import { Button } from '@/components/ui/button';
@@ -11,6 +13,9 @@ import { ErrorState, Loading } from '@/components/ui/states';
 import { formatGritBand, formatNumber } from '@/lib/format';
 import { useCompare } from '../api/get-compare';
 import { useCompareDifference } from '../api/get-compare-difference';
+import { useAbrasives } from '@/features/abrasives/api/get-abrasives';
+import { CoolantCaution, coolantWord } from '@/features/workshop/components/coolant-caution';
+import type { AbrasiveSummary } from '@/types/api';
 
 /** How much a cell's evidence is worth, in words. */
 function evidenceWords(row: CompareRow): string | null {
@@ -18,6 +23,21 @@ function evidenceWords(row: CompareRow): string | null {
   if (row.n < 3) return `only ${row.n} results`;
   if (row.testers === 1) return 'every result from one tester';
   return null;
+}
+
+/** An option's coolants from its abrasive pages (shared/workshop.ts `optionCoolants`). */
+function coolantsOf(row: CompareRow, pages: AbrasiveSummary[]): OptionCoolants {
+  return optionCoolants(
+    pages.map((p) => ({ name: p.name, material: p.material, gritUm: p.gritUm, coolant: p.coolant as Coolant })),
+    row,
+  );
+}
+
+/** An option's coolants in words: one, or each with the pages that run on it. */
+function coolantText(c: OptionCoolants): string {
+  if (c.basis === 'none') return 'no abrasive page of this material yet';
+  const words = c.coolants.map((k) => (c.coolants.length === 1 ? coolantWord(k.coolant) : `${coolantWord(k.coolant)} (${k.pages.join(', ')})`)).join(', or ');
+  return c.basis === 'material' ? `${words}, as this material’s pages say (none of them in this band)` : words;
 }
 
 /**
@@ -42,6 +62,7 @@ export function DecisionView({ steel, steelName, methods }: { steel: string; ste
     setParams(next, { replace: true });
   };
   const rows = view.data?.rows ?? [];
+  const abrasives = useAbrasives().data?.items;
   const method = view.data?.method;
   const choose = (cell: string) => {
     if (a === cell) set({ a: b, b: undefined });
@@ -53,7 +74,7 @@ export function DecisionView({ steel, steelName, methods }: { steel: string; ste
   return (
     <div className="flex flex-col gap-6">
       <form className="flex flex-wrap items-end gap-4 rounded-md border border-rule bg-panel p-4" onSubmit={(e) => e.preventDefault()} aria-label="What to decide about">
-        <Field id="decide-method" label="Method" className="min-w-0 w-full sm:w-72">
+        <Field id="decide-method" label="Method" className="min-w-0 w-full sm:w-96">
           <Select id="decide-method" value={method?.slug ?? get('method') ?? ''} onChange={(e) => set({ method: e.target.value, a: undefined, b: undefined })}>
             <PageOptions pages={methods} />
           </Select>
@@ -114,6 +135,8 @@ export function DecisionView({ steel, steelName, methods }: { steel: string; ste
                       </dd>
                       <dt className="text-muted">Retention</dt>
                       <dd>{row.retentionCuts ? `median ${formatNumber(row.retentionCuts.median, 0)} cuts (${row.retentionCuts.n} result${row.retentionCuts.n === 1 ? '' : 's'})` : 'not reported'}</dd>
+                      <dt className="text-muted">Coolant</dt>
+                      <dd>{abrasives ? coolantText(coolantsOf(row, abrasives)) : '…'}</dd>
                       <dt className="text-muted">Evidence</dt>
                       <dd>
                         {row.n} result{row.n === 1 ? '' : 's'} from {row.testers} tester{row.testers === 1 ? '' : 's'}
@@ -125,7 +148,7 @@ export function DecisionView({ steel, steelName, methods }: { steel: string; ste
               })}
             </ul>
           </section>
-          {a && b ? <DifferencePanel filters={{ ...filters, method: method?.slug }} a={a} b={b} onClear={() => set({ a: undefined, b: undefined })} /> : a ? <p role="status">A is chosen; choose a second option as B.</p> : null}
+          {a && b ? <DifferencePanel filters={{ ...filters, method: method?.slug }} a={a} b={b} abrasives={abrasives} onClear={() => set({ a: undefined, b: undefined })} /> : a ? <p role="status">A is chosen; choose a second option as B.</p> : null}
           <p className="text-sm">
             <Link to={paths.compare.getHref({ steel, method: method?.slug })}>See {steelName} in the full comparison</Link>
           </p>
@@ -165,7 +188,38 @@ function ShiftDrawing({ shift, within, title }: { shift: WordedShift; within: Wi
   );
 }
 
-function DifferencePanel({ filters, a, b, onClear }: { filters: Record<string, string | undefined>; a: string; b: string; onClear: () => void }) {
+/**
+ * The trough between the two options chosen, coarse to fine (the coarser band first; as chosen
+ * within one band): where it must change, by `progressionCoolant`, when each option runs on one
+ * coolant; otherwise which of their pages run on what.
+ */
+function TroughBetween({ a, b, pages }: { a: CompareRow; b: CompareRow; pages: AbrasiveSummary[] }) {
+  const [first, second] = b.band.hiUm > a.band.hiUm ? [b, a] : [a, b];
+  const name = (r: CompareRow) => `${r.materialLabel}, ${formatGritBand(r.band)}`;
+  const [c1, c2] = [coolantsOf(first, pages), coolantsOf(second, pages)];
+  let text: string;
+  if (c1.coolants.length === 1 && c2.coolants.length === 1) {
+    const step = (r: CompareRow, c: OptionCoolants) => ({ label: name(r), coolant: c.coolants[0].coolant, micrometres: null });
+    const { changes } = progressionCoolant([step(first, c1)], step(second, c2));
+    text = changes.length
+      ? `Going from ${name(first)} to ${name(second)}, the trough must change between them: from ${coolantWord(changes[0].from)} to ${coolantWord(changes[0].to)}.`
+      : `Both run on ${coolantWord(c1.coolants[0].coolant)}: no change of the trough between ${name(first)} and ${name(second)}.`;
+  } else {
+    text = `It depends on which wheels or stones you use: ${name(first)} runs on ${coolantText(c1)}; ${name(second)} on ${coolantText(c2)}. The trough must change wherever the two you use differ.`;
+  }
+  return (
+    <div className="rounded-md border border-rule p-3" aria-label="Coolant between the two">
+      <p className="font-medium">Coolant in the trough</p>
+      <p>{text}</p>
+      {c1.basis === 'material' || c2.basis === 'material' ? (
+        <p className="mt-1 text-sm text-muted">Where no page of a material lies in the band, its coolant is taken from the material’s other pages.</p>
+      ) : null}
+      <CoolantCaution />
+    </div>
+  );
+}
+
+function DifferencePanel({ filters, a, b, abrasives, onClear }: { filters: Record<string, string | undefined>; a: string; b: string; abrasives: AbrasiveSummary[] | undefined; onClear: () => void }) {
   const query = useCompareDifference({ ...filters, a, b }, true);
   const names = useMemo(() => {
     const d = query.data;
@@ -206,6 +260,7 @@ function DifferencePanel({ filters, a, b, onClear }: { filters: Record<string, s
           <p className="text-sm text-muted">
             The shift is the Hodges–Lehmann estimate (the median of every difference between a result of B and a result of A); its interval comes from the exact distribution of the Mann–Whitney statistic and assumes only that results are independent (Hollander, Wolfe &amp; Chicken, Nonparametric Statistical Methods, 3rd ed., §4.3).
           </p>
+          {query.data.a && query.data.b && abrasives ? <TroughBetween a={query.data.a} b={query.data.b} pages={abrasives} /> : null}
         </>
       )}
     </section>

@@ -1,11 +1,12 @@
 import { useFieldArray, useWatch, type Control, type FieldErrors, type UseFormRegister } from 'react-hook-form';
 import { PROGRESSION_MAX } from '@shared/progression';
 import { parseGrit } from '@shared/grit';
-import { COOLANTS, type Coolant } from '@shared/vocabulary';
+import type { Coolant } from '@shared/vocabulary';
 import { progressionCoolant, type CoolantChange, type CoolantStep } from '@shared/workshop';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select, controlA11y, PageOptions } from '@/components/ui/field';
 import type { AbrasiveSummary } from '@/types/api';
+import { CoolantCaution, coolantWord } from '@/features/workshop/components/coolant-caution';
 import type { ResultInput } from '@shared/schemas/result';
 import { initialBoxes, type ProgressionFormStep, type ResultFormValues } from './result-form-values';
 
@@ -90,7 +91,6 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
   );
 }
 
-const coolantWord = (c: Coolant) => (COOLANTS[c] ?? c).toLowerCase();
 
 /** A step's size for the coolant plan: its own grit when it parses, else its abrasive's. */
 function sizeOf(gritGrade: string | undefined, abrasive: AbrasiveSummary): number | null {
@@ -143,10 +143,7 @@ function ProgressionCoolant({ control, abrasives, onReorder }: { control: Contro
           </Button>
         </div>
       ) : null}
-      <p className="mt-2 text-muted">
-        Empty and rinse the trough between coolants. Read the safety data sheet of any additive, follow the wheel and machine makers’ instructions
-        on which coolant each wheel may run in, and your local regulations on disposing of used coolant.
-      </p>
+      <CoolantCaution className="mt-2 text-muted" />
     </div>
   );
 }

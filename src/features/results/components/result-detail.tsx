@@ -4,6 +4,7 @@ import { Link } from 'react-router-dom';
 import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
 import { ABRASIVE_MATERIALS, BONDS, STATUS_LABELS } from '@shared/vocabulary';
 import { paths } from '@/config/paths';
+import { formatLength, useLengthUnit } from '@/lib/lengths';
 import { abrasivesQueryOptions } from '@/features/abrasives/api/get-abrasives';
 import { Badge } from '@/components/ui/badge';
 import { ServerHtml } from '@/components/ui/server-html';
@@ -53,6 +54,7 @@ export function ResultDetail({
 }) {
   const H = headingLevel === 2 ? 'h2' : 'h3';
   const angle = result.edgeAngle;
+  const [unit] = useLengthUnit();
   // A progression's steps carry their abrasives' slugs; their names come from the (long-kept) list.
   const abrasives = useQuery({ ...abrasivesQueryOptions(), enabled: !!result.progression?.length });
   const abrasiveName = (slug: string) => abrasives.data?.items.find((a) => a.slug === slug)?.name ?? slug;
@@ -138,9 +140,8 @@ export function ResultDetail({
             {formatDegrees(result.derived.perSideDeg)} per side, {formatDegrees(result.derived.inclusiveDeg)} inclusive
             {'setup' in angle ? (
               <span className="block text-sm text-muted">
-                from a wheel setup: wheel Ø {formatNumber(angle.setup.wheelDiameterMm)} mm, bar Ø{' '}
-                {formatNumber(angle.setup.barDiameterMm)} mm, gap {formatNumber(angle.setup.gapMm)} mm, projection{' '}
-                {formatNumber(angle.setup.projectionMm)} mm
+                from a wheel setup: wheel Ø {formatLength(angle.setup.wheelDiameterMm, unit)}, bar Ø {formatLength(angle.setup.barDiameterMm, unit)}, gap{' '}
+                {formatLength(angle.setup.gapMm, unit)}, projection {formatLength(angle.setup.projectionMm, unit)}
               </span>
             ) : null}
           </Row>

@@ -14,6 +14,9 @@ import { formatDegrees, formatGrams, formatGritBand, formatMicrometres, formatNu
 import { Button } from '@/components/ui/button';
 import { controlA11y, Field, Input, Select, sentence, PageOptions } from '@/components/ui/field';
 import { describeError, Loading } from '@/components/ui/states';
+import { LengthBox } from '@/components/ui/length-box';
+import { LengthUnitPicker } from '@/components/ui/length-unit-picker';
+import { lengthsIn, useLengthUnit } from '@/lib/lengths';
 import { AngleFromWorkshop } from '@/features/workshop/components/angle-from-workshop';
 import type { AbrasiveSummary, MethodSummary, Result, ResultEdit, SteelSummary } from '@/types/api';
 import type { ResultStatus } from '@shared/schemas/result';
@@ -154,6 +157,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
 
   const values = useWatch({ control });
   const angleMode = values.angleMode ?? 'perSide';
+  const [unit] = useLengthUnit();
   const abrasive = abrasives.find((a) => a.slug === values.abrasive);
   // Only methods that define a retention medium count cuts; the others measure sharpness.
   const retentionMethods = methods.filter(isRetentionMethod);
@@ -260,23 +264,27 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
   const notesError = err(errors.notes as FieldError | undefined);
   const fieldErrorCount = flattenErrors(errors).length;
 
-  const setupField = (
-    name: 'wheelDiameterMm' | 'barDiameterMm' | 'gapMm' | 'projectionMm',
-    text: string,
-    hint: string,
-  ) => {
-    const id = `result-setup-${name}`;
+  // The setup's boxes hold mm and show the one mm/inch choice; a limit the schema states
+  // ("must be at most 2000") is a length in mm, written in that unit too.
+  const setupField = (name: 'wheelDiameterMm' | 'barDiameterMm' | 'gapMm' | 'projectionMm', text: string, hint: string) => {
     const e = err(setupErrors?.[name]);
     return (
-      <Field id={id} label={text} hint={hint} error={e}>
-        <Input
-          {...controlA11y(id, { hint, error: e })}
-          type="number"
-          step="any"
-          inputMode="decimal"
-          {...register(`edgeAngle.setup.${name}`, { valueAsNumber: true })}
-        />
-      </Field>
+      <Controller
+        control={control}
+        name={`edgeAngle.setup.${name}`}
+        render={({ field }) => (
+          <LengthBox
+            id={`result-setup-${name}`}
+            label={text}
+            hint={hint}
+            error={e && lengthsIn(e.replace(/(\d+(?:\.\d+)?)$/, '$1 mm'), unit)}
+            valueMm={field.value}
+            onChangeMm={field.onChange}
+            onBlur={field.onBlur}
+            inputRef={field.ref}
+          />
+        )}
+      />
     );
   };
 
@@ -437,10 +445,13 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
             </Field>
           ) : (
             <>
-              {setupField('wheelDiameterMm', 'Wheel diameter (mm)', 'Measure the wheel today: a vitrified wheel shrinks as it wears.')}
-              {setupField('barDiameterMm', 'Support bar diameter (mm)', 'The round bar the blade’s jig rests on.')}
-              {setupField('gapMm', 'Gap, bar to rim (mm)', 'Shortest distance from the bar to the wheel’s surface.')}
-              {setupField('projectionMm', 'Projection (mm)', 'From the bar’s axis to the edge, along the blade.')}
+              <div className="sm:col-span-2">
+                <LengthUnitPicker />
+              </div>
+              {setupField('wheelDiameterMm', 'Wheel diameter', 'Measure the wheel today: a vitrified wheel shrinks as it wears.')}
+              {setupField('barDiameterMm', 'Support bar diameter', 'The round bar the blade’s jig rests on.')}
+              {setupField('gapMm', 'Gap, bar to rim', 'Shortest distance from the bar to the wheel’s surface.')}
+              {setupField('projectionMm', 'Projection', 'From the bar’s axis to the edge, along the blade.')}
               <div className="sm:col-span-2">
                 {setupGroupError ? (
                   <p id="result-setup-error" className="text-sm font-medium text-danger">
@@ -448,7 +459,7 @@ export function ResultForm({ steels, abrasives, methods, onCreated, editing, onE
                   </p>
                 ) : anglePreview ? (
                   <Preview id="result-setup-preview" tone={'error' in anglePreview ? 'caution' : 'muted'}>
-                    {'text' in anglePreview ? `Angle from this setup: ${anglePreview.text}` : sentence(anglePreview.error)}
+                    {'text' in anglePreview ? `Angle from this setup: ${anglePreview.text}` : sentence(lengthsIn(anglePreview.error, unit))}
                   </Preview>
                 ) : (
                   <Preview id="result-setup-preview">Fill in all four to see the angle.</Preview>

@@ -112,6 +112,7 @@ function SideDrawing({ setup, perSideDeg, lengthUnit }: { setup: SideSetup; perS
   const maxY = Math.max(tail[1], S[1] + r) + pad;
   const unit = Math.max(maxX - minX, maxY - minY) / 300; // strokes and text in proportion to the drawing
   const arcR = 0.3 * L;
+  const labelAt = a + (18 * Math.PI) / 180; // from the face, past the blade
   return (
     <svg viewBox={`${minX} ${-maxY} ${maxX - minX} ${maxY - minY}`} className="mx-auto h-auto max-h-[26rem] w-full" role="img" aria-labelledby={titleId}>
       <title id={titleId}>
@@ -130,7 +131,17 @@ function SideDrawing({ setup, perSideDeg, lengthUnit }: { setup: SideSetup; perS
         className="fill-none stroke-caution"
         strokeWidth={unit * 1.5}
       />
-      <text x={arcR * Math.sin(a / 2) + unit * 4} y={-arcR * Math.cos(a / 2) - unit * 6} className="fill-caution font-semibold" fontSize={unit * 11}>
+      {/* The label sits just past the arc's end, on the open side of the blade (away from the face), so
+          neither the blade nor the arc crosses it whatever the angle; a halo keeps it readable. */}
+      <text
+        x={arcR * Math.sin(labelAt)}
+        y={-arcR * Math.cos(labelAt)}
+        dominantBaseline="middle"
+        className="fill-caution stroke-panel font-semibold"
+        strokeWidth={unit * 3}
+        paintOrder="stroke"
+        fontSize={unit * 11}
+      >
         {formatDegrees(perSideDeg)}
       </text>
       <circle cx={0} cy={0} r={unit * 2.5} className="fill-caution" />

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { CoolantChange, SetupSetting, SharpeningCost } from '@shared/workshop';
+import type { CoolantChange, kitSharpeningCost, SetupSetting, SharpeningCost } from '@shared/workshop';
 import { apiGet } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 
@@ -43,6 +43,7 @@ export interface Workshop {
   wheels: WorkshopWheelView[];
   kit: {
     totals: { currency: string; wheelsTotal: number; wheelCount: number; machinesTotal: number }[];
+    perSharpening: ReturnType<typeof kitSharpeningCost>;
     coolant: { order: number[]; changes: CoolantChange[]; suggestedOrder: number[]; suggestedChanges: CoolantChange[] };
   };
 }

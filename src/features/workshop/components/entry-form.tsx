@@ -12,6 +12,8 @@ export interface EntryField {
   checkbox?: boolean;
   type?: 'text' | 'date';
   inputMode?: 'decimal' | 'numeric';
+  /** Spans the form's full width: a list whose choices are sentences, cut short in one column. */
+  wide?: boolean;
 }
 
 type Checked = { success: boolean; data?: unknown; error?: { issues: { path: PropertyKey[]; message: string }[] } };
@@ -74,7 +76,7 @@ export function EntryForm<T>({
             <input type="checkbox" checked={v[f.key] === 'true'} onChange={(e) => set(f.key, e.target.checked ? 'true' : '')} /> {f.label}
           </label>
         ) : (
-          <Field key={f.key} id={`${id}-${f.key}`} label={f.label} error={errors[f.key]}>
+          <Field key={f.key} id={`${id}-${f.key}`} label={f.label} error={errors[f.key]} className={f.wide ? 'col-span-full' : ''}>
             {f.options ? (
               <Select id={`${id}-${f.key}`} value={v[f.key]} onChange={(e) => set(f.key, e.target.value)}>
                 {Object.entries(f.options).map(([value, label]) => (

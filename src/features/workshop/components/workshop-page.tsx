@@ -12,6 +12,7 @@ import { buttonClasses } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { describeError, Empty, ErrorState, Loading } from '@/components/ui/states';
 import { LengthUnitPicker } from '@/components/ui/length-unit-picker';
+import { CoolantCaution, coolantWord } from './coolant-caution';
 import { SafetyCautions } from '@/features/tools/components/safety-cautions';
 import { useAbrasives } from '@/features/abrasives/api/get-abrasives';
 import { useWorkshop, type Workshop, type WorkshopWheelView } from '../api/get-workshop';
@@ -100,13 +101,13 @@ function costText(wheel: WorkshopWheelView): string {
   }
   const head = `${money(cost.costPerSharpening, wheel.currency, 3)} over about ${formatNumber(cost.expectedSharpenings, 0)} sharpenings`;
   if (cost.basis === 'measured-wear') {
-    const n = wheel.measurements.length;
+    const n = cost.measurements;
     return `${head}: the diameter lost per sharpening on this wheel alone (${cost.restsOn} sharpenings across ${n} measurements) against its usable range${
-      n < FEW || cost.restsOn < FEW ? `. Only ${n < FEW ? `${n} measurements` : `${cost.restsOn} sharpenings`}: a rough estimate that will move as you log more` : ''
+      cost.rough ? `. Only ${n < FEW ? `${n} measurements` : `${cost.restsOn} sharpenings`}: a rough estimate that will move as you log more` : ''
     }.`;
   }
   return `${head}: the median life of ${cost.restsOn} retired wheel${cost.restsOn === 1 ? '' : 's'} of this abrasive that members reported${
-    cost.restsOn < FEW ? `. Only ${cost.restsOn}: a rough estimate` : ''
+    cost.rough ? `. Only ${cost.restsOn}: a rough estimate` : ''
   }.`;
 }
 
@@ -257,6 +258,45 @@ function WheelCard({ wheel, workshop, unit }: { wheel: WorkshopWheelView; worksh
   );
 }
 
+/**
+ * One sharpening on the whole kit (shared/workshop.ts `kitSharpeningCost`): the sum of the active
+ * wheels' figures, the rule it rests on, the wheels left out and why, and plainly when it is rough.
+ */
+function KitPerSharpening({ workshop, name }: { workshop: Workshop; name: (id: number) => string }) {
+  const { byCurrency, missing } = workshop.kit.perSharpening;
+  const active = workshop.wheels.filter((w) => !w.retiredOn);
+  if (active.length === 0) return null;
+  const why = (m: (typeof missing)[number]) => {
+    if (m.why === 'no-price') return 'no price paid';
+    const wheel = active.find((w) => w.id === m.wheelId);
+    if (wheel?.wears) return wheel.minDiameterMm === null ? 'no minimum diameter' : 'not two measurements with sharpenings between them yet';
+    return 'no member has reported the life of a wheel of its abrasive yet';
+  };
+  return (
+    <div className="mt-3 border-t border-rule pt-3">
+      <h4 className="font-semibold">Per sharpening, the whole kit</h4>
+      {byCurrency.length === 0 ? <p className="text-muted">No wheel has a figure yet: see each wheel’s card for what it needs.</p> : null}
+      {byCurrency.map((c) => (
+        <p key={c.currency}>
+          {missing.length ? 'At least ' : ''}
+          <strong>{money(c.costPerSharpening, c.currency, 2)}</strong> a sharpening, from {c.wheelIds.length} of {active.length} wheel
+          {active.length === 1 ? '' : 's'} ({c.wheelIds.map((id) => `${name(id)} ${money(active.find((w) => w.id === id)!.cost!.costPerSharpening, c.currency, 3)}`).join(' + ')})
+          {c.rough ? '. A rough estimate: it rests on few measurements or reports, as the wheels’ cards say' : ''}.
+        </p>
+      ))}
+      {missing.length ? (
+        <p className="mt-1">
+          Not counted: {missing.map((m) => `${name(m.wheelId)} (${why(m)})`).join('; ')}.
+        </p>
+      ) : null}
+      <p className="mt-1 text-sm text-muted">
+        The rule: one sharpening takes the blade across every active wheel once, coarse to fine, so the kit’s figure is the sum of each wheel’s. Use
+        fewer wheels and it costs less.
+      </p>
+    </div>
+  );
+}
+
 /** The kit: what it cost against the machine, and where the coolant must change. */
 function Kit({ workshop }: { workshop: Workshop }) {
   const name = (id: number) => workshop.wheels.find((w) => w.id === id)?.name ?? `wheel ${id}`;
@@ -264,7 +304,7 @@ function Kit({ workshop }: { workshop: Workshop }) {
   const changeText = (changes: typeof coolant.changes, order: number[]) =>
     changes.length === 0
       ? 'no change of coolant'
-      : changes.map((c) => `after ${name(order[c.afterStep])}, change ${coolantName(c.from).toLowerCase()} for ${coolantName(c.to).toLowerCase()}`).join('; ');
+      : changes.map((c) => `after ${name(order[c.afterStep])}, change ${coolantWord(c.from)} for ${coolantWord(c.to)}`).join('; ');
   return (
     <div className="grid gap-4 md:grid-cols-2">
       <div className="min-w-0 rounded-md border border-rule bg-panel p-4">
@@ -276,7 +316,8 @@ function Kit({ workshop }: { workshop: Workshop }) {
             {t.machinesTotal > 0 ? ` against ${money(t.machinesTotal, t.currency, 0)} for the machine${workshop.grinders.length > 1 ? 's' : ''} (${formatNumber(t.wheelsTotal / t.machinesTotal, 2)} times)` : ''}
           </p>
         ))}
-        <p className="mt-2 text-sm text-muted">Totals are per currency, never converted. Costs per sharpening are on each wheel, with what they rest on.</p>
+        <p className="mt-2 text-sm text-muted">Totals are per currency, never converted. Each wheel’s own figure per sharpening, with what it rests on, is on its card.</p>
+        <KitPerSharpening workshop={workshop} name={name} />
       </div>
       <div className="min-w-0 rounded-md border border-rule bg-panel p-4">
         <h3 className="text-lg font-semibold">Coolant in the trough</h3>
@@ -288,10 +329,7 @@ function Kit({ workshop }: { workshop: Workshop }) {
             Fewer changes, still coarse to fine: {coolant.suggestedOrder.map(name).join(' → ')} ({changeText(coolant.suggestedChanges, coolant.suggestedOrder)}).
           </p>
         ) : null}
-        <p className="mt-2 text-sm text-muted">
-          Empty and rinse the trough between coolants. Read the safety data sheet of any inhibitor and follow the wheel maker’s instructions on
-          which coolant it may run in.
-        </p>
+        <CoolantCaution />
       </div>
     </div>
   );
@@ -365,7 +403,7 @@ export default function WorkshopPage() {
                       { key: 'name', label: 'Name' },
                       { key: 'spindleRpm', label: 'Spindle speed (rpm)', inputMode: 'decimal' },
                       { key: 'barDiameterMm', label: `Support bar diameter (${unit})`, inputMode: 'decimal' },
-                      { key: 'barMount', label: 'Where the bar mounts', options: BAR_MOUNTS },
+                      { key: 'barMount', label: 'Where the bar mounts', options: BAR_MOUNTS, wide: true },
                       ...PRICE_FIELDS,
                     ]}
                     initial={{ barMount: 'with-rotation' }}
@@ -379,12 +417,12 @@ export default function WorkshopPage() {
                       send={addWheel}
                       fields={[
                         { key: 'name', label: 'Name' },
-                        { key: 'abrasive', label: 'Abrasive page', options: { '': 'Choose…', ...wheelAbrasives } },
+                        { key: 'abrasive', label: 'Abrasive page', options: { '': 'Choose…', ...wheelAbrasives }, wide: true },
                         { key: 'grinderId', label: 'On grinder', options: grinderOptions },
                         { key: 'originalDiameterMm', label: `Diameter when new (${unit})`, inputMode: 'decimal' },
                         { key: 'minDiameterMm', label: `Minimum usable diameter (${unit}, from the maker)`, inputMode: 'decimal' },
                         { key: 'ratedSpeedMps', label: 'Rated maximum speed (m/s, on the wheel)', inputMode: 'decimal' },
-                        { key: 'coolant', label: 'Coolant', options: { '': 'As on the abrasive page', ...COOLANTS } },
+                        { key: 'coolant', label: 'Coolant', options: { '': 'As on the abrasive page', ...COOLANTS }, wide: true },
                         { key: 'acquiredOn', label: 'Bought on', type: 'date' },
                         ...PRICE_FIELDS,
                       ]}
