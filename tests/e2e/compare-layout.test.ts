@@ -11,6 +11,7 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startE2eApp, type E2eApp } from '../setup/e2e-app';
 import { overlaps, sidewaysOverflow } from '../setup/layout';
+import { limits } from '../../shared/validations';
 
 let app: E2eApp;
 let base = '';
@@ -242,6 +243,8 @@ describe('search’s All view', () => {
       const [, name, count] = /^(.+) \((\d+)\)$/.exec(heading)!;
       expect(Number(count)).toBe(announced.get(name));
       const shown = await section.getByRole('listitem').count();
+      // each kind shows its own best few, even when none of them is among the best overall
+      expect(shown).toBe(Math.min(Number(count), limits.searchSectionBest));
       if (shown < Number(count)) {
         const all = section.getByRole('link', { name: `Show all ${count} ${name.toLowerCase()}` });
         expect(await all.getAttribute('href')).toMatch(/type=/);
