@@ -10,5 +10,7 @@ export const limits = {
   richTextMaxNodes: 5_000,
   richTextMaxChars: 50_000,
   searchQueryMax: 200,
+  /** Hits of each kind a search with no kind asked for brings beside the best overall ("All" shows them). */
+  searchSectionBest: 5,
   pageSize: 25,
 } as const;

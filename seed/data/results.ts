@@ -404,24 +404,41 @@ export function generateResults(): SeedResult[] {
 }
 
 /**
- * Gives about four results in ten the steps that led to their final abrasive: one to three
- * coarser abrasives, coarse to fine, the last often at a slightly lower angle. Drawn from a
- * generator of its own, so the results themselves stay as they were before progressions.
+ * The usual routes to a finish in the invented data, coarse to fine, by abrasive: each result
+ * with a progression takes the steps of one of them that are well coarser than its final
+ * abrasive, so results on one steel share a few progressions, as people who sharpen alike do.
+ * The weights make the first the most common (an invented share, not a survey).
+ */
+const ROUTES: { steps: string[]; weight: number }[] = [
+  // a coarse vitrified wheel to set the bevel, a CBN wheel, a fine diamond wheel (then, often, a strop with compound)
+  { steps: ['alox-vitrified-wheel-250-coarse', 'cbn-resin-wheel-250-b46', 'diamond-resin-wheel-250-15um'], weight: 5 },
+  // coarse and fine CBN, then the dressed vitrified wheel
+  { steps: ['cbn-electroplated-wheel-250-b126', 'cbn-resin-wheel-250-b46', 'alox-vitrified-wheel-250-fine-dressed'], weight: 3 },
+  // a belt, then bench stones by hand
+  { steps: ['ceramic-alumina-belt-p120', 'alox-bench-stone-jis1000', 'alox-bench-stone-jis6000'], weight: 2 },
+  // silicon carbide, then the vitrified wheels fine and finer
+  { steps: ['sic-vitrified-wheel-200-f220', 'alox-vitrified-wheel-250-fine-dressed', 'alox-vitrified-wheel-250-jis4000'], weight: 1 },
+];
+
+/**
+ * Gives about six results in ten the steps that led to their final abrasive: one of the usual
+ * routes, keeping the steps at least 1.5 × coarser than the final abrasive, the last sometimes at
+ * a slightly lower angle. Drawn from a generator of its own, so the results themselves stay as
+ * they were before progressions.
  */
 function addProgressions(results: SeedResult[]): void {
   const rng = new Rng(PROGRESSION_SEED);
-  const sized = abrasives
-    .filter((a) => a.form !== 'compound' && !a.slug.startsWith('leather-strop'))
-    .map((a) => ({ slug: a.slug, um: particleUm(a.grit.standard, a.grit.grade) }));
+  const umOf = new Map(abrasives.map((a) => [a.slug, particleUm(a.grit.standard, a.grit.grade)]));
+  for (const slug of ROUTES.flatMap((route) => route.steps)) if (!umOf.has(slug)) throw new Error(`results: a route names an unknown abrasive ${slug}`);
   for (const r of results) {
-    if (!rng.chance(0.4)) continue;
+    if (!rng.chance(0.6)) continue;
     const final = abrasives.find((a) => a.slug === r.input.abrasive)!;
     const finalUm = particleUm(r.input.grit?.standard ?? final.grit.standard, r.input.grit?.grade ?? final.grit.grade);
-    const coarser = sized.filter((a) => a.um > 1.5 * finalUm).sort((a, b) => b.um - a.um);
-    if (!coarser.length) continue;
-    const count = Math.min(coarser.length, rng.int(1, 3));
-    const chosen = pickDistinct(rng, coarser.map((a) => ({ item: a, weight: 1 })), count).sort((a, b) => b.um - a.um);
-    r.input.progression = chosen.map((a, i) => (i === chosen.length - 1 && rng.chance(0.3) ? { abrasive: a.slug, perSideDeg: 15 } : { abrasive: a.slug }));
+    const routes = ROUTES.map((route) => ({ item: route.steps.filter((slug) => umOf.get(slug)! > 1.5 * finalUm), weight: route.weight })).filter((route) => route.item.length > 0);
+    if (!routes.length) continue;
+    const chosen = rng.weighted(routes);
+    const lowered = rng.chance(0.3);
+    r.input.progression = chosen.map((slug, i) => (i === chosen.length - 1 && lowered ? { abrasive: slug, perSideDeg: 15 } : { abrasive: slug }));
   }
 }
 

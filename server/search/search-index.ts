@@ -1,4 +1,5 @@
 import MiniSearch, { type Query, type SearchResult } from 'minisearch';
+import { limits } from '@shared/validations';
 
 export type SearchDocType = 'steel' | 'abrasive' | 'method' | 'result' | 'cell';
 
@@ -104,6 +105,11 @@ type Ranked = { key: string; score: number; terms: string[] };
 type SearchAnswer = { hits: SearchHit[] } & Counts;
 /** Hits shown for a query, unless the caller asks for another number. */
 const HITS_SHOWN = 30;
+/**
+ * With no type asked for, each type's own best few come too, beside the best overall: the "All"
+ * view shows every type that matched with its best hits, not only those among the best 30.
+ */
+const SECTION_BEST = limits.searchSectionBest;
 
 /**
  * The one in-memory search index over steels, abrasives, methods, comparison cells and approved
@@ -228,9 +234,22 @@ export class SearchIndex {
     const pages = this.pages.search({ combineWith: 'AND', queries }, { boost: BOOST });
     for (const r of pages) countHit(counts, this.docs.get(r.id as string)!);
     const owned = this.searchOwned(queries, type, limit, counts);
-    const ranked = [...pages.filter((r) => !type || this.docs.get(r.id as string)!.type === type).slice(0, limit).map((r) => ({ key: r.id as string, score: r.score, terms: r.terms })), ...owned]
-      .sort((a, b) => b.score - a.score)
-      .slice(0, limit);
+    const fromPages = (r: SearchResult): Ranked => ({ key: r.id as string, score: r.score, terms: r.terms });
+    const overall = [...pages.filter((r) => !type || this.docs.get(r.id as string)!.type === type).slice(0, limit).map(fromPages), ...owned.top].sort((a, b) => b.score - a.score).slice(0, limit);
+    // Each type's best few (pages come best first), beside the best overall, each hit once.
+    const shown = new Set(overall.map((r) => r.key));
+    const perPageType = new Map<SearchDocType, number>();
+    const sections = type
+      ? []
+      : [
+          ...pages.filter((r) => {
+            const t = this.docs.get(r.id as string)!.type;
+            perPageType.set(t, (perPageType.get(t) ?? 0) + 1);
+            return perPageType.get(t)! <= SECTION_BEST;
+          }).map(fromPages),
+          ...owned.best,
+        ].filter((r) => !shown.has(r.key) && shown.add(r.key));
+    const ranked = [...overall, ...sections].sort((a, b) => b.score - a.score);
     const hits = ranked.map((r) => {
       const doc = this.docs.get(r.key)!;
       const piece = doc.summary !== undefined ? { text: doc.summary, highlights: matchedSpans(doc.summary, r.terms) } : snippet(doc, r.terms);
@@ -244,12 +263,13 @@ export class SearchIndex {
 
   /**
    * Results and cells that match every query term through their own words or an owner's, counted
-   * into `counts`; returns the best `limit` of them (of `type`, if given). The term that reaches
+   * into `counts`; returns the best `limit` of them (of `type`, if given) and, with no type, each
+   * type's best `SECTION_BEST` (`best`, which may repeat some of `top`). The term that reaches
    * fewest documents picks the candidates; each candidate is then scored on every term from its
    * owners' numbers, in plain loops over typed arrays, so a common term costs a few array reads
    * per candidate.
    */
-  private searchOwned(queries: Query[], type: SearchDocType | undefined, limit: number, counts: Counts): Ranked[] {
+  private searchOwned(queries: Query[], type: SearchDocType | undefined, limit: number, counts: Counts): { top: Ranked[]; best: Ranked[] } {
     const table = this.table;
     const perTerm = queries.map((q) => {
       const own = new Map<number, SearchResult>();
@@ -268,7 +288,7 @@ export class SearchIndex {
     });
     type Term = (typeof perTerm)[number];
     const driver = perTerm.reduce((a, b) => (b.size < a.size ? b : a), perTerm[0]);
-    if (driver.size === 0) return [];
+    if (driver.size === 0) return { top: [], best: [] };
     const candidates = table.candidates(driver.own.keys(), driver.owners.size ? driver.ownerScore : null);
     const owned = table.owned;
     const typeOf = table.typeCode;
@@ -276,7 +296,8 @@ export class SearchIndex {
     const wanted = type ? TYPE_CODES.indexOf(type) : -1;
     const typeCounts = new Int32Array(TYPE_CODES.length);
     const groupCounts = new Int32Array(table.groupNames.length);
-    const top: { slot: number; score: number }[] = [];
+    const top: Kept[] = [];
+    const bestOfType = type ? null : TYPE_CODES.map((): Kept[] => []);
     let floor = -Infinity;
     for (let c = 0; c < candidates.length; c++) {
       const slot = candidates[c];
@@ -303,12 +324,10 @@ export class SearchIndex {
       if (!matched) continue;
       typeCounts[typeOf[slot]] += 1;
       if (groupOf[slot] >= 0) groupCounts[groupOf[slot]] += 1;
+      if (bestOfType) keepBest(bestOfType[typeOf[slot]], SECTION_BEST, slot, score);
       // Keep the best `limit` of the type asked for, best first.
       if (score <= floor || (wanted >= 0 && typeOf[slot] !== wanted)) continue;
-      const at = top.findIndex((x) => score > x.score);
-      top.splice(at === -1 ? top.length : at, 0, { slot, score });
-      if (top.length > limit) top.pop();
-      if (top.length === limit) floor = top[limit - 1].score;
+      if (keepBest(top, limit, slot, score) && top.length === limit) floor = top[limit - 1].score;
     }
     TYPE_CODES.forEach((t, i) => (counts.facets[t] += typeCounts[i]));
     groupCounts.forEach((n, g) => {
@@ -326,8 +345,20 @@ export class SearchIndex {
       }
       return [...(t.own.get(slot)?.terms ?? []), ...(owner?.terms ?? [])];
     };
-    return top.map(({ slot, score }) => ({ key: table.keyOf(slot), score, terms: perTerm.flatMap((t) => termsOf(t, slot)) }));
+    const rank = ({ slot, score }: Kept): Ranked => ({ key: table.keyOf(slot), score, terms: perTerm.flatMap((t) => termsOf(t, slot)) });
+    return { top: top.map(rank), best: (bestOfType ?? []).flat().map(rank) };
   }
+}
+
+type Kept = { slot: number; score: number };
+
+/** Puts a scored document into `list` (best first, at most `cap` long) if it ranks there; says whether it did. */
+function keepBest(list: Kept[], cap: number, slot: number, score: number): boolean {
+  if (list.length === cap && score <= list[cap - 1].score) return false;
+  const at = list.findIndex((x) => score > x.score);
+  list.splice(at === -1 ? list.length : at, 0, { slot, score });
+  if (list.length > cap) list.pop();
+  return true;
 }
 
 const TYPE_CODES: SearchDocType[] = ['steel', 'abrasive', 'method', 'result', 'cell'];

@@ -11,6 +11,7 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startE2eApp, type E2eApp } from '../setup/e2e-app';
 import { overlaps, sidewaysOverflow } from '../setup/layout';
+import { limits } from '../../shared/validations';
 
 let app: E2eApp;
 let base = '';
@@ -39,7 +40,8 @@ describe.each([
   it('fits its frame, keeps the row named when its results open, and filters with choosers', async () => {
     await page.setViewportSize({ width, height });
     await page.goto(`${base}/compare?method=push-cut-test-v2`);
-    const rows = frame().locator('tbody tr');
+    // the table's own rows (a panel's inner table has rows too)
+    const rows = frame().locator(':scope > table > tbody > tr');
     await rows.first().waitFor();
     expect(await frameOverflow()).toBeLessThanOrEqual(0);
     expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
@@ -59,10 +61,47 @@ describe.each([
     const panel = page.locator('section[aria-labelledby="cell-results-title"]');
     await panel.getByRole('table').waitFor();
     expect(await panel.getByRole('heading').first().innerText()).toContain(identity);
-    const steelCell = (await rows.first().locator('td').first().boundingBox())!;
-    expect(steelCell.x).toBeGreaterThanOrEqual(0);
-    expect(steelCell.x + steelCell.width).toBeLessThanOrEqual(width);
+    // The panel opens under its row: its top below the row's bottom, the row's steel, material
+    // and grit band in the window, the panel inside the table's own next row (one cell across).
+    const firstRow = rows.first();
+    const rowBox = (await firstRow.boundingBox())!;
+    const panelBox = (await panel.boundingBox())!;
+    expect(panelBox.y).toBeGreaterThanOrEqual(rowBox.y + rowBox.height - 0.5);
+    for (const identityCell of await firstRow.locator('td').all().then((tds) => tds.slice(0, 3))) {
+      const b = (await identityCell.boundingBox())!;
+      expect(b.x).toBeGreaterThanOrEqual(0);
+      expect(b.x + b.width).toBeLessThanOrEqual(width);
+      expect(b.y).toBeGreaterThanOrEqual(0);
+      expect(b.y + b.height).toBeLessThanOrEqual(height);
+    }
+    expect(await rows.nth(1).locator('td[colspan] section[aria-labelledby="cell-results-title"]').count()).toBe(1);
+    expect(await frameOverflow()).toBeLessThanOrEqual(0);
     expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    // The focus moved into the panel; Escape closes it and gives the focus back to the row's button.
+    const focusedName = () => page.evaluate(() => document.activeElement?.getAttribute('aria-label') ?? document.activeElement?.id ?? '');
+    expect(await focusedName()).toBe('cell-results-title');
+    await page.keyboard.press('Escape');
+    await page.waitForURL((url) => !url.searchParams.has('cell'));
+    await expect.poll(() => panel.count()).toBe(0);
+    await expect.poll(focusedName).toMatch(/^Results of /);
+    expect(await firstRow.getByRole('button', { name: /^Results of/ }).evaluate((b) => b === document.activeElement)).toBe(true);
+
+    // The pair opens under its second row, and its close button gives the focus back to that row's Pair.
+    await rows.nth(0).getByRole('button', { name: /^Pair / }).click();
+    await rows.nth(2).getByRole('button', { name: /^Pair / }).click();
+    const pairPanel = page.locator('section[aria-labelledby="paired-title"]');
+    await pairPanel.waitFor();
+    const pairRow = (await rows.nth(2).boundingBox())!;
+    expect((await pairPanel.boundingBox())!.y).toBeGreaterThanOrEqual(pairRow.y + pairRow.height - 0.5);
+    expect(pairRow.y).toBeGreaterThanOrEqual(0);
+    expect(await rows.nth(3).locator('td[colspan] section[aria-labelledby="paired-title"]').count()).toBe(1);
+    expect(await focusedName()).toBe('paired-title');
+    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    await page.screenshot({ path: `/tmp/edgeledger-compare-layout-pair-${name}.png` });
+    await pairPanel.getByRole('button', { name: 'Clear the pair' }).click();
+    await page.waitForURL((url) => !url.searchParams.has('b'));
+    await expect.poll(focusedName).toMatch(/^Pair /);
+    expect(await rows.nth(2).getByRole('button', { name: /^Pair / }).evaluate((b) => b === document.activeElement)).toBe(true);
 
     // Filters: no native multiple-choice list, no Ctrl-click; on the phone they fold away first.
     expect(await page.locator('select[multiple]').count()).toBe(0);
@@ -80,6 +119,39 @@ describe.each([
     await expect.poll(async () => (await rows.allInnerTexts()).every((t) => t.includes('AISI D2'))).toBe(true);
     expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
     await page.screenshot({ path: `/tmp/edgeledger-compare-layout-filters-${name}.png` });
+  }, 60_000);
+
+  it('sorts from a visible control where the headers are hidden (the phone’s cards)', async () => {
+    await page.setViewportSize({ width, height });
+    await page.goto(`${base}/compare?method=push-cut-test-v2`);
+    const rows = frame().locator(':scope > table > tbody > tr');
+    await rows.first().waitFor();
+    const sortBy = page.getByRole('combobox', { name: 'Sort by' });
+    // The header row is drawn, or kept one pixel wide for screen readers only (the cards).
+    const headersDrawn = async () => ((await frame().locator(':scope > table > thead').boundingBox())?.width ?? 0) > 1;
+    if (name === 'desktop') {
+      // the headers sort here, and the list is not drawn
+      expect(await headersDrawn()).toBe(true);
+      expect(await sortBy.isVisible()).toBe(false);
+      return;
+    }
+    expect(await headersDrawn()).toBe(false);
+    expect(await sortBy.isVisible()).toBe(true);
+    const medians = () => rows.locator('td[data-label="Median g"]').allInnerTexts().then((t) => t.map((x) => Number(x.replace(/[^\d.]/g, ''))));
+    const before = await medians();
+    expect(before.length).toBeGreaterThan(3);
+    await sortBy.selectOption({ label: 'Median g, low to high' });
+    await page.waitForURL(/sort=median(&|$)/);
+    const ascending = (m: number[]) => m.every((x, i) => i === 0 || m[i - 1] <= x);
+    await expect.poll(async () => ascending(await medians())).toBe(true);
+    const up = await medians();
+    expect(up).not.toEqual(before);
+    await sortBy.selectOption({ label: 'Median g, high to low' });
+    await page.waitForURL(/sort=-median(&|$)/);
+    await expect.poll(async () => (await medians())[0]).toBeGreaterThan(up[0]);
+    const down = await medians();
+    expect(down).toEqual([...down].sort((a, b) => b - a));
+    await page.screenshot({ path: '/tmp/edgeledger-compare-layout-sort-phone.png' });
   }, 60_000);
 
   it('draws the charts with no two labels overlapping', async () => {
@@ -171,6 +243,8 @@ describe('search’s All view', () => {
       const [, name, count] = /^(.+) \((\d+)\)$/.exec(heading)!;
       expect(Number(count)).toBe(announced.get(name));
       const shown = await section.getByRole('listitem').count();
+      // each kind shows its own best few, even when none of them is among the best overall
+      expect(shown).toBe(Math.min(Number(count), limits.searchSectionBest));
       if (shown < Number(count)) {
         const all = section.getByRole('link', { name: `Show all ${count} ${name.toLowerCase()}` });
         expect(await all.getAttribute('href')).toMatch(/type=/);

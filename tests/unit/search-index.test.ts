@@ -110,6 +110,26 @@ describe('results and the pages they refer to', () => {
     expect(r.hits).toHaveLength(2);
   });
 
+  it('brings each kind’s own best few beside the best overall when no kind is asked for', async () => {
+    const s = new SearchIndex();
+    // Seven results on D2; two name it in their notes too, so they rank first among results.
+    const many = [1, 2, 3, 4, 5, 6, 7].map((id) => result(id, [d2, id % 2 ? cbn : diamond], id === 4 || id === 6 ? 'D2 again' : ''));
+    await s.rebuild([...docs, ...many]);
+    const all = s.search('d2', undefined, 1);
+    expect(all.facets).toMatchObject({ steel: 1, result: 7 });
+    // the best overall is the steel's page; the results still show their best five, as their own search ranks them
+    expect(all.hits[0].slug).toBe('aisi-d2');
+    const results = all.hits.filter((h) => h.type === 'result').map((h) => h.id);
+    expect(results).toHaveLength(5);
+    expect(results).toEqual(s.search('d2', 'result', 5).hits.map((h) => h.id));
+    expect(results.slice(0, 2).sort()).toEqual([4, 6]);
+    // best first throughout, each hit once
+    expect(all.hits.map((h) => h.score)).toEqual([...all.hits.map((h) => h.score)].sort((a, b) => b - a));
+    expect(new Set(all.hits.map((h) => `${h.type}:${h.id ?? h.slug}`)).size).toBe(all.hits.length);
+    // a kind asked for brings that kind only, at most the limit
+    expect(s.search('d2', 'result', 2).hits.map((h) => h.type)).toEqual(['result', 'result']);
+  });
+
   it('ranks a result on the page asked for above one that only names it in its notes, and one that does both first', async () => {
     const s = new SearchIndex();
     await s.rebuild([result(1, [d2, diamond], 'Finished after a CBN wheel'), result(2, [d2, cbn]), result(3, [d2, cbn], 'CBN wheel, coarse, then fine')]);

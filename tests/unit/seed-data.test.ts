@@ -442,6 +442,22 @@ describe('results', () => {
     expect(v1.length).toBeGreaterThan(0);
     for (const r of v1) expect(r.input.sharpness.readingsG.length).toBe(3);
   });
+
+  it('share a few progressions, coarse to fine, so a steel’s most common ones are more than one result each', () => {
+    const withSteps = results.filter((r) => r.input.progression?.length);
+    expect(withSteps.length).toBeGreaterThan(results.length / 3);
+    const grit = (slug: string) => abrasives.find((a) => a.slug === slug)!.grit;
+    for (const r of withSteps) expect(r.input.progression!.every((s) => s.abrasive !== r.input.abrasive), `result by ${r.author}`).toBe(true);
+    // The same steel, method and route to the same final abrasive, counted.
+    const routes = new Map<string, number>();
+    for (const r of withSteps) {
+      const key = [r.input.steel, r.input.sharpness.method, ...r.input.progression!.map((s) => s.abrasive), r.input.abrasive, r.input.grit?.grade ?? grit(r.input.abrasive).grade].join('|');
+      routes.set(key, (routes.get(key) ?? 0) + 1);
+    }
+    const steelsWithRepeat = new Set([...routes].filter(([, n]) => n > 1).map(([key]) => key.split('|')[0]));
+    expect(steelsWithRepeat.size).toBeGreaterThan(steels.length / 2);
+    expect(steelsWithRepeat.has('aisi-d2')).toBe(true);
+  });
 });
 
 describe('demo wording', () => {

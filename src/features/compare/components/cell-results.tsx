@@ -17,7 +17,7 @@ export function CellResults({ filters, cell, page, onPage, onClose }: { filters:
   return (
     <section aria-labelledby="cell-results-title" className="flex flex-col gap-3 rounded-md border border-accent/40 bg-panel p-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2 id="cell-results-title" className="font-serif text-xl">
+        <h2 id="cell-results-title" tabIndex={-1} className="font-serif text-xl">
           {heading}
         </h2>
         <Button variant="quiet" size="sm" onClick={onClose}>

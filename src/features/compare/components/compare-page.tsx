@@ -1,4 +1,4 @@
-import { lazy, Suspense, useCallback } from 'react';
+import { lazy, Suspense, useCallback, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { FEW_RESULTS } from '@shared/compare-view';
 import { SHRINKAGE_PSEUDO_RESULTS, shrinkageShare } from '@shared/compare-shrinkage';
@@ -20,6 +20,7 @@ import { CompareTable } from './compare-table';
 import { CompareGrid } from './compare-grid';
 import { CellResults } from './cell-results';
 import { PairedPanel } from './paired-panel';
+import { RowPanel, type RowButton } from './row-panel';
 
 // recharts is large: the charts come in their own chunk, only when asked for.
 const CompareCharts = lazy(() => import('./compare-charts'));
@@ -64,9 +65,18 @@ export default function ComparePage() {
   const compare = useCompare(view === 'grid' ? gridParams : tableParams);
   const data = compare.data;
 
-  const onOpenCell = useCallback((cell: string) => update({ cell: params.cell === cell ? undefined : cell, cellPage: undefined }, { keepPage: true }), [params.cell, update]);
+  // The panel a press opened takes the focus; one opened by a link or a reload leaves it where it is.
+  const [pressed, setPressed] = useState<RowButton | null>(null);
+  const onOpenCell = useCallback(
+    (cell: string) => {
+      setPressed('results');
+      update({ cell: params.cell === cell ? undefined : cell, cellPage: undefined }, { keepPage: true });
+    },
+    [params.cell, update],
+  );
   const onPair = useCallback(
     (cell: string) => {
+      setPressed('pair');
       if (params.a === cell) update({ a: params.b, b: undefined }, { keepPage: true });
       else if (params.b === cell) update({ b: undefined }, { keepPage: true });
       else if (!params.a) update({ a: cell }, { keepPage: true });
@@ -74,12 +84,37 @@ export default function ComparePage() {
     },
     [params.a, params.b, update],
   );
+  const closeCell = () => update({ cell: undefined, cellPage: undefined }, { keepPage: true });
+  const clearPair = () => update({ a: undefined, b: undefined }, { keepPage: true });
 
   const page = Number(params.page ?? 1);
   const pages = data ? Math.max(1, Math.ceil(data.total / data.pageSize)) : 1;
   const ranked = params.sort === 'ranked' || params.sort === '-ranked';
   const notation = notationOf(params.notation);
   const live = data ? [...new Set(data.liveFilters.map((k) => LIVE_WORDS[k] ?? k))] : [];
+
+  // The cell's results open under its row, the pair under its second cell's row, when the table
+  // shows that row; otherwise (the grid, another page of the table) above the view.
+  const cellPanel = params.cell ? <CellResults filters={filters} cell={params.cell} page={Number(params.cellPage ?? 1)} onPage={(p) => update({ cellPage: String(p) }, { keepPage: true })} onClose={closeCell} /> : null;
+  const pairPanel = params.a && params.b ? <PairedPanel filters={filters} a={params.a} b={params.b} onClear={clearPair} /> : null;
+  const shown = view === 'table' && data ? new Set(data.rows.map((r) => r.cell)) : new Set<string>();
+  const cellUnderRow = !!params.cell && shown.has(params.cell);
+  const pairUnderRow = !!params.b && shown.has(params.b);
+  const panelFor = (cell: string) =>
+    (cell === params.cell && cellPanel) || (cell === params.b && pairPanel) ? (
+      <div className="flex flex-col gap-3">
+        {cell === params.b && pairPanel ? (
+          <RowPanel key={`pair-${cell}`} cell={cell} opener="pair" focusOnOpen={pressed === 'pair'} onClose={clearPair}>
+            {pairPanel}
+          </RowPanel>
+        ) : null}
+        {cell === params.cell && cellPanel ? (
+          <RowPanel key={`results-${cell}`} cell={cell} opener="results" focusOnOpen={pressed === 'results'} onClose={closeCell}>
+            {cellPanel}
+          </RowPanel>
+        ) : null}
+      </div>
+    ) : null;
 
   return (
     <div className="flex flex-col gap-6">
@@ -152,11 +187,13 @@ export default function ComparePage() {
         </div>
       ) : null}
 
-      {params.a && params.b ? <PairedPanel filters={filters} a={params.a} b={params.b} onClear={() => update({ a: undefined, b: undefined }, { keepPage: true })} /> : params.a ? <p className="text-sm" role="status">Cell A chosen for the paired comparison; choose “Pair” on a second cell.</p> : null}
-
-      {params.cell ? (
-        <CellResults filters={filters} cell={params.cell} page={Number(params.cellPage ?? 1)} onPage={(p) => update({ cellPage: String(p) }, { keepPage: true })} onClose={() => update({ cell: undefined, cellPage: undefined }, { keepPage: true })} />
+      {params.a && !params.b ? (
+        <p className="text-sm" role="status">
+          Cell A chosen for the paired comparison; choose “Pair” on a second cell.
+        </p>
       ) : null}
+      {pairPanel && !pairUnderRow ? pairPanel : null}
+      {cellPanel && !cellUnderRow ? cellPanel : null}
 
       <div aria-live="polite" aria-busy={compare.isFetching}>
         {view === 'charts' ? (
@@ -175,7 +212,7 @@ export default function ComparePage() {
           <CompareGrid rows={data!.rows} onOpenCell={onOpenCell} openCell={params.cell} />
         ) : (
           <>
-            <CompareTable rows={data!.rows} sort={params.sort} onToggleSort={(column) => update((current) => ({ sort: nextSort(current.get('sort') ?? undefined, column) }))} openCell={params.cell} onOpenCell={onOpenCell} pair={{ a: params.a, b: params.b }} onPair={onPair} notation={notation} ranked={ranked} />
+            <CompareTable rows={data!.rows} sort={params.sort} onToggleSort={(column) => update((current) => ({ sort: nextSort(current.get('sort') ?? undefined, column) }))} onSort={(sort) => update({ sort })} openCell={params.cell} onOpenCell={onOpenCell} pair={{ a: params.a, b: params.b }} onPair={onPair} notation={notation} ranked={ranked} panelFor={panelFor} />
             {pages > 1 ? (
               <nav aria-label="Pages of the comparison" className="mt-3 flex items-center gap-3 text-sm">
                 <Button size="sm" variant="secondary" disabled={page <= 1} onClick={() => update({ page: page - 1 > 1 ? String(page - 1) : undefined })}>

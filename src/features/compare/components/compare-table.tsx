@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { Fragment, useMemo, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState, type VisibilityState } from '@tanstack/react-table';
 import type { GritStandard } from '@shared/grit';
@@ -7,6 +7,7 @@ import type { CompareSortKey } from '@shared/schemas/compare';
 import { paths } from '@/config/paths';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
+import { Select } from '@/components/ui/field';
 import { TableFrame, tdClass } from '@/components/ui/table-frame';
 import { SortableTh } from '@/components/ui/table';
 import { formatGrams, formatGritBand, formatNumber } from '@/lib/format';
@@ -40,6 +41,8 @@ export interface CompareTableProps {
   sort?: string;
   /** A press on a sortable column's header (its id, a CompareSortKey). */
   onToggleSort: (column: CompareSortKey) => void;
+  /** A sort chosen in the phone's "Sort by" list (where the headers are hidden); undefined: the default order. */
+  onSort: (sort: string | undefined) => void;
   openCell?: string;
   onOpenCell: (cell: string) => void;
   pair: { a?: string; b?: string };
@@ -48,6 +51,8 @@ export interface CompareTableProps {
   notation: GritStandard;
   /** Ranked order is on: its column shows whatever the chooser says. */
   ranked?: boolean;
+  /** What opens under a row (its results, the pair), drawn in a full-width row right after it. */
+  panelFor?: (cell: string) => ReactNode;
 }
 
 /** The columns shown unless the reader chooses otherwise: the row's identity, its figures, its actions. */
@@ -115,13 +120,46 @@ function ColumnChooser({ chosen, onChange }: { chosen: Set<string>; onChange: (n
   );
 }
 
+/** How each sortable column's two orders read in the phone's list. */
+const ORDER_WORDS: Record<string, [string, string]> = {
+  steel: ['A to Z', 'Z to A'],
+  material: ['A to Z', 'Z to A'],
+  band: ['coarse to fine', 'fine to coarse'],
+};
+
+/**
+ * The sort on a phone, where the cards hide the sortable headers: one list of every shown column
+ * in both orders, the same URL sort the headers set.
+ */
+function PhoneSort({ sort, onSort, columns }: { sort?: string; onSort: (sort: string | undefined) => void; columns: [string, string][] }) {
+  return (
+    <label className="flex w-full items-center gap-2 text-sm md:hidden">
+      <span className="shrink-0 font-medium">Sort by</span>
+      <Select className="py-1" value={sort ?? ''} onChange={(e) => onSort(e.target.value || undefined)}>
+        <option value="">Steel, material, then grit band</option>
+        {columns.flatMap(([id, name]) => {
+          const [up, down] = ORDER_WORDS[id] ?? ['low to high', 'high to low'];
+          return [
+            <option key={id} value={id}>
+              {name}, {up}
+            </option>,
+            <option key={`-${id}`} value={`-${id}`}>
+              {name}, {down}
+            </option>,
+          ];
+        })}
+      </Select>
+    </label>
+  );
+}
+
 /**
  * The comparison as a table: one row per cell with the sample size, testers, median and
  * quartiles, mean with its 95 % interval, median cuts, and the hardness and angle ranges.
  * Every column sorts (on the server, so the order holds across pages); thin cells are marked
  * in words; each row opens its results and can be chosen for the paired comparison.
  */
-export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, pair, onPair, notation, ranked }: CompareTableProps) {
+export function CompareTable({ rows, sort, onToggleSort, onSort, openCell, onOpenCell, pair, onPair, notation, ranked, panelFor }: CompareTableProps) {
   const [chosen, setChosen] = useChosenColumns();
   const columns = useMemo(
     () => [
@@ -246,10 +284,10 @@ export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, p
           const role = pair.a === r.cell ? 'A' : pair.b === r.cell ? 'B' : null;
           return (
             <span className="inline-flex gap-1 whitespace-nowrap">
-              <Button size="sm" variant={openCell === r.cell ? 'primary' : 'secondary'} aria-pressed={openCell === r.cell} onClick={() => onOpenCell(r.cell)} aria-label={`Results of ${r.steelName}, ${r.materialLabel}, ${formatGritBand(r.band)}`}>
+              <Button size="sm" variant={openCell === r.cell ? 'primary' : 'secondary'} aria-pressed={openCell === r.cell} onClick={() => onOpenCell(r.cell)} data-row-button="results" data-cell={r.cell} aria-label={`Results of ${r.steelName}, ${r.materialLabel}, ${formatGritBand(r.band)}`}>
                 Results
               </Button>
-              <Button size="sm" variant={role ? 'primary' : 'quiet'} aria-pressed={!!role} onClick={() => onPair(r.cell)} aria-label={`Pair ${r.steelName}, ${r.materialLabel}, ${formatGritBand(r.band)}`}>
+              <Button size="sm" variant={role ? 'primary' : 'quiet'} aria-pressed={!!role} onClick={() => onPair(r.cell)} data-row-button="pair" data-cell={r.cell} aria-label={`Pair ${r.steelName}, ${r.materialLabel}, ${formatGritBand(r.band)}`}>
                 {role ? `Pair ${role}` : 'Pair'}
               </Button>
             </span>
@@ -280,6 +318,7 @@ export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, p
           Sharpness in grams of force to sever the method’s test medium: lower is keener. Each result counts once, with the median of its readings. Sorting applies to every page.
         </p>
         <ColumnChooser chosen={chosen} onChange={setChosen} />
+        <PhoneSort sort={sort} onSort={onSort} columns={table.getVisibleLeafColumns().filter((c) => c.getCanSort() && c.id !== 'actions' && c.id !== 'method').map((c) => [c.id, String(c.columnDef.header)])} />
       </div>
       <TableFrame label="Comparison table">
         {/* On a phone each row is a card: the head is hidden and every figure carries its column's name. */}
@@ -304,23 +343,33 @@ export function CompareTable({ rows, sort, onToggleSort, openCell, onOpenCell, p
           <tbody className="max-md:flex max-md:flex-col max-md:gap-3 max-md:p-3">
             {table.getRowModel().rows.map((row) => {
               const chosenAs = pair.a === row.id || pair.b === row.id;
+              const panel = panelFor?.(row.id);
               return (
-                <tr key={row.id} className={`${openCell === row.id || chosenAs ? 'bg-accent-soft/60' : 'hover:bg-accent-soft/30'} ${CARD}`}>
-                  {row.getVisibleCells().map((cell) => {
-                    const meta = cell.column.columnDef.meta as { numeric?: boolean } | undefined;
-                    const header = cell.column.columnDef.header;
-                    const identity = IDENTITY.has(cell.column.id);
-                    return (
-                      <td
-                        key={cell.id}
-                        data-label={identity || cell.column.id === 'actions' || typeof header !== 'string' ? undefined : header}
-                        className={`${tdClass} ${meta?.numeric ? 'whitespace-nowrap text-right tabular-nums max-md:text-left' : ''} ${identity || cell.column.id === 'actions' ? 'max-md:col-span-2' : ''} ${CARD_CELL}`}
-                      >
-                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                <Fragment key={row.id}>
+                  <tr className={`${openCell === row.id || chosenAs ? 'bg-accent-soft/60' : 'hover:bg-accent-soft/30'} ${CARD}`}>
+                    {row.getVisibleCells().map((cell) => {
+                      const meta = cell.column.columnDef.meta as { numeric?: boolean } | undefined;
+                      const header = cell.column.columnDef.header;
+                      const identity = IDENTITY.has(cell.column.id);
+                      return (
+                        <td
+                          key={cell.id}
+                          data-label={identity || cell.column.id === 'actions' || typeof header !== 'string' ? undefined : header}
+                          className={`${tdClass} ${meta?.numeric ? 'whitespace-nowrap text-right tabular-nums max-md:text-left' : ''} ${identity || cell.column.id === 'actions' ? 'max-md:col-span-2' : ''} ${CARD_CELL}`}
+                        >
+                          {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                        </td>
+                      );
+                    })}
+                  </tr>
+                  {panel ? (
+                    <tr className="max-md:block">
+                      <td colSpan={row.getVisibleCells().length} className="border-b border-rule/70 bg-accent-soft/20 p-3 max-md:block max-md:p-0 max-md:bg-transparent">
+                        {panel}
                       </td>
-                    );
-                  })}
-                </tr>
+                    </tr>
+                  ) : null}
+                </Fragment>
               );
             })}
           </tbody>

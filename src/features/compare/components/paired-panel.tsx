@@ -17,7 +17,7 @@ export function PairedPanel({ filters, a, b, onClear }: { filters: CompareFilter
   return (
     <section aria-labelledby="paired-title" className="flex flex-col gap-3 rounded-md border border-rule bg-panel p-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2 id="paired-title" className="font-serif text-xl">
+        <h2 id="paired-title" tabIndex={-1} className="font-serif text-xl">
           Tester-paired comparison
         </h2>
         <Button variant="quiet" size="sm" onClick={onClear}>

@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
 import { paths } from '@/config/paths';
+import { limits } from '@shared/validations';
 import type { SearchHit, SearchHitType } from '@/types/api';
 import { Highlight } from './highlight';
 
@@ -29,8 +30,8 @@ export function hitHref(hit: SearchHit): string | null {
   }
 }
 
-/** In the "All" view, at most this many hits per section; its "show all" link has the rest. */
-export const HITS_PER_SECTION = 5;
+/** In the "All" view, at most this many hits per section (the search brings each kind's best this many); its "show all" link has the rest. */
+const HITS_PER_SECTION = limits.searchSectionBest;
 
 /**
  * Hits grouped by type (steels, abrasives, methods, results, cells), each with its snippet. In
@@ -54,7 +55,7 @@ export function SearchHits({ hits, query, facets, typeHref }: { hits: SearchHit[
             </h2>
             {more ? (
               <p className="mb-2 text-sm text-muted">
-                {group.length ? `The best ${group.length} of ${total}` : `${total} match${total === 1 ? '' : 'es'}, none among the best overall`}
+                The best {group.length} of {total}
                 {typeHref ? (
                   <>
                     {' · '}
