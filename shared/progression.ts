@@ -87,6 +87,23 @@ export function progressionWords(steps: readonly Pick<DerivedStep, 'material' | 
   return steps.map((s) => `${materialLabel(s.material)} ${formatMicrometres(s.gritUm)}`).join(' → ');
 }
 
+/**
+ * Where a progression goes back to a coarser size: each pair of neighbouring steps with a known size
+ * (the final abrasive last; a step without one is skipped over) whose later one is coarser, i.e. has
+ * the larger particle size. Going coarse to fine is common practice, so the form hints at these
+ * without refusing them (a deliberate step back to a coarser stone is the member's call).
+ */
+export function coarserAfterFiner(sizesUm: readonly (number | null)[]): { earlier: number; later: number }[] {
+  const found: { earlier: number; later: number }[] = [];
+  let previous = -1;
+  sizesUm.forEach((size, index) => {
+    if (size === null) return;
+    if (previous >= 0 && size > sizesUm[previous]!) found.push({ earlier: previous, later: index });
+    previous = index;
+  });
+  return found;
+}
+
 /** One step as people read it: "cbn-wheel-b126 (ISO 6106 B126, 20°)". */
 function stepCell(step: ProgressionStep): string {
   const parts: string[] = [];

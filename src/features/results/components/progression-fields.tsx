@@ -1,5 +1,6 @@
 import { useFieldArray, useWatch, type Control, type FieldErrors, type UseFormRegister } from 'react-hook-form';
-import { PROGRESSION_MAX } from '@shared/progression';
+import { PROGRESSION_MAX, coarserAfterFiner } from '@shared/progression';
+import { formatMicrometres } from '@/lib/format';
 import { parseGrit } from '@shared/grit';
 import type { Coolant } from '@shared/vocabulary';
 import { progressionCoolant, type CoolantChange, type CoolantStep } from '@shared/workshop';
@@ -86,6 +87,7 @@ export function ProgressionFields({ control, register, errors, abrasives }: { co
           Add a step{fields.length >= PROGRESSION_MAX ? ` (at most ${PROGRESSION_MAX})` : ''}
         </Button>
       </div>
+      <ProgressionOrderHint control={control} abrasives={abrasives} />
       <ProgressionCoolant control={control} abrasives={abrasives} onReorder={replace} />
     </fieldset>
   );
@@ -102,6 +104,34 @@ function sizeOf(gritGrade: string | undefined, abrasive: AbrasiveSummary): numbe
     }
   }
   return abrasive.gritUm;
+}
+
+/**
+ * A soft hint where the steps go back to a coarser size (by each step's grit, else its abrasive's
+ * own): coarse to fine is the usual order, but a deliberate step back is allowed, so nothing is refused.
+ */
+function ProgressionOrderHint({ control, abrasives }: { control: Control<ResultFormValues, unknown, ResultInput>; abrasives: AbrasiveSummary[] }) {
+  const [progression, finalSlug, finalGrit] = useWatch({ control, name: ['progression', 'abrasive', 'grit.grade'] });
+  const bySlug = new Map(abrasives.map((a) => [a.slug, a]));
+  const steps = progression ?? [];
+  if (steps.length === 0) return null;
+  const sizeOfStep = (slug: string, grit: string | undefined) => {
+    const abrasive = bySlug.get(slug);
+    return abrasive ? sizeOf(grit, abrasive) : null;
+  };
+  const sizes = [...steps.map((s) => sizeOfStep(s.abrasive, s.gritGrade)), sizeOfStep(finalSlug, finalGrit)];
+  const name = (i: number) => (i === steps.length ? 'the final abrasive' : `step ${i + 1}`);
+  const pairs = coarserAfterFiner(sizes);
+  if (pairs.length === 0) return null;
+  return (
+    <p className="mt-3 rounded-md border-l-4 border-caution bg-caution-soft px-3 py-2 text-sm" role="status">
+      Coarse to fine is the usual order, but here{' '}
+      {pairs
+        .map(({ earlier, later }) => `${name(later)} (${formatMicrometres(sizes[later]!)}) is coarser than ${name(earlier)} (${formatMicrometres(sizes[earlier]!)})`)
+        .join('; ')}
+      . Check the order (Earlier / Later), or keep it if you meant it.
+    </p>
+  );
 }
 
 /**
