@@ -17,6 +17,7 @@ import { setPageLinks } from '../../../presenters/page-links';
 import { reviewDeskRevisions } from '../../../queries/pages';
 import { emptyQuerySchema, idParams } from '@shared/schemas/common';
 import { bulkApproveSchema, retractInputSchema, reviewDeskQuerySchema, type ReviewDeskQuery } from '@shared/schemas/publishing';
+import { bulkApprovalSchema, reviewDeskSchema, type Presented } from '@shared/schemas/responses';
 import { openFlags, pendingImports, pendingResults } from '../../../queries/review-desk';
 import { presentDeskContext, presentDeskResults, presentDeskRevisions, presentOpenFlags, presentPendingImports } from '../../../presenters/review-desk';
 import { deskContext } from '../../../queries/desk-context';
@@ -97,7 +98,7 @@ export function resultsRouter(ctx: AppContext): Router {
       imports: show('result') ? presentPendingImports(await pendingImports()) : [],
       // Corrections of published results, each with the changes against the published version.
       resultRevisions: show('result') ? presentPendingRevisions(await pendingResultRevisions(), actor) : [],
-    });
+    } satisfies Presented<typeof reviewDeskSchema>);
   }));
 
   // One pending result's context: its cell and place there, the outlier hint, readings, near-duplicates, the author's record.
@@ -107,7 +108,7 @@ export function resultsRouter(ctx: AppContext): Router {
   }));
 
   router.post('/review-desk/bulk-approve', requireUser, route({ body: bulkApproveSchema }, async (req, res) => {
-    res.json(await bulkApproveResults(ctx, actorOf(req)!, req.valid.body));
+    res.json((await bulkApproveResults(ctx, actorOf(req)!, req.valid.body)) satisfies Presented<typeof bulkApprovalSchema>);
   }));
 
   router.post('/results/:id/retract', requireUser, route({ params: idParams, body: retractInputSchema }, async (req, res) => {
