@@ -272,7 +272,7 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'post', path: '/workshop/setups', summary: 'Save a setup (projection and angle, with a jig or none)', tag: 'workshop', access: 'signed-in', body: setupInputSchema, answer: created(createdIdSchema) },
   { method: 'post', path: '/workshop/wheels', summary: 'Add a wheel to a grinder', tag: 'workshop', access: 'signed-in', body: workshopWheelInputSchema, answer: created(createdIdSchema) },
   { method: 'post', path: '/workshop/wheels/:id/retire', summary: 'Retire a wheel, with the sharpenings it lasted', tag: 'workshop', access: 'signed-in', params: idParams, body: retireWheelSchema, answer: noContent },
-  { method: 'get', path: '/price-reports', summary: 'Reported prices of one abrasive: medians with n per currency and condition, no reporter named', tag: 'workshop', access: 'public', query: priceReportQuerySchema, answer: json(priceSummarySchema) },
+  { method: 'get', path: '/price-reports', summary: 'Reported prices of one abrasive: medians with n per currency and condition, no reporter named', tag: 'workshop', access: 'public', query: priceReportQuerySchema, answer: json(priceSummarySchema), errors: [404] },
   { method: 'post', path: '/price-reports', summary: 'Report a price you paid for an abrasive', tag: 'workshop', access: 'signed-in', body: priceReportInputSchema, answer: created(doneSchema) },
 
   // Members
@@ -305,13 +305,13 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'post', path: '/publishers/applications/:id/decision', summary: 'Accept or decline an application', tag: 'curation', access: 'admin', params: idParams, body: applicationDecisionSchema, answer: json(applicationSchema), errors: [409] },
   { method: 'get', path: '/publishers/settings', summary: 'The site’s publishing settings', tag: 'curation', access: 'admin', query: emptyQuerySchema, answer: json(siteSettingsAnswerSchema) },
   { method: 'put', path: '/publishers/settings', summary: 'Change the site’s publishing settings', tag: 'curation', access: 'admin', body: siteSettingsChangeSchema, answer: json(siteSettingsAnswerSchema) },
-  { method: 'post', path: '/flags', summary: 'Flag a result or page for the moderators', tag: 'curation', access: 'signed-in', body: flagInputSchema, answer: created(flagSchema) },
+  { method: 'post', path: '/flags', summary: 'Flag a result or page for the moderators', tag: 'curation', access: 'signed-in', body: flagInputSchema, answer: created(flagSchema), errors: [409] },
   { method: 'get', path: '/flags', summary: 'Open flags', tag: 'curation', access: 'moderator', query: emptyQuerySchema, answer: json(flagListSchema) },
   { method: 'post', path: '/flags/:id/resolve', summary: 'Resolve a flag', tag: 'curation', access: 'moderator', params: idParams, body: flagResolutionSchema, answer: json(flagSchema), errors: [409] },
   { method: 'get', path: '/audit', summary: 'The audit log, newest first, one page at a time', tag: 'curation', access: 'moderator', query: auditQuerySchema, answer: { json: auditPageSchema, paged: true } },
 
   { method: 'get', path: '/admin/users', summary: 'Accounts whose handle or name contains q, with their result counts, one page at a time', tag: 'curation', access: 'admin', query: adminUsersQuerySchema, answer: { json: managedAccountPageSchema, paged: true } },
-  { method: 'patch', path: '/admin/users/:handle', summary: 'Change an account’s role, ban it or lift its ban, with the reason (audited)', tag: 'curation', access: 'admin', params: handleParamsSchema, body: adminUserChangeSchema, answer: json(managedAccountChangeSchema) },
+  { method: 'patch', path: '/admin/users/:handle', summary: 'Change an account’s role, ban it or lift its ban, with the reason (audited)', tag: 'curation', access: 'admin', params: handleParamsSchema, body: adminUserChangeSchema, answer: json(managedAccountChangeSchema), errors: [409] },
 
   { method: 'get', path: '/dev/mail', summary: 'Mail caught by the local mail catcher (where it runs: never in production)', tag: 'service', access: 'admin', query: emptyQuerySchema, answer: json(caughtMailSchema) },
 ];
