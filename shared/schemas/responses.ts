@@ -53,7 +53,7 @@ export const resultSchema = z
     abrasiveName: z.string(),
     sharpness: z.looseObject({ method: z.string(), readingsG: z.array(z.number()) }),
     derived: z.looseObject({ hrc: z.number(), perSideDeg: z.number(), inclusiveDeg: z.number(), sharpnessMedianG: z.number() }),
-    progression: z.array(z.looseObject({ abrasive: z.string(), material: z.string(), gritUm: z.number(), perSideDeg: z.number().nullable() })),
+    progression: z.array(z.looseObject({ abrasive: z.string(), abrasiveName: z.string(), material: z.string(), gritUm: z.number(), perSideDeg: z.number().nullable() })),
     trail: z.array(z.looseObject({ to: z.enum(RESULT_STATUSES), at: z.string() })),
     can: z.object({ review: z.boolean(), retract: z.boolean(), edit: z.boolean() }),
   })

@@ -8,6 +8,7 @@ import { route } from '../../../middleware/validate';
 import { badRequest } from '../../../errors';
 import type { User } from '../../../models';
 import { ownPage, resultsForExport } from '../../../queries/profiles';
+import { abrasiveNames } from '../../../queries/compare-lookups';
 import { presentOwnPage } from '../../../presenters/profile';
 import { findDuplicates } from '../../../queries/duplicates';
 import { followPage, unfollowPage } from '../../../commands/follow-page';
@@ -22,7 +23,7 @@ export function meRouter(ctx: AppContext): Router {
   const router = Router();
 
   router.get('/me', requireUser, route({ query: emptyQuerySchema }, async (req, res) => {
-    res.set('Cache-Control', 'no-store').json(presentOwnPage(await ownPage(req.user as User)));
+    res.set('Cache-Control', 'no-store').json(presentOwnPage(await ownPage(req.user as User), await abrasiveNames()));
   }));
 
   router.get('/me/results.csv', requireUser, route({ query: emptyQuerySchema }, async (req, res) => {
