@@ -1,6 +1,6 @@
 import { FLAG_REASONS } from '@shared/schemas/publishing';
 import type { ApiToken, AuditEntry, Flag, Photo, PublisherApplication } from '../models';
-import { applicationSchema, auditEntrySchema, flagSchema, tokenSchema, type Presented } from '@shared/schemas/responses';
+import { applicationSchema, auditEntrySchema, flagSchema, photoSchema, tokenSchema, type Presented } from '@shared/schemas/responses';
 import { presentAccount } from './user';
 
 /** A publisher application as its applicant and admins see it (never an e-mail address). */
@@ -28,7 +28,7 @@ export function photoUrls(photo: Pick<Photo, 'id'>) {
 }
 
 /** A photo of a result: its addresses, alt text and stored size (never its storage keys). */
-export function presentPhoto(p: Photo) {
+export function presentPhoto(p: Photo): Presented<typeof photoSchema> {
   return { id: p.id, resultId: p.resultId, ...photoUrls(p), alt: p.alt, width: p.width, height: p.height, bytes: p.bytes, createdAt: p.createdAt };
 }
 

@@ -6,7 +6,7 @@
 import { z } from 'zod';
 import { ROLES } from '../permissions';
 import { RESULT_REVISION_STATUSES, RESULT_STATUSES, resultInputSchema } from './result';
-import { APPLICATION_STATUSES, FLAG_REASONS, FLAG_STATUSES, FLAG_SUBJECTS, siteSettingsSchema, type FlagReason } from './publishing';
+import { APPLICATION_STATUSES, EMAIL_TOPICS, FLAG_REASONS, FLAG_STATUSES, FLAG_SUBJECTS, FOLLOWABLE_PAGES, siteSettingsSchema, type EmailTopic, type FlagReason } from './publishing';
 import { GRIT_STANDARDS } from '../grit';
 import { HARDNESS_SCALES } from '../hardness';
 
@@ -391,3 +391,35 @@ export const reviewDeskSchema = z
     ),
   })
   .meta({ id: 'ReviewDesk' });
+
+/** PUT /me/notifications: which e-mails the member now receives. */
+export const notificationSettingsAnswerSchema = everyKey(Object.keys(EMAIL_TOPICS) as EmailTopic[], z.boolean()).meta({ id: 'NotificationSettings' });
+
+/** POST /me/follows. */
+export const followSchema = z.object({ pageType: z.enum(FOLLOWABLE_PAGES), slug: z.string(), following: z.literal(true) }).meta({ id: 'Follow' });
+
+/** POST /me/duplicate-check: the member's results a new one would repeat. */
+export const duplicatesSchema = z
+  .object({ duplicates: z.array(z.object({ id: z.number().int().positive(), status: z.enum(RESULT_STATUSES), createdAt: timestamp })) })
+  .meta({ id: 'Duplicates' });
+
+/** POST /me/unsubscribe. */
+export const unsubscribedSchema = z.object({ topic: z.enum(Object.keys(EMAIL_TOPICS) as [EmailTopic, ...EmailTopic[]]), topicLabel: z.string(), unsubscribed: z.literal(true) }).meta({ id: 'Unsubscribed' });
+
+/** A photo of a result: its addresses, alt text and stored size. */
+export const photoSchema = z
+  .object({
+    id: z.number().int().positive(),
+    resultId: z.number().int().positive(),
+    url: z.string(),
+    thumbUrl: z.string(),
+    alt: z.string(),
+    width: z.number().int().positive(),
+    height: z.number().int().positive(),
+    bytes: z.number().int().positive(),
+    createdAt: timestamp,
+  })
+  .meta({ id: 'Photo' });
+
+/** GET /results/:id/photos: the photos, how many a result may carry, and whether the viewer may add one. */
+export const photoListSchema = z.object({ items: z.array(photoSchema), max: z.number().int().positive(), canAdd: z.boolean() }).meta({ id: 'PhotoList' });

@@ -6,6 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
+import sharp from 'sharp';
 import type { OpenApiDocument } from '../../server/openapi/document';
 import { documentChecks } from '../setup/openapi-validate';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
@@ -165,5 +166,35 @@ describe('publishing and curation', () => {
     const bad = await send(moderator, 'post', '/review-desk/bulk-approve', {}).expect(400);
     expect(bad.body.issues[0].path).toBe('ids');
     documented('post', '/review-desk/bulk-approve', bad);
+  });
+});
+
+describe('a member’s own settings, follows, duplicates and photos', () => {
+  it('e-mail settings, a follow, the duplicate check, a photo and the photo list; an unsigned unsubscribe link is a 400 naming it', async () => {
+    documented('put', '/me/notifications', await send(member, 'put', '/me/notifications', { digest: true }).expect(200));
+    const badSetting = await send(member, 'put', '/me/notifications', { digest: 'yes' }).expect(400);
+    expect(badSetting.body.issues[0].path).toBe('digest');
+    documented('put', '/me/notifications', badSetting);
+    documented('post', '/me/follows', await send(member, 'post', '/me/follows', { pageType: 'steel', slug: 'aisi-d2' }).expect(201));
+    documented('post', '/me/follows', await send(null, 'post', '/me/follows', { pageType: 'steel', slug: 'aisi-d2' }).expect(401));
+
+    const example = { steel: 'aisi-d2', hardness: { value: 61, scale: 'HRC' }, abrasive: 'cbn-electroplated-wheel-250-b126', edgeAngle: { perSideDeg: 15 }, sharpness: { method: 'push-cut-test-v2', readingsG: [183, 177, 188] } };
+    const posted = await send(member, 'post', '/results/drafts', example).expect(201);
+    const duplicates = await send(member, 'post', '/me/duplicate-check', example).expect(200);
+    expect(duplicates.body.duplicates.map((d: { id: number }) => d.id)).toContain(posted.body.id);
+    documented('post', '/me/duplicate-check', duplicates);
+
+    const unsubscribe = await send(null, 'post', '/me/unsubscribe', { user: 1, topic: 'digest', sig: 'x'.repeat(30) }).expect(400);
+    expect(unsubscribe.body.issues[0].path).toBe('sig');
+    documented('post', '/me/unsubscribe', unsubscribe);
+
+    // An invented image, made with sharp.
+    const jpeg = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 120, g: 120, b: 120 } } }).jpeg().toBuffer();
+    const photo = await member.agent.post(`/api/v1/results/${posted.body.id}/photos`).set('X-CSRF-Token', member.csrf).field('alt', 'A test edge under the loupe').attach('photo', jpeg, { filename: 'edge.jpg', contentType: 'image/jpeg' }).expect(201);
+    documented('post', '/results/{id}/photos', photo);
+    const photos = await get(`/results/${posted.body.id}/photos`, member).expect(200);
+    expect(photos.body.items).toHaveLength(1);
+    documented('get', '/results/{id}/photos', photos);
+    documented('get', '/results/{id}/photos', await get('/results/999999999/photos').expect(404));
   });
 });
