@@ -10,7 +10,7 @@ export const KEPT = {
   accounts: ['account'],
   /** The pages a submission refers to, by slug. */
   pageRefs: ['page'],
-  /** The comparison's page look-ups (a page enters the comparison through an approved result). */
+  /** The comparison's page look-ups (a page enters the comparison through an approved result), and the abrasive names a result's progression steps show. */
   compareLookups: ['page', 'cells'],
   /** Figures over approved results: counts per page, a page's summary. */
   figures: ['cells'],

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
-import type { ApplicationStatus, EmailTopic, FlagReason, FlagSubject, FollowablePage } from '@shared/schemas/publishing';
+import type { ApplicationStatus, EmailTopic, FlagReason, FlagStatus, FlagSubject, FollowablePage } from '@shared/schemas/publishing';
 import { User } from './user';
 import { Result } from './result';
 
@@ -157,7 +157,7 @@ export class Flag extends Model<InferAttributes<Flag>, InferCreationAttributes<F
   declare reporterId: number;
   declare reason: FlagReason;
   declare text: string | null;
-  declare status: 'open' | 'upheld' | 'dismissed';
+  declare status: FlagStatus;
   declare resolvedById: number | null;
   declare resolutionNote: string | null;
   declare resolvedAt: Date | null;

@@ -1,19 +1,19 @@
 import type { Actor } from '@shared/permissions';
 import type { ApiToken, PublisherApplication, Result, User } from '../models';
-import { presentResult } from './result';
+import { presentResult, type AbrasiveNames } from './result';
 import { presentAccount } from './user';
 import { presentApplication, presentToken } from './publishing';
 
 /** A member's public profile as the API gives it: never an e-mail address. */
-export function presentProfile<T extends { user: User; recent: Result[] }>({ user, recent, ...rest }: T, viewer: Actor | null) {
-  return { ...presentAccount(user), ...rest, recent: recent.map((r) => presentResult(r, viewer)) };
+export function presentProfile<T extends { user: User; recent: Result[] }>({ user, recent, ...rest }: T, viewer: Actor | null, names: AbrasiveNames) {
+  return { ...presentAccount(user), ...rest, recent: recent.map((r) => presentResult(r, viewer, names)) };
 }
 
 /** The member's own page as the API gives it. */
-export function presentOwnPage<T extends OwnPageData>(page: T) {
+export function presentOwnPage<T extends OwnPageData>(page: T, names: AbrasiveNames) {
   const { user, badge, counts, drafts, pending, returned, rejected, following, notifications, tokens, application, imports, can } = page;
   const actor = user.asActor();
-  const present = (rows: Result[]) => rows.map((r) => presentResult(r, actor));
+  const present = (rows: Result[]) => rows.map((r) => presentResult(r, actor, names));
   return {
     account: { ...presentAccount(user), hasEmail: !!user.email, badge },
     counts,

@@ -1,9 +1,10 @@
 import { FLAG_REASONS } from '@shared/schemas/publishing';
 import type { ApiToken, AuditEntry, Flag, Photo, PublisherApplication } from '../models';
+import { applicationSchema, auditEntrySchema, flagSchema, photoSchema, tokenSchema, type Presented } from '@shared/schemas/responses';
 import { presentAccount } from './user';
 
 /** A publisher application as its applicant and admins see it (never an e-mail address). */
-export function presentApplication(a: PublisherApplication) {
+export function presentApplication(a: PublisherApplication): Presented<typeof applicationSchema> {
   return {
     id: a.id,
     status: a.status,
@@ -17,7 +18,7 @@ export function presentApplication(a: PublisherApplication) {
 }
 
 /** A token as listed to its owner: never the token or its hash, only the prefix to tell it apart. */
-export function presentToken(t: ApiToken) {
+export function presentToken(t: ApiToken): Presented<typeof tokenSchema> {
   return { id: t.id, name: t.name, prefix: t.prefix, createdAt: t.createdAt, lastUsedAt: t.lastUsedAt, revokedAt: t.revokedAt, active: !t.revokedAt };
 }
 
@@ -27,12 +28,12 @@ export function photoUrls(photo: Pick<Photo, 'id'>) {
 }
 
 /** A photo of a result: its addresses, alt text and stored size (never its storage keys). */
-export function presentPhoto(p: Photo) {
+export function presentPhoto(p: Photo): Presented<typeof photoSchema> {
   return { id: p.id, resultId: p.resultId, ...photoUrls(p), alt: p.alt, width: p.width, height: p.height, bytes: p.bytes, createdAt: p.createdAt };
 }
 
 /** A flag as moderators see it on the desk; `subject` is filled by the caller (a title and a link). */
-export function presentFlag(f: Flag, subject: { title: string; path: string } | null) {
+export function presentFlag(f: Flag, subject: { title: string; path: string } | null): Presented<typeof flagSchema> {
   return {
     id: f.id,
     subjectType: f.subjectType,
@@ -49,7 +50,7 @@ export function presentFlag(f: Flag, subject: { title: string; path: string } | 
 }
 
 /** One audit log line: who, what, on what, when, why, and whether it was done or refused. */
-export function presentAuditEntry(e: AuditEntry) {
+export function presentAuditEntry(e: AuditEntry): Presented<typeof auditEntrySchema> {
   return {
     id: e.id,
     at: e.createdAt,

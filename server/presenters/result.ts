@@ -6,13 +6,16 @@ import type { ResultInput } from '@shared/schemas/result';
 import type { Result, ResultRevision } from '../models';
 import { presentAccount } from './user';
 
+/** Abrasive pages' names by slug (the route reads them with `abrasiveNames()`): a progression step names its abrasive by slug. */
+export type AbrasiveNames = ReadonlyMap<string, string>;
+
 const round = (x: number, digits = 2) => Math.round(x * 10 ** digits) / 10 ** digits;
 
 /**
  * A result as the API gives it: what was entered, the names of what it refers to, the derived
  * values, and, for its author and moderators only, the review note and the trail.
  */
-export function presentResult(result: Result, viewer: Actor | null) {
+export function presentResult(result: Result, viewer: Actor | null, names: AbrasiveNames) {
   const input = result.input;
   const insider = !!viewer && (viewer.id === result.authorId || atLeast(viewer.role, 'moderator'));
   const events = [...(result.events ?? [])].sort((a, b) => a.id - b.id);
@@ -29,9 +32,10 @@ export function presentResult(result: Result, viewer: Actor | null) {
     steelName: result.steel?.name ?? input.steel,
     hardness: input.hardness,
     heatTreatment: input.heatTreatment,
-    /** The steps before the final abrasive, as stored with their derived sizes. */
+    /** The steps before the final abrasive, as stored with their derived sizes, each with its abrasive's name. */
     progression: (result.progression ?? []).map((s) => ({
       abrasive: s.abrasive,
+      abrasiveName: names.get(s.abrasive) ?? s.abrasive,
       material: s.material,
       materialLabel: ABRASIVE_MATERIALS[s.material as keyof typeof ABRASIVE_MATERIALS] ?? s.material,
       grit: { standard: s.gritStandard, grade: s.gritGrade },
@@ -101,11 +105,11 @@ export type PresentedResultRevision = ReturnType<typeof presentResultRevision>;
  * Corrections of published results waiting for a moderator: each with the published result it
  * would change, the changes against it, and whether the viewer may decide it.
  */
-export function presentPendingRevisions(pending: { revision: ResultRevision; result: Result }[], viewer: Actor) {
+export function presentPendingRevisions(pending: { revision: ResultRevision; result: Result }[], viewer: Actor, names: AbrasiveNames) {
   return pending.map(({ revision, result }) => ({
     kind: 'result-revision' as const,
     ...presentResultRevision(revision, { number: null, input: result.input }),
-    result: presentResult(result, viewer),
+    result: presentResult(result, viewer, names),
     can: { review: can(viewer, 'review:result', { authorId: revision.authorId, status: revision.status }) },
   }));
 }

@@ -1,7 +1,7 @@
 import type { Actor } from '@shared/permissions';
 import type { Flag, ImportBatch, PageRevision, Result } from '../models';
 import type { PageModel } from '../models/reference-pages';
-import { presentResult } from './result';
+import { presentResult, type AbrasiveNames } from './result';
 import { presentFlag } from './publishing';
 import { presentAccount } from './user';
 import { presentDeskRevision } from './pages';
@@ -9,8 +9,8 @@ import { NEAR_DUPLICATE_RULE, type CellPosition, type DeskCell, type OutlierHint
 import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
 
 /** The desk's result items: the presented result, marked as a result, with the import it came in. */
-export function presentDeskResults({ results, importOf }: { results: Result[]; importOf: Map<number, number> }, viewer: Actor) {
-  return results.map((r) => ({ kind: 'result' as const, ...presentResult(r, viewer), importId: importOf.get(r.id) ?? null }));
+export function presentDeskResults({ results, importOf }: { results: Result[]; importOf: Map<number, number> }, viewer: Actor, names: AbrasiveNames) {
+  return results.map((r) => ({ kind: 'result' as const, ...presentResult(r, viewer, names), importId: importOf.get(r.id) ?? null }));
 }
 
 /** Proposed page edits as `kind: 'page-revision'` items: the page, the author, the fields changed, whether the page moved on. */

@@ -33,6 +33,8 @@ export interface Lookups {
   methods: Map<number, MethodInfo>;
   methodBySlug: Map<string, MethodInfo>;
   abrasives: Map<number, AbrasiveInfo>;
+  /** Abrasive pages' names by slug (a result's progression steps name their abrasives by slug). */
+  abrasiveNames: ReadonlyMap<string, string>;
 }
 
 /** The pages, read once and kept until a page changes or cells do (a new page can only enter the comparison through an approved result). */
@@ -56,12 +58,18 @@ async function load(): Promise<Lookups> {
     methods: new Map(m.map((x) => [x.id, x])),
     methodBySlug: new Map(m.map((x) => [x.slug, x])),
     abrasives: new Map((abrasives as unknown as AbrasiveInfo[]).map((x) => [x.id, x])),
+    abrasiveNames: new Map((abrasives as unknown as AbrasiveInfo[]).map((x) => [x.slug, x.name])),
   };
 }
 
 /** The reference pages the comparison names, by id and slug. */
 export function lookups(): Promise<Lookups> {
   return kept.share('pages', load);
+}
+
+/** Abrasive pages' names by slug, kept with the look-ups (dropped when a page changes): what presentResult names progression steps with. */
+export async function abrasiveNames(): Promise<ReadonlyMap<string, string>> {
+  return (await lookups()).abrasiveNames;
 }
 
 /** Forgets the pages, so the next comparison reads them again (the bench's cold reads). */

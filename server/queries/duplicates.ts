@@ -1,5 +1,5 @@
 import { Op } from 'sequelize';
-import type { ResultInput } from '@shared/schemas/result';
+import type { ResultInput, ResultStatus } from '@shared/schemas/result';
 import type { GritStandard } from '@shared/grit';
 import { deriveResult } from '@shared/derive-result';
 import { Abrasive, Result, Steel } from '../models';
@@ -16,7 +16,7 @@ const sameReadings = (a: number[], b: number[]) => {
  * grit (after conversion), the same angle per side (to 0.05°) and the same readings in any
  * order. Rejected and withdrawn results are left out. Pointed out before submitting.
  */
-export async function findDuplicates(authorId: number, input: ResultInput): Promise<{ id: number; status: string; createdAt: Date }[]> {
+export async function findDuplicates(authorId: number, input: ResultInput): Promise<{ id: number; status: ResultStatus; createdAt: Date }[]> {
   const [steel, abrasive] = await Promise.all([Steel.findOne({ where: { slug: input.steel }, attributes: ['id'] }), Abrasive.findOne({ where: { slug: input.abrasive } })]);
   if (!steel || !abrasive) return [];
   const derived = deriveResult(input, { standard: abrasive.gritStandard as GritStandard, grade: abrasive.gritGrade });

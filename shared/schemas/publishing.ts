@@ -64,6 +64,10 @@ export const FLAG_REASONS = {
 } as const;
 export type FlagReason = keyof typeof FLAG_REASONS;
 
+/** States of a flag: open until a moderator upholds or dismisses it. */
+export const FLAG_STATUSES = ['open', 'upheld', 'dismissed'] as const;
+export type FlagStatus = (typeof FLAG_STATUSES)[number];
+
 /** A member's flag on an approved result (by id) or a page (by slug). */
 export const flagInputSchema = z
   .object({

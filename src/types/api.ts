@@ -57,7 +57,7 @@ export interface Result {
   hardness: { value: number; scale: HardnessScale; measured?: boolean };
   heatTreatment?: string | null;
   /** Steps before the final abrasive, with their derived µm (empty when none was recorded). */
-  progression: { abrasive: string; material: string; materialLabel: string; grit: { standard: GritStandard; grade: string }; gritUm: number; perSideDeg: number | null }[];
+  progression: { abrasive: string; abrasiveName: string; material: string; materialLabel: string; grit: { standard: GritStandard; grade: string }; gritUm: number; perSideDeg: number | null }[];
   abrasive: string;
   abrasiveName: string;
   abrasiveMaterial: string;

@@ -6,51 +6,26 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import type { Express } from 'express';
-import { Ajv2020 } from 'ajv/dist/2020.js';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
 import { registeredRoutes } from '../setup/registered-routes';
 import { openApiPath, type OpenApiDocument } from '../../server/openapi/document';
+import { documentChecks, type Operation } from '../setup/openapi-validate';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let doc: OpenApiDocument;
+let validatorFor: ReturnType<typeof documentChecks>['validatorFor'];
+let expectDocumented: ReturnType<typeof documentChecks>['expectDocumented'];
 beforeAll(async () => {
   server = await startTestServer();
   doc = (await request(server.url).get('/api/v1/openapi.json').expect(200).expect('Content-Type', /json/)).body as OpenApiDocument;
+  ({ validatorFor, expectDocumented } = documentChecks(doc));
 });
 afterAll(async () => {
   await server?.stop();
 });
 
 const appOf = () => server.server.listeners('request')[0] as unknown as Express;
-type Operation = { responses: Record<string, { $ref?: string; content?: Record<string, { schema: object }> }>; requestBody?: { content: Record<string, { schema: object; example?: unknown }> }; parameters?: { name: string; in: string }[] };
 const operations = () => Object.entries(doc.paths).flatMap(([path, ops]) => Object.entries(ops).map(([method, op]) => ({ path, method, op: op as unknown as Operation })));
-
-/** ajv over the document's components: schemas refer to each other as #/components/schemas/X. */
-let ajv: Ajv2020 | null = null;
-function validatorFor(schema: object) {
-  if (!ajv) {
-    ajv = new Ajv2020({ strict: false, validateFormats: false, allErrors: true });
-    ajv.addSchema({ $id: 'openapi.json', components: doc.components });
-  }
-  return ajv.compile(JSON.parse(JSON.stringify(schema).replaceAll('"#/components/', '"openapi.json#/components/')) as object);
-}
-
-/** The schema of an operation's answer with `status` (JSON), followed through a $ref to components.responses. */
-function responseSchema(method: string, path: string, status: number): object {
-  const op = (doc.paths as Record<string, Record<string, Operation>>)[path]?.[method];
-  if (!op) throw new Error(`${method.toUpperCase()} ${path} is not in the document`);
-  let response = op.responses[String(status)];
-  if (!response) throw new Error(`${method.toUpperCase()} ${path} documents no ${status}`);
-  if (response.$ref) response = (doc.components.responses as Record<string, typeof response>)[response.$ref.split('/').pop()!];
-  return response.content!['application/json'].schema;
-}
-
-/** Checks a real answer against the document; fails naming the fields at fault. */
-function expectDocumented(method: string, path: string, res: { status: number; body: unknown }) {
-  const validate = validatorFor(responseSchema(method, path, res.status));
-  const ok = validate(res.body);
-  expect(ok ? [] : validate.errors, `${method.toUpperCase()} ${path} → ${res.status} against the document`).toEqual([]);
-}
 
 describe('the OpenAPI document', () => {
   it('is OpenAPI 3.1 with the security schemes of the session (cookie + X-CSRF-Token) and of API tokens', () => {

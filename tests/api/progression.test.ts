@@ -5,7 +5,9 @@ import { IMPORT_COLUMNS } from '../../shared/csv';
 import { toCsv } from '../../shared/csv-writer';
 import { parseGrit } from '../../shared/grit';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
+import { Op } from 'sequelize';
 import { Abrasive, Result } from '../../server/models';
+import { ChangeRow } from '../../server/changes/change-row';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let member: Awaited<ReturnType<typeof signIn>>;
@@ -114,5 +116,27 @@ describe('a result’s progression', () => {
     expect(sum(await view('steps=1,2'))).toBe(approved.filter((r) => [1, 2].includes(steps(r).length)).length);
     await request(server.url).get('/api/compare?steps=9').expect(400);
     await request(server.url).get('/api/compare?via=granite').expect(400);
+  });
+  it('names each step’s abrasive, and a renamed abrasive reaches the steps at once (its page change drops the kept look-ups)', async () => {
+    const moderator = await signIn(server.url, await demoHandle(server.url, 'moderator'));
+    const posted = await post(input([{ abrasive: COARSE }, { abrasive: CBN }])).expect(201);
+    const [coarse, cbn] = await Promise.all([Abrasive.findOne({ where: { slug: COARSE } }), Abrasive.findOne({ where: { slug: CBN } })]);
+    expect(posted.body.progression.map((s: { abrasiveName: string }) => s.abrasiveName)).toEqual([coarse!.name, cbn!.name]);
+    await moderator.agent.post(`/api/v1/results/${posted.body.id}/review`).set('X-CSRF-Token', moderator.csrf).send({ decision: 'approve' }).expect(200);
+    const stepNames = async () => {
+      const one = await request(server.url).get(`/api/v1/results/${posted.body.id}`).expect(200);
+      const list = await request(server.url).get(`/api/v1/results?steel=aisi-d2&status=approved`).expect(200);
+      const listed = list.body.items.find((r: { id: number }) => r.id === posted.body.id);
+      return [one.body.progression[0].abrasiveName, listed.progression[0].abrasiveName];
+    };
+    expect(await stepNames()).toEqual([coarse!.name, coarse!.name]);
+
+    // The rename, as a write through the app's write path: the feed records it as a page change (renamed).
+    const renamed = `${coarse!.name} (renamed, invented)`;
+    const since = (await ChangeRow.max('id')) as number;
+    await server.ctx.db.write((transaction) => coarse!.update({ name: renamed }, { transaction }));
+    const rows = await ChangeRow.findAll({ where: { id: { [Op.gt]: since } } });
+    expect(rows.map((r) => r.kind)).toEqual(['page']);
+    expect(await stepNames()).toEqual([renamed, renamed]);
   });
 });

@@ -1,5 +1,6 @@
 import { Router, type RequestHandler } from 'express';
 import { searchQuerySchema } from '@shared/schemas/result';
+import { healthSchema, type Presented } from '@shared/schemas/responses';
 import type { AppContext } from '../../context';
 import { csrfProtection, csrfTokenOf } from '../../middleware/auth';
 import { route } from '../../middleware/validate';
@@ -42,7 +43,7 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
   router.use(csrfProtection);
 
   router.get('/health', route({ query: emptyQuerySchema }, (_req, res) => {
-    res.json({ ok: true, searchDocuments: ctx.search.size, pendingWrites: ctx.db.queue.size, answerCache: answers.stats(), eventLoop: eventLoopStalls() });
+    res.json({ ok: true, searchDocuments: ctx.search.size, pendingWrites: ctx.db.queue.size, answerCache: answers.stats(), eventLoop: eventLoopStalls() } satisfies Presented<typeof healthSchema>);
   }));
 
   router.get('/session', route({ query: emptyQuerySchema }, (req, res) => {

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { can } from '@shared/permissions';
 import { adminUserChangeSchema, adminUsersQuerySchema, handleParamsSchema } from '@shared/schemas/admin';
+import { managedAccountChangeSchema, type Presented } from '@shared/schemas/responses';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
 import { route } from '../../../middleware/validate';
@@ -23,7 +24,7 @@ export function adminRouter(ctx: AppContext): Router {
   router.patch('/admin/users/:handle', requireUser, route({ params: handleParamsSchema, body: adminUserChangeSchema }, async (req, res) => {
     const { handle } = req.valid.params;
     const user = await manageUser(ctx, actorOf(req)!, handle, req.valid.body);
-    res.json({ ...presentAccount(user), banned: user.banned });
+    res.json({ ...presentAccount(user), banned: user.banned } satisfies Presented<typeof managedAccountChangeSchema>);
   }));
 
   return router;

@@ -11,6 +11,7 @@ import { route } from '../../../middleware/validate';
 import { actorOf } from '../../../middleware/auth';
 import type { AnswerCache } from '../../../middleware/answer-cache';
 import { compareBody, compareExport } from '../../../queries/compare';
+import { abrasiveNames } from '../../../queries/compare-lookups';
 import { compareCell } from '../../../queries/compare-cell';
 import { comparePaired } from '../../../queries/compare-paired';
 import { compareDifference } from '../../../queries/compare-difference';
@@ -52,7 +53,8 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
   router.get('/compare/cell', route({ query: compareCellQuerySchema }, async (req, res) => {
     const { results, ...cell } = await compareCell(req.valid.query);
     const viewer = actorOf(req);
-    setPageLinks(req, res, cell).json({ ...cell, items: results.map((r) => presentResult(r, viewer)) });
+    const names = await abrasiveNames();
+    setPageLinks(req, res, cell).json({ ...cell, items: results.map((r) => presentResult(r, viewer, names)) });
   }));
 
   router.get('/compare/paired', route({ query: comparePairedQuerySchema }, async (req, res) => {

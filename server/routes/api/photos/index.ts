@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { can } from '@shared/permissions';
 import { photoFieldsSchema, photoLimits } from '@shared/schemas/publishing';
+import { photoListSchema, type Presented } from '@shared/schemas/responses';
 import { idParams } from '@shared/schemas/common';
 import type { AppContext } from '../../../context';
 import { actorOf, requireUser } from '../../../middleware/auth';
@@ -44,7 +45,7 @@ export function photosRouter(ctx: AppContext): Router {
     const result = await resultForPhotos(id);
     if (!result || !can(actorOf(req), 'read:result', { authorId: result.authorId, status: result.status })) throw notFound('Result');
     const photos = await photosOf(id);
-    res.json({ items: photos.map(presentPhoto), max: photoLimits.perResult, canAdd: can(actorOf(req), 'upload:photo', { authorId: result.authorId, status: result.status }) });
+    res.json({ items: photos.map(presentPhoto), max: photoLimits.perResult, canAdd: can(actorOf(req), 'upload:photo', { authorId: result.authorId, status: result.status }) } satisfies Presented<typeof photoListSchema>);
   }));
 
   for (const variant of ['image', 'thumb'] as const) {

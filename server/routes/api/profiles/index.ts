@@ -4,6 +4,7 @@ import { actorOf } from '../../../middleware/auth';
 import { route } from '../../../middleware/validate';
 import { notFound } from '../../../errors';
 import { memberByHandle } from '../../../queries/accounts';
+import { abrasiveNames } from '../../../queries/compare-lookups';
 import { publicProfile, resultsForExport } from '../../../queries/profiles';
 import { resultsCsv } from '../../../presenters/result-csv';
 import { presentProfile } from '../../../presenters/profile';
@@ -14,7 +15,7 @@ export function profilesRouter(): Router {
 
   router.get('/profiles/:handle', route({ params: handleParams }, async (req, res) => {
     const { handle } = req.valid.params;
-    res.json(presentProfile(await publicProfile(handle), actorOf(req)));
+    res.json(presentProfile(await publicProfile(handle), actorOf(req), await abrasiveNames()));
   }));
 
   router.get('/profiles/:handle/results.csv', route({ params: handleParams }, async (req, res) => {

@@ -19,6 +19,7 @@ import { siteSettings } from '../../../queries/site-settings';
 import { badgeOf } from '../../../queries/profiles';
 import { presentApplication } from '../../../presenters/publishing';
 import { presentAccount } from '../../../presenters/user';
+import { publisherListSchema, siteSettingsAnswerSchema, type Presented } from '@shared/schemas/responses';
 
 
 /** Publishers: the public list, applications and their decisions, and the publishing settings (admin). */
@@ -27,7 +28,7 @@ export function publishersRouter(ctx: AppContext): Router {
 
   router.get('/publishers', route({ query: emptyQuerySchema }, async (_req, res) => {
     const users = await publishers();
-    res.json({ items: await Promise.all(users.map(async (u) => ({ ...presentAccount(u), badge: await badgeOf(u) }))) });
+    res.json({ items: await Promise.all(users.map(async (u) => ({ ...presentAccount(u), badge: await badgeOf(u) }))) } satisfies Presented<typeof publisherListSchema>);
   }));
 
   router.post('/publishers/applications', requireUser, route({ body: publisherApplicationSchema }, async (req, res) => {
@@ -50,11 +51,11 @@ export function publishersRouter(ctx: AppContext): Router {
 
   router.get('/publishers/settings', requireUser, route({ query: emptyQuerySchema }, async (req, res) => {
     if (!can(actorOf(req), 'manage:site-settings')) throw forbidden('Site settings are for admins.');
-    res.json(await siteSettings());
+    res.json((await siteSettings()) satisfies Presented<typeof siteSettingsAnswerSchema>);
   }));
 
   router.put('/publishers/settings', requireUser, route({ body: siteSettingsChangeSchema }, async (req, res) => {
-    res.json(await updateSiteSettings(ctx, actorOf(req)!, req.valid.body));
+    res.json((await updateSiteSettings(ctx, actorOf(req)!, req.valid.body)) satisfies Presented<typeof siteSettingsAnswerSchema>);
   }));
 
   return router;

@@ -10,6 +10,7 @@ import { createToken } from '../../../commands/create-token';
 import { revokeToken } from '../../../commands/revoke-token';
 import { presentToken } from '../../../presenters/publishing';
 import { emptyQuerySchema, idParams } from '@shared/schemas/common';
+import { createdTokenSchema, type Presented } from '@shared/schemas/responses';
 
 
 /** Token management needs the signed-in session: a leaked token must not mint or hide others. */
@@ -32,7 +33,7 @@ export function tokensRouter(ctx: AppContext): Router {
     requireSessionPublisher(req);
     const { name } = req.valid.body;
     const { record, token } = await createToken(ctx, actorOf(req)!, name);
-    res.status(201).set('Cache-Control', 'no-store').json({ ...presentToken(record), token });
+    res.status(201).set('Cache-Control', 'no-store').json({ ...presentToken(record), token } satisfies Presented<typeof createdTokenSchema>);
   }));
 
   router.delete('/tokens/:id', requireUser, route({ params: idParams }, async (req, res) => {

@@ -11,6 +11,14 @@ import {
   sideAngleToolQuerySchema,
   wearDriftQuerySchema,
 } from '@shared/schemas/tools';
+import {
+  edgeAngleAnswerSchema,
+  gritToolAnswerSchema,
+  hardnessToolAnswerSchema,
+  retentionToolAnswerSchema,
+  wearDriftAnswerSchema,
+  type Presented,
+} from '@shared/schemas/responses';
 import { route } from '../../../middleware/validate';
 
 /**
@@ -30,32 +38,32 @@ export function toolsRouter(): Router {
       micrometres: parsed.micrometres,
       band: gritBand(parsed.micrometres, q.step === '0.5' ? 0.5 : 1),
       nearest: nearestGrades(parsed.micrometres),
-    });
+    } satisfies Presented<typeof gritToolAnswerSchema>);
   }));
 
   router.get('/tools/hardness', route({ query: hardnessToolQuerySchema }, (req, res) => {
     const q = req.valid.query;
-    res.json(convertHardness(q.value, q.scale));
+    res.json(convertHardness(q.value, q.scale) satisfies Presented<typeof hardnessToolAnswerSchema>);
   }));
 
   router.get('/tools/angle', route({ query: angleToolQuerySchema }, (req, res) => {
     const q = req.valid.query;
     const { gapMm, perSideDeg, ...setup } = q;
-    res.json(gapMm !== undefined ? angleFromSetup({ ...setup, gapMm }) : gapForAngle({ ...setup, perSideDeg: perSideDeg! }));
+    res.json((gapMm !== undefined ? angleFromSetup({ ...setup, gapMm }) : gapForAngle({ ...setup, perSideDeg: perSideDeg! })) satisfies Presented<typeof edgeAngleAnswerSchema>);
   }));
 
   router.get('/tools/side-angle', route({ query: sideAngleToolQuerySchema }, (req, res) => {
     const { gapMm, perSideDeg, ...setup } = req.valid.query;
-    res.json(gapMm !== undefined ? sideAngleFromSetup({ ...setup, gapMm }) : sideGapForAngle({ ...setup, perSideDeg: perSideDeg! }));
+    res.json((gapMm !== undefined ? sideAngleFromSetup({ ...setup, gapMm }) : sideGapForAngle({ ...setup, perSideDeg: perSideDeg! })) satisfies Presented<typeof edgeAngleAnswerSchema>);
   }));
 
   router.get('/tools/wear-drift', route({ query: wearDriftQuerySchema }, (req, res) => {
-    res.json(wearDrift(req.valid.query));
+    res.json(wearDrift(req.valid.query) satisfies Presented<typeof wearDriftAnswerSchema>);
   }));
 
   router.post('/tools/retention', route({ body: retentionToolBodySchema }, (req, res) => {
     const r = cardCutRetention(req.valid.body.cutsMm);
-    res.json({ icpMm: r.icpMm, tccMm: r.tccMm, cycles: r.cycles, limits: r.limits, icpPass: r.icpPass, tccPass: r.tccPass });
+    res.json({ icpMm: r.icpMm, tccMm: r.tccMm, cycles: r.cycles, limits: r.limits, icpPass: r.icpPass, tccPass: r.tccPass } satisfies Presented<typeof retentionToolAnswerSchema>);
   }));
 
   return router;

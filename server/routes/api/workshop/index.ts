@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { emptyQuerySchema, idParams } from '@shared/schemas/common';
+import { doneSchema, priceSummarySchema, type Presented } from '@shared/schemas/responses';
 import {
   grinderInputSchema,
   jigInputSchema,
@@ -56,12 +57,12 @@ export function workshopRouter(ctx: AppContext): Router {
     const { abrasive: slug } = req.valid.query;
     const abrasive = await abrasiveBySlug(slug);
     if (!abrasive) throw notFound('Abrasive');
-    res.json({ abrasive: abrasive.slug, groups: await priceSummary(abrasive.id) });
+    res.json({ abrasive: abrasive.slug, groups: await priceSummary(abrasive.id) } satisfies Presented<typeof priceSummarySchema>);
   }));
 
   router.post('/price-reports', requireUser, route({ body: priceReportInputSchema }, async (req, res) => {
     await reportPrice(ctx, actorOf(req)!, req.valid.body);
-    res.status(201).json({ ok: true });
+    res.status(201).json({ ok: true } satisfies Presented<typeof doneSchema>);
   }));
 
   return router;

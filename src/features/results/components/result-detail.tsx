@@ -1,11 +1,9 @@
 import type { ReactNode } from 'react';
-import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { GRIT_STANDARD_SHORT_LABELS } from '@shared/grit';
 import { ABRASIVE_MATERIALS, BONDS, STATUS_LABELS } from '@shared/vocabulary';
 import { paths } from '@/config/paths';
 import { formatLength, useLengthUnit } from '@/lib/lengths';
-import { abrasivesQueryOptions } from '@/features/abrasives/api/get-abrasives';
 import { Badge } from '@/components/ui/badge';
 import { ServerHtml } from '@/components/ui/server-html';
 import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
@@ -55,9 +53,6 @@ export function ResultDetail({
   const H = headingLevel === 2 ? 'h2' : 'h3';
   const angle = result.edgeAngle;
   const [unit] = useLengthUnit();
-  // A progression's steps carry their abrasives' slugs; their names come from the (long-kept) list.
-  const abrasives = useQuery({ ...abrasivesQueryOptions(), enabled: !!result.progression?.length });
-  const abrasiveName = (slug: string) => abrasives.data?.items.find((a) => a.slug === slug)?.name ?? slug;
   const reviewNote =
     result.review?.note && (result.status === 'returned' || result.status === 'rejected') ? result.review : null;
 
@@ -104,7 +99,7 @@ export function ResultDetail({
               <ol className="list-decimal pl-5">
                 {result.progression.map((s, i) => (
                   <li key={i}>
-                    <Link to={paths.abrasive.getHref(s.abrasive)}>{abrasiveName(s.abrasive)}</Link>
+                    <Link to={paths.abrasive.getHref(s.abrasive)}>{s.abrasiveName}</Link>
                     <span className="text-muted">
                       {' '}
                       · {s.materialLabel}, {s.grit.grade} (≈ {formatMicrometres(s.gritUm)} µm){s.perSideDeg !== null ? `, ${formatNumber(s.perSideDeg, 1)}° per side` : ''}
