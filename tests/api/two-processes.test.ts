@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import request from 'supertest';
-import { copyBaseDatabase, demoHandle, signIn, testRateLimits } from '../setup/test-server';
+import { copyBaseDatabase, demoHandle, onCluster, signIn, testRateLimits } from '../setup/test-server';
 import { eventually, startServerProcess, type ServerProcess } from '../setup/server-process';
 import { Database } from '../../server/db/database';
 import { Steel } from '../../server/models';
@@ -282,5 +282,23 @@ describe.runIf(clusterUrl)('a process that starts after changes made through ano
     await eventually('C shows the rename made after its start', async () => (await steelOn(c.url, 'aisi-o1')).name === 'Latestartcheck O1');
     expect(await counts(c.url)).toEqual(atStart);
     expect(await counts(c.url)).toEqual(await counts(a.url));
+  }, 200_000);
+});
+
+describe.runIf(clusterUrl)('two processes started at the same moment on an empty PostgreSQL database', () => {
+  it('both start: one migrates while the other waits, then finds nothing left to apply', async () => {
+    const name = `edgeledger_empty_${process.pid}`;
+    await onCluster(clusterUrl!, `CREATE DATABASE "${name}"`);
+    const dirs = [0, 1].map(() => fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-empty-')));
+    const env = { LOG_LEVEL: 'error', ...testRateLimits, DATABASE_URL: `${clusterUrl}${name}` };
+    const started = await Promise.allSettled(dirs.map((dir) => startServerProcess({ ...env, DATA_DIR: dir })));
+    try {
+      for (const s of started) expect(s.status, s.status === 'rejected' ? String(s.reason) : '').toBe('fulfilled');
+      for (const s of started) if (s.status === 'fulfilled') await request(s.value.url).get('/api/health').expect(200);
+    } finally {
+      for (const s of started) if (s.status === 'fulfilled') await s.value.stop();
+      await onCluster(clusterUrl!, `DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+      for (const dir of dirs) fs.rmSync(dir, { recursive: true, force: true });
+    }
   }, 200_000);
 });
