@@ -33,8 +33,10 @@
  * results). BENCH_PROCS=N (PostgreSQL only; default 1) starts N server processes on that
  * database and spreads the connections over them in turn (autocannon gives connection i the
  * address i mod N; the one-connection search phase therefore reaches the first process only);
- * rates, CPU, cache hits and stalls are the sum over the processes, health waits the first's. A phase whose answers are mostly not 2xx is reported as FAILED
- * with one such answer, and the bench exits 1. Figures describe this machine at this moment;
+ * rates, CPU, cache hits and stalls are the sum over the processes, health waits the first's.
+ *
+ * A phase whose answers are mostly not 2xx is reported as FAILED with one such answer, and the
+ * bench exits 1. Figures describe this machine at this moment;
  * they are never assertions.
  */
 import fs from 'node:fs';
@@ -479,11 +481,12 @@ const figures: Figure[] = [];
 const servers: { cache: 'on' | 'off'; process: number; bootS: number; rssMb: number }[] = [];
 say(`${DIALECT === 'postgres' ? 'PostgreSQL' : 'SQLite'}, ${PROCS} server process${PROCS > 1 ? 'es' : ''}.`);
 for (const cache of CACHES) {
+  bases = Array.from({ length: PROCS }, (_, i) => `http://${HOST}:${PORTS.server(cache, i)}`);
+  base = bases[0];
   const procs: ChildProcess[] = [];
   const boots: number[] = [];
   // One after the other: each process builds its read models and search index from the tables at start.
-  for (let i = 0; i < PROCS; i++) {
-    const url = `http://${HOST}:${PORTS.server(cache, i)}`;
+  for (const [i, url] of bases.entries()) {
     const server = startServer(bundle, cache, oauthUrl, i);
     const bootStart = performance.now();
     await Promise.race([
@@ -498,8 +501,6 @@ for (const cache of CACHES) {
     procs.push(server);
     say(`Production server ${i + 1} of ${PROCS} (answer cache ${cache}) ready at ${url} in ${boots[i]} s (pid ${server.pid}, RSS ${rssMb(server.pid!)} MB).`);
   }
-  bases = procs.map((_, i) => `http://${HOST}:${PORTS.server(cache, i)}`);
-  base = bases[0];
   serverPids = procs.map((p) => p.pid!);
   const sessions = await Promise.all(Array.from({ length: 16 }, () => signIn()));
   const t = traffic(await vocabulary(base), sessions);

@@ -6,7 +6,8 @@ import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import { copyBaseDatabase, testRateLimits } from '../setup/test-server';
-import { startServerProcess, type ServerProcess } from '../setup/server-process';
+import { signingInThrough, startServerProcess, type ServerProcess } from '../setup/server-process';
+import { CHROMIUM, CHROMIUM_ARGS } from '../setup/e2e-app';
 
 /**
  * With TEST_DATABASE=postgres (`npm run test:postgres`), as an operator runs it: two server
@@ -17,9 +18,6 @@ import { startServerProcess, type ServerProcess } from '../setup/server-process'
  * serve any request. Builds nothing: `dist/` must exist (`npx vite build`).
  */
 const clusterUrl = inject('postgresUrl');
-const CHROMIUM = '/usr/bin/chromium';
-// Without the background-networking flags Chromium keeps dialling out on a closed network.
-const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
 /** A round-robin proxy in front of `targets`: request i goes to target i mod n; `served` counts each target's requests. */
 function roundRobin(targets: string[]): Promise<{ url: string; served: number[]; close: () => Promise<void> }> {
@@ -76,7 +74,7 @@ describe.runIf(clusterUrl)('a member’s and a moderator’s journeys through tw
     database = await copyBaseDatabase(first);
     const env = { LOG_LEVEL: 'error', ...testRateLimits, ...database.env };
     a = await startServerProcess({ ...env, DATA_DIR: first });
-    b = await startServerProcess({ ...env, DATA_DIR: dataDir(), OAUTH_AUTHORIZE_URL: `${a.oauthUrl}/authorize`, OAUTH_TOKEN_URL: `${a.oauthUrl}/token`, OAUTH_USERINFO_URL: `${a.oauthUrl}/userinfo` });
+    b = await startServerProcess({ ...env, DATA_DIR: dataDir(), ...signingInThrough(a) });
     proxy = await roundRobin([a.url, b.url]);
     context = await chromium.launchPersistentContext(dataDir(), { executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 1280, height: 900 } });
     page = context.pages()[0] ?? (await context.newPage());

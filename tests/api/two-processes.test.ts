@@ -4,7 +4,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import request from 'supertest';
 import { copyBaseDatabase, demoHandle, onCluster, signIn, testRateLimits } from '../setup/test-server';
-import { eventually, startServerProcess, type ServerProcess } from '../setup/server-process';
+import { eventually, signingInThrough, startServerProcess, type ServerProcess } from '../setup/server-process';
 import { Database } from '../../server/db/database';
 import { Steel } from '../../server/models';
 
@@ -57,13 +57,7 @@ describe.runIf(clusterUrl)('two server processes on one PostgreSQL database', ()
     database = await copyBaseDatabase(first);
     const env = { LOG_LEVEL: 'error', ...testRateLimits, RATE_LIMIT_UPLOADS_PER_MIN: String(UPLOADS_PER_MIN), ...database.env };
     a = await startServerProcess({ ...env, DATA_DIR: first });
-    b = await startServerProcess({
-      ...env,
-      DATA_DIR: dataDir(),
-      OAUTH_AUTHORIZE_URL: `${a.oauthUrl}/authorize`,
-      OAUTH_TOKEN_URL: `${a.oauthUrl}/token`,
-      OAUTH_USERINFO_URL: `${a.oauthUrl}/userinfo`,
-    });
+    b = await startServerProcess({ ...env, DATA_DIR: dataDir(), ...signingInThrough(a) });
   }, 200_000);
   afterAll(async () => {
     await b?.stop();
@@ -204,7 +198,7 @@ describe.runIf(clusterUrl)('a process that starts after changes made through ano
   const startAnother = async () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-late-'));
     dirs.push(dir);
-    const started = await startServerProcess({ ...env, DATA_DIR: dir, OAUTH_AUTHORIZE_URL: `${a.oauthUrl}/authorize`, OAUTH_TOKEN_URL: `${a.oauthUrl}/token`, OAUTH_USERINFO_URL: `${a.oauthUrl}/userinfo` });
+    const started = await startServerProcess({ ...env, DATA_DIR: dir, ...signingInThrough(a) });
     late.push(started);
     return started;
   };
