@@ -25,8 +25,18 @@
  * visitors, members, search, mix, comma-separated: only those), BENCH_CACHE=on|off (only that
  * server), BENCH_PROFILE=<dir> (the server writes a CPU profile there when it stops; summarise
  * it with `npx tsx bench/profile-summary.ts <file>`). Ports BENCH_PORT (default 3701) to
- * BENCH_PORT + 5 on 127.0.0.1. A phase whose answers are mostly not 2xx is reported as FAILED
- * with one such answer, and the bench exits 1. Figures describe this machine at this moment;
+ * BENCH_PORT + 3 + 2 × BENCH_PROCS on 127.0.0.1.
+ *
+ * PostgreSQL: BENCH_DATABASE=postgres starts a throwaway cluster (as the tests do: never as root,
+ * on BENCH_PG_PORT or a free port), builds the data there and removes it at the end; or
+ * DATABASE_URL=postgres://… names a database to build into (kept; reused when it already holds
+ * results). BENCH_PROCS=N (PostgreSQL only; default 1) starts N server processes on that
+ * database and spreads the connections over them in turn (autocannon gives connection i the
+ * address i mod N; the one-connection search phase therefore reaches the first process only);
+ * rates, CPU, cache hits and stalls are the sum over the processes, health waits the first's.
+ *
+ * A phase whose answers are mostly not 2xx is reported as FAILED with one such answer, and the
+ * bench exits 1. Figures describe this machine at this moment;
  * they are never assertions.
  */
 import fs from 'node:fs';
@@ -41,6 +51,7 @@ import { Result, ResultEvent, User } from '../server/models';
 import { rebuildAllCells } from '../server/aggregates/comparison-cells';
 import { buildServer, serverNodeFlags } from '../scripts/build-server';
 import { LocalOAuthProvider } from '../server/auth/local-provider';
+import { startCluster, type Cluster } from '../tests/setup/postgres-cluster';
 import { rand, traffic, vocabulary, type Req } from './traffic';
 
 const TOTAL = Number(process.env.BENCH_RESULTS ?? 100_000);
@@ -52,11 +63,18 @@ for (const p of ONLY) if (!(ALL_PHASES as readonly string[]).includes(p)) throw 
 const CACHES = (process.env.BENCH_CACHE ? [process.env.BENCH_CACHE] : ['on', 'off']) as ('on' | 'off')[];
 for (const c of CACHES) if (c !== 'on' && c !== 'off') throw new Error(`BENCH_CACHE must be on or off (got "${c}")`);
 const PROFILE = process.env.BENCH_PROFILE ? path.resolve(process.env.BENCH_PROFILE) : null;
-// The server with the answer cache off listens on its own port: the first one's may still be closing.
+const DIALECT = process.env.DATABASE_URL ? 'postgres' : (process.env.BENCH_DATABASE ?? 'sqlite');
+if (DIALECT !== 'sqlite' && DIALECT !== 'postgres') throw new Error(`BENCH_DATABASE must be sqlite or postgres (got "${DIALECT}")`);
+const PROCS = Number(process.env.BENCH_PROCS ?? 1);
+if (!Number.isInteger(PROCS) || PROCS < 1) throw new Error(`BENCH_PROCS must be a whole number from 1 (got "${process.env.BENCH_PROCS}")`);
+if (PROCS > 1 && DIALECT === 'sqlite') throw new Error('BENCH_PROCS > 1 needs PostgreSQL (BENCH_DATABASE=postgres or DATABASE_URL): one process owns a SQLite file');
 const PORT = Number(process.env.BENCH_PORT ?? 3701);
-const PORTS = { http: PORT, oauth: PORT + 1, smtp: PORT + 2, s3: PORT + 3, hello: PORT + 4, httpCacheOff: PORT + 5 };
+// The servers with the answer cache off listen on ports of their own: the first ones' may still be closing.
+const PORTS = { oauth: PORT, smtp: PORT + 1, s3: PORT + 2, hello: PORT + 3, server: (cache: 'on' | 'off', i: number) => PORT + 4 + (cache === 'on' ? 0 : PROCS) + i };
 const HOST = '127.0.0.1';
-let base = `http://${HOST}:${PORTS.http}`;
+/** The first server process's address (sign-in, vocabulary, health checks); `bases` all of them. */
+let base = '';
+let bases: string[] = [];
 const started = performance.now();
 const seconds = () => Math.round((performance.now() - started) / 100) / 10;
 const say = (line: string) => console.log(`[${seconds()} s] ${line}`);
@@ -65,18 +83,30 @@ const root = process.env.BENCH_KEEP ? path.resolve(process.env.BENCH_KEEP) : fs.
 fs.mkdirSync(root, { recursive: true });
 const file = path.join(root, 'edgeledger.sqlite');
 const children: ChildProcess[] = [];
+let cluster: Cluster | null = null;
 process.on('exit', () => {
   for (const c of children) if (c.exitCode === null) c.kill('SIGKILL');
+  cluster?.stop();
   if (process.env.BENCH_KEEP) console.log(`Kept ${root}`);
   else fs.rmSync(root, { recursive: true, force: true });
 });
+// Interrupted: still stop the servers and the throwaway cluster (the handler above).
+for (const signal of ['SIGINT', 'SIGTERM'] as const) process.once(signal, () => process.exit(130));
+if (DIALECT === 'postgres' && !process.env.DATABASE_URL) {
+  cluster = await startCluster(process.env.BENCH_PG_PORT ? Number(process.env.BENCH_PG_PORT) : undefined);
+  const admin = new Database({ storage: '', url: `${cluster.url}postgres` });
+  await admin.sequelize.query('CREATE DATABASE edgeledger_bench');
+  await admin.close();
+}
+const databaseUrl = process.env.DATABASE_URL ?? (cluster ? `${cluster.url}edgeledger_bench` : undefined);
+const openDatabase = () => new Database({ storage: file, url: databaseUrl });
 
 // ---------------------------------------------------------------------------------------------
 // The database
 // ---------------------------------------------------------------------------------------------
 
 async function buildDatabase() {
-  const db = new Database({ storage: file });
+  const db = openDatabase();
   await db.migrate();
   await loadDemoData(db);
   // Plain values, not raw rows: a raw row holds the JSON columns (input, progression) as the
@@ -117,19 +147,32 @@ async function buildDatabase() {
     say(`  ${made} approved results`);
   }
   const cells = await rebuildAllCells(db);
-  await db.sequelize.query('PRAGMA wal_checkpoint(TRUNCATE)');
+  if (db.isSqlite) await db.sequelize.query('PRAGMA wal_checkpoint(TRUNCATE)');
   await db.close();
   return { cells };
 }
 
 /** The OAuth subject of the first member, whom the bench's provider signs in. */
-function firstMemberSubject(): Promise<string> {
-  return new Promise((resolve, reject) => {
-    const db = new sqlite3.Database(file, sqlite3.OPEN_READONLY, (err) => {
-      if (err) return reject(err);
-      db.get("SELECT oauthSubject FROM users WHERE role = 'member' AND banned = 0 ORDER BY id LIMIT 1", (e, row: { oauthSubject: string }) => db.close(() => (e ? reject(e) : resolve(row.oauthSubject))));
-    });
-  });
+async function firstMemberSubject(): Promise<string> {
+  const db = openDatabase();
+  try {
+    const member = await User.findOne({ where: { role: 'member', banned: false }, order: [['id', 'ASC']] });
+    return member!.oauthSubject;
+  } finally {
+    await db.close();
+  }
+}
+
+/** How many results the database holds (0 when it has no tables yet). */
+async function countResults(): Promise<number> {
+  if (!databaseUrl && !fs.existsSync(file)) return 0;
+  const db = openDatabase();
+  try {
+    await db.migrate();
+    return await Result.count();
+  } finally {
+    await db.close();
+  }
 }
 
 /**
@@ -156,15 +199,6 @@ function repairDoubleEncodedJson(): Promise<number> {
   });
 }
 
-function countResults(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const db = new sqlite3.Database(file, sqlite3.OPEN_READONLY, (err) => {
-      if (err) return reject(err);
-      db.get('SELECT count(*) AS n FROM results', (e, row: { n: number }) => db.close(() => (e ? reject(e) : resolve(row.n))));
-    });
-  });
-}
-
 // ---------------------------------------------------------------------------------------------
 // Servers
 // ---------------------------------------------------------------------------------------------
@@ -183,8 +217,13 @@ async function waitFor(url: string, timeoutMs: number) {
   }
 }
 
-function startServer(bundle: string, answerCache: 'on' | 'off', oauthUrl: string, port: number): ChildProcess {
-  const log = fs.openSync(path.join(root, 'server.log'), 'a');
+/** Each process's log and, with PROCS > 1, its own DATA_DIR (on SQLite the file's folder). */
+const dataDirOf = (i: number) => (PROCS > 1 ? path.join(root, `process-${i + 1}`) : root);
+
+function startServer(bundle: string, answerCache: 'on' | 'off', oauthUrl: string, i: number): ChildProcess {
+  const dataDir = dataDirOf(i);
+  fs.mkdirSync(dataDir, { recursive: true });
+  const log = fs.openSync(path.join(dataDir, 'server.log'), 'a');
   const profile = PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE}`] : [];
   const proc = spawn(process.execPath, [...serverNodeFlags(), ...profile, bundle], {
     env: {
@@ -206,8 +245,9 @@ function startServer(bundle: string, answerCache: 'on' | 'off', oauthUrl: string
       S3_ACCESS_KEY: 'bench-access-key',
       S3_SECRET_KEY: 'bench-secret-key',
       HOST,
-      PORT: String(port),
-      DATA_DIR: root,
+      PORT: String(PORTS.server(answerCache, i)),
+      DATA_DIR: dataDir,
+      ...(databaseUrl ? { DATABASE_URL: databaseUrl } : {}),
       SEED_DEMO: 'never',
       ANSWER_CACHE: answerCache,
       LOG_LEVEL: 'info',
@@ -277,8 +317,8 @@ interface Run {
   statusCodes: Record<string, number>;
 }
 
-/** Drives `url` with autocannon; each request from `next()` when given; every response's time kept. */
-async function drive(url: string, seconds: number, connections: number, next?: () => Req): Promise<Run> {
+/** Drives `url` (several: connection i asks url i mod n) with autocannon; each request from `next()` when given; every response's time kept. */
+async function drive(url: string | string[], seconds: number, connections: number, next?: () => Req): Promise<Run> {
   const times: number[] = [];
   const statusCodes: Record<string, number> = {};
   const options: Record<string, unknown> = { url, connections, duration: seconds };
@@ -314,7 +354,14 @@ function probeHealth(): { stop: () => Promise<number[]> } {
 }
 
 type Health = { answerCache: { hits: number; misses: number }; eventLoop: { count: number; recent: { at: number; ms: number }[] } };
-const health = async () => (await (await fetch(`${base}/api/health`)).json()) as Health;
+/** Every server process's health, summed (the recent stalls of all of them together). */
+async function health(): Promise<Health> {
+  const all = await Promise.all(bases.map(async (b) => (await (await fetch(`${b}/api/health`)).json()) as Health));
+  return {
+    answerCache: { hits: all.reduce((n, h) => n + h.answerCache.hits, 0), misses: all.reduce((n, h) => n + h.answerCache.misses, 0) },
+    eventLoop: { count: all.reduce((n, h) => n + h.eventLoop.count, 0), recent: all.flatMap((h) => h.eventLoop.recent) },
+  };
+}
 
 /** Asks a few of the phase's requests one by one; the first answer that is not 2xx/3xx, with its body. */
 async function sampleFailure(next: () => Req): Promise<string | null> {
@@ -349,8 +396,9 @@ function cpuMs(pid: number): number {
   return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100; // utime, stime in ticks of 1/100 s (USER_HZ)
 }
 
-let serverPid = 0;
+let serverPids: number[] = [];
 let helloPid = 0;
+const serversCpuMs = () => serverPids.reduce((n, pid) => n + cpuMs(pid), 0);
 
 async function phase(name: string, cache: 'on' | 'off', next: () => Req, connections = 10): Promise<Figure> {
   const helloCpu = cpuMs(helloPid);
@@ -359,9 +407,9 @@ async function phase(name: string, cache: 'on' | 'off', next: () => Req, connect
   const before = await health();
   const startedAt = Date.now();
   const probe = probeHealth();
-  const cpuBefore = cpuMs(serverPid);
-  const run = await drive(base, PHASE_SECONDS, connections, next);
-  const cpu = cpuMs(serverPid) - cpuBefore;
+  const cpuBefore = serversCpuMs();
+  const run = await drive(bases, PHASE_SECONDS, connections, next);
+  const cpu = serversCpuMs() - cpuBefore;
   const waits = await probe.stop();
   const after = await health();
   const hits = after.answerCache.hits - before.answerCache.hits;
@@ -407,14 +455,18 @@ function rssMb(pid: number): number {
 
 // ---------------------------------------------------------------------------------------------
 
-if (!fs.existsSync(file)) {
-  say(`Building a database of ${TOTAL} approved results in ${root} …`);
+const where = databaseUrl ? `PostgreSQL (${databaseUrl.replace(/\/\/[^@/]*@/, '//')})` : root;
+if ((await countResults()) === 0) {
+  say(`Building a database of ${TOTAL} approved results in ${where} …`);
+  const loadStarted = performance.now();
   const built = await buildDatabase();
-  say(`Database ready: ${built.cells} comparison cells.`);
+  say(`Database ready: ${await countResults()} results, ${built.cells} comparison cells, loaded in ${Math.round((performance.now() - loadStarted) / 100) / 10} s.`);
 } else {
-  say(`Reusing the database in ${root}.`);
-  const repaired = await repairDoubleEncodedJson();
-  if (repaired) say(`  Repaired ${repaired} results whose JSON columns an earlier build had encoded twice.`);
+  say(`Reusing the database in ${where}.`);
+  if (!databaseUrl) {
+    const repaired = await repairDoubleEncodedJson();
+    if (repaired) say(`  Repaired ${repaired} results whose JSON columns an earlier build had encoded twice.`);
+  }
 }
 if (!PHASES.includes('load')) process.exit(0);
 const resultsBefore = await countResults();
@@ -426,27 +478,34 @@ helloPid = hello.pid!;
 await waitFor(`http://${HOST}:${PORTS.hello}/`, 10_000);
 const bundle = await buildServer();
 const figures: Figure[] = [];
-const servers: { cache: 'on' | 'off'; bootS: number; rssMb: number }[] = [];
+const servers: { cache: 'on' | 'off'; process: number; bootS: number; rssMb: number }[] = [];
+say(`${DIALECT === 'postgres' ? 'PostgreSQL' : 'SQLite'}, ${PROCS} server process${PROCS > 1 ? 'es' : ''}.`);
 for (const cache of CACHES) {
-  const port = cache === 'on' ? PORTS.http : PORTS.httpCacheOff;
-  base = `http://${HOST}:${port}`;
-  const server = startServer(bundle, cache, oauthUrl, port);
-  serverPid = server.pid!;
-  const bootStart = performance.now();
-  await Promise.race([
-    waitFor(`${base}/api/health`, 420_000),
-    new Promise((_, reject) => server.once('exit', (code) => reject(new Error(`the server exited (${code})`)))),
-  ]).catch((err) => {
-    console.error(String(err));
-    console.error(fs.readFileSync(path.join(root, 'server.log'), 'utf8').slice(-3000));
-    process.exit(1);
-  });
-  const bootS = Math.round((performance.now() - bootStart) / 100) / 10;
-  say(`Production server (answer cache ${cache}) ready in ${bootS} s (pid ${server.pid}, RSS ${rssMb(server.pid!)} MB).`);
+  bases = Array.from({ length: PROCS }, (_, i) => `http://${HOST}:${PORTS.server(cache, i)}`);
+  base = bases[0];
+  const procs: ChildProcess[] = [];
+  const boots: number[] = [];
+  // One after the other: each process builds its read models and search index from the tables at start.
+  for (const [i, url] of bases.entries()) {
+    const server = startServer(bundle, cache, oauthUrl, i);
+    const bootStart = performance.now();
+    await Promise.race([
+      waitFor(`${url}/api/health`, 420_000),
+      new Promise((_, reject) => server.once('exit', (code) => reject(new Error(`the server exited (${code})`)))),
+    ]).catch((err) => {
+      console.error(String(err));
+      console.error(fs.readFileSync(path.join(dataDirOf(i), 'server.log'), 'utf8').slice(-3000));
+      process.exit(1);
+    });
+    boots.push(Math.round((performance.now() - bootStart) / 100) / 10);
+    procs.push(server);
+    say(`Production server ${i + 1} of ${PROCS} (answer cache ${cache}) ready at ${url} in ${boots[i]} s (pid ${server.pid}, RSS ${rssMb(server.pid!)} MB).`);
+  }
+  serverPids = procs.map((p) => p.pid!);
   const sessions = await Promise.all(Array.from({ length: 16 }, () => signIn()));
   const t = traffic(await vocabulary(base), sessions);
   // Warm-up (the JIT, the pages' caches), uncounted.
-  await drive(base, 3, 10, t.mixed);
+  await drive(bases, 3, 10, t.mixed);
   const phases: Record<(typeof ALL_PHASES)[number], () => Promise<Figure>> = {
     compare: () => phase('compare (precomputed)', cache, () => t.compare()),
     live: () => phase('compare (live filters)', cache, () => t.compareLive()),
@@ -457,9 +516,9 @@ for (const cache of CACHES) {
     mix: () => phase('mix 70/20/10', cache, t.mixed),
   };
   for (const p of ALL_PHASES) if (ONLY.includes(p)) figures.push(await phases[p]());
-  servers.push({ cache, bootS, rssMb: rssMb(server.pid!) });
-  server.kill('SIGTERM');
-  await new Promise((resolve) => server.once('exit', resolve));
+  procs.forEach((p, i) => servers.push({ cache, process: i + 1, bootS: boots[i], rssMb: rssMb(p.pid!) }));
+  for (const p of procs) p.kill('SIGTERM');
+  await Promise.all(procs.map((p) => new Promise((resolve) => (p.exitCode === null ? p.once('exit', resolve) : resolve(null)))));
 }
 hello.kill('SIGTERM');
 await provider.stop();
@@ -478,10 +537,12 @@ const members = (cache: 'on' | 'off') => {
   return m && v ? Math.round((m.rps / v.rps) * 1000) / 10 : null;
 };
 if (CACHES.some((c) => members(c) !== null)) say(`Members' pages at ${CACHES.map((c) => `${members(c)} % of visitors' throughput (cache ${c})`).join(', ')}.`);
-say(`Writes acknowledged ${acknowledged}, stored ${stored}: lost ${lost}; 5xx answers ${serverErrors}. Server RSS at the end: ${servers.map((s) => `${s.rssMb} MB (cache ${s.cache})`).join(', ')}. Bench took ${seconds()} s.`);
+say(`Writes acknowledged ${acknowledged}, stored ${stored}: lost ${lost}; 5xx answers ${serverErrors}. Server RSS at the end: ${servers.map((s) => `${s.rssMb} MB (cache ${s.cache}${PROCS > 1 ? `, process ${s.process}` : ''})`).join(', ')}. Bench took ${seconds()} s.`);
 
 console.log(
   JSON.stringify({
+    database: DIALECT,
+    processes: PROCS,
     results: resultsBefore,
     phaseSeconds: PHASE_SECONDS,
     servers,

@@ -1,7 +1,7 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import { sqliteSequelize, sqliteWrite } from './sqlite';
-import { postgresSequelize, postgresWrite } from './postgres';
+import { postgresMigrateAlone, postgresSequelize, postgresWrite } from './postgres';
 import { WriteQueue } from './write-queue';
 import { initModels } from '../models';
 import { ChangeFeed } from '../changes/feed';
@@ -77,7 +77,8 @@ export class Database {
       storage: new SequelizeStorage({ sequelize: this.sequelize, tableName: 'migrations_applied' }),
       logger: undefined,
     });
-    await umzug.up();
+    if (this.isSqlite) await umzug.up();
+    else await postgresMigrateAlone(this.sequelize, () => umzug.up());
   }
 
   /**

@@ -52,6 +52,24 @@ export async function postgresWrite<T>(sequelize: Sequelize, work: (t: Transacti
   }
 }
 
+/** The advisory lock key under which migrations run (any fixed number: "Edgeledger migrations"). */
+const MIGRATION_LOCK = 0x6564_6765;
+
+/**
+ * Runs the migrations (`migrate`) holding a database-wide advisory lock, so that processes
+ * started at the same moment on one empty database (`systemctl enable --now edgeledger@3000
+ * edgeledger@3001`) migrate one after the other: the later ones wait, then find nothing left to
+ * apply. Without it the second failed on the first's half-applied migration and exited. The lock
+ * belongs to a transaction of its own, held open meanwhile; the migrations run on other
+ * connections of the pool.
+ */
+export async function postgresMigrateAlone(sequelize: Sequelize, migrate: () => Promise<unknown>): Promise<void> {
+  await sequelize.transaction(async (transaction) => {
+    await sequelize.query('SELECT pg_advisory_xact_lock(:key)', { replacements: { key: MIGRATION_LOCK }, transaction });
+    await migrate();
+  });
+}
+
 export const postgresSql: DialectSql = {
   // ->> answers a JSON value as text (an object as its JSON, JSON null as NULL), as SQLite's json_extract does.
   approvedResultsPage: (columns, batch) => `SELECT ${columns}, input->>'notes' AS notes FROM results WHERE status = 'approved' AND id > :after ORDER BY id LIMIT ${batch}`,

@@ -3,8 +3,8 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import request from 'supertest';
-import { copyBaseDatabase, demoHandle, signIn, testRateLimits } from '../setup/test-server';
-import { eventually, startServerProcess, type ServerProcess } from '../setup/server-process';
+import { copyBaseDatabase, demoHandle, onCluster, signIn, testRateLimits } from '../setup/test-server';
+import { eventually, signingInThrough, startServerProcess, type ServerProcess } from '../setup/server-process';
 import { Database } from '../../server/db/database';
 import { Steel } from '../../server/models';
 
@@ -57,13 +57,7 @@ describe.runIf(clusterUrl)('two server processes on one PostgreSQL database', ()
     database = await copyBaseDatabase(first);
     const env = { LOG_LEVEL: 'error', ...testRateLimits, RATE_LIMIT_UPLOADS_PER_MIN: String(UPLOADS_PER_MIN), ...database.env };
     a = await startServerProcess({ ...env, DATA_DIR: first });
-    b = await startServerProcess({
-      ...env,
-      DATA_DIR: dataDir(),
-      OAUTH_AUTHORIZE_URL: `${a.oauthUrl}/authorize`,
-      OAUTH_TOKEN_URL: `${a.oauthUrl}/token`,
-      OAUTH_USERINFO_URL: `${a.oauthUrl}/userinfo`,
-    });
+    b = await startServerProcess({ ...env, DATA_DIR: dataDir(), ...signingInThrough(a) });
   }, 200_000);
   afterAll(async () => {
     await b?.stop();
@@ -184,4 +178,121 @@ describe('a server process follows writes made by another process', () => {
     await eventually('the server’s page shows the new name', async () => (await page()) === 'Followteststeel O1');
     await eventually('the server’s search finds the new name', () => found('Followteststeel'));
   });
+});
+
+/**
+ * With TEST_DATABASE=postgres: a process that was away catches up when it starts again, from the
+ * tables alone (no write after its start tells it anything), and a process started after a change
+ * counts it once: it starts following at the newest change there is, and what came before is
+ * already in what it built from the tables.
+ */
+describe.runIf(clusterUrl)('a process that starts after changes made through another', () => {
+  const dirs: string[] = [];
+  let database: Awaited<ReturnType<typeof copyBaseDatabase>>;
+  let env: Record<string, string>;
+  let a: ServerProcess;
+  const late: ServerProcess[] = [];
+  const RESTART_MARK = 'restartmark';
+
+  /** Starts a process on the same database that signs in through A's stand-in, as B does above. */
+  const startAnother = async () => {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-late-'));
+    dirs.push(dir);
+    const started = await startServerProcess({ ...env, DATA_DIR: dir, ...signingInThrough(a) });
+    late.push(started);
+    return started;
+  };
+  const totalOf = async (url: string, query = '') => (await request(url).get(`/api/compare?method=push-cut-test-v2${query}`).expect(200)).body.totalResults as number;
+  const foundOn = async (url: string, q: string, type: string) => (await request(url).get(`/api/search?q=${q}&type=${type}`).expect(200)).body.facets[type] as number;
+  const steelOn = async (url: string, slug: string) => (await request(url).get(`/api/steels/${slug}`).expect(200)).body as { name: string; resultCount: number };
+  /** A live filter (hardness) answers from the process's in-memory read model of approved results, not the precomputed cells. */
+  const LIVE = '&hrcMin=55&hrcMax=65';
+
+  beforeAll(async () => {
+    const first = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-restart-'));
+    dirs.push(first);
+    database = await copyBaseDatabase(first);
+    env = { LOG_LEVEL: 'error', ...testRateLimits, ...database.env };
+    a = await startServerProcess({ ...env, DATA_DIR: first });
+  }, 200_000);
+  afterAll(async () => {
+    for (const p of late) await p.stop();
+    await a?.stop();
+    await database?.drop();
+    for (const dir of dirs) fs.rmSync(dir, { recursive: true, force: true });
+  });
+
+  /** A moderator's edit of a steel page's name through `url` (a moderator's edit is published at once). */
+  async function rename(url: string, mod: Session, slug: string, name: string) {
+    const page = (await request(url).get(`/api/steels/${slug}`).expect(200)).body as Record<string, unknown>;
+    const keys = ['category', 'designations', 'composition', 'hardnessHrc', 'citations', 'sources'];
+    const body = { ...Object.fromEntries(keys.map((k) => [k, page[k]])), body: page.body, baseRevision: page.revision, summary: 'Renamed while B was away.', name };
+    await request(url).put(`/api/steels/${slug}`).set('Cookie', cookiesOf(mod)).set('X-CSRF-Token', mod.csrf).send(body).expect(200);
+  }
+
+  it('serves, right after it starts again, what A approved and renamed while it was stopped', async () => {
+    let b = await startAnother();
+    const member = await signIn(a.url, await demoHandle(a.url, 'member'));
+    const mod = await signIn(a.url, await demoHandle(a.url, 'moderator'));
+    // B reads (and keeps) all of it before it stops.
+    const before = { total: await totalOf(b.url), live: await totalOf(b.url, LIVE), steel: await steelOn(b.url, 'aisi-d2'), renamed: await steelOn(b.url, 'aisi-1095') };
+    expect(await foundOn(b.url, RESTART_MARK, 'result')).toBe(0);
+    await b.stop();
+
+    const ids: number[] = [];
+    for (let i = 0; i < 3; i += 1) ids.push((await post(a.url, member, result(180 + i, `${RESTART_MARK} approved while B was away`)).expect(201)).body.id as number);
+    for (const id of ids) await review(a.url, mod, id).expect(200);
+    await rename(a.url, mod, 'aisi-1095', 'Restartcheck 1095');
+
+    b = await startAnother();
+    // Asked once each, at once: no write after B's start, so only what B built at its start can answer.
+    expect(await totalOf(b.url)).toBe(before.total + 3);
+    expect(await totalOf(b.url, LIVE)).toBe(before.live + 3);
+    expect(await foundOn(b.url, RESTART_MARK, 'result')).toBe(3);
+    expect((await steelOn(b.url, 'aisi-d2')).resultCount).toBe(before.steel.resultCount + 3);
+    expect((await steelOn(b.url, 'aisi-1095')).name).toBe('Restartcheck 1095');
+    expect(before.renamed.name).not.toBe('Restartcheck 1095');
+    expect(await foundOn(b.url, 'Restartcheck', 'steel')).toBe(1);
+    // And B agrees with A.
+    expect(await totalOf(b.url)).toBe(await totalOf(a.url));
+    expect(await totalOf(b.url, LIVE)).toBe(await totalOf(a.url, LIVE));
+  }, 200_000);
+
+  it('counts a change made before it started once, after following the changes made since', async () => {
+    const member = await signIn(a.url, await demoHandle(a.url, 'member', 1));
+    const mod = await signIn(a.url, await demoHandle(a.url, 'moderator'));
+    const mark = 'nightjarquill';
+    const id = (await post(a.url, member, result(190, `${mark} approved before C started`)).expect(201)).body.id as number;
+    await review(a.url, mod, id).expect(200);
+    const c = await startAnother();
+    const counts = async (url: string) => ({ total: await totalOf(url), live: await totalOf(url, LIVE), found: await foundOn(url, mark, 'result'), d2: (await steelOn(url, 'aisi-d2')).resultCount });
+    const atStart = await counts(c.url);
+    expect(atStart).toEqual(await counts(a.url));
+    expect(atStart.found).toBe(1);
+
+    // A change after C's start, through A: once C shows it, C's poller has read every change
+    // up to it, so a replay of the earlier approval would have happened by then.
+    await rename(a.url, mod, 'aisi-o1', 'Latestartcheck O1');
+    await eventually('C shows the rename made after its start', async () => (await steelOn(c.url, 'aisi-o1')).name === 'Latestartcheck O1');
+    expect(await counts(c.url)).toEqual(atStart);
+    expect(await counts(c.url)).toEqual(await counts(a.url));
+  }, 200_000);
+});
+
+describe.runIf(clusterUrl)('two processes started at the same moment on an empty PostgreSQL database', () => {
+  it('both start: one migrates while the other waits, then finds nothing left to apply', async () => {
+    const name = `edgeledger_empty_${process.pid}`;
+    await onCluster(clusterUrl!, `CREATE DATABASE "${name}"`);
+    const dirs = [0, 1].map(() => fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-empty-')));
+    const env = { LOG_LEVEL: 'error', ...testRateLimits, DATABASE_URL: `${clusterUrl}${name}` };
+    const started = await Promise.allSettled(dirs.map((dir) => startServerProcess({ ...env, DATA_DIR: dir })));
+    try {
+      for (const s of started) expect(s.status, s.status === 'rejected' ? String(s.reason) : '').toBe('fulfilled');
+      for (const s of started) if (s.status === 'fulfilled') await request(s.value.url).get('/api/health').expect(200);
+    } finally {
+      for (const s of started) if (s.status === 'fulfilled') await s.value.stop();
+      await onCluster(clusterUrl!, `DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+      for (const dir of dirs) fs.rmSync(dir, { recursive: true, force: true });
+    }
+  }, 200_000);
 });

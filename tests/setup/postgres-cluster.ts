@@ -42,7 +42,8 @@ function freePort(): Promise<number> {
   });
 }
 
-export async function startCluster(): Promise<Cluster> {
+/** `port`: where the cluster listens (a free one when not given). */
+export async function startCluster(port?: number): Promise<Cluster> {
   const bin = binDir();
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'edgeledger-pg-'));
   const asRoot = process.getuid?.() === 0;
@@ -53,7 +54,7 @@ export async function startCluster(): Promise<Cluster> {
       : execFileSync(path.join(bin, program), args, { cwd: dir, stdio: 'pipe' });
   if (asRoot) fs.chownSync(dir, Number(execFileSync('id', ['-u', 'nobody'], { encoding: 'utf8' })), Number(execFileSync('id', ['-g', 'nobody'], { encoding: 'utf8' })));
   const data = path.join(dir, 'data');
-  const port = await freePort();
+  port ??= await freePort();
   try {
     // C.UTF-8: text sorts by code point, as SQLite's default collation does.
     run('initdb', ['-D', data, '-U', 'postgres', '-A', 'trust', '-E', 'UTF8', '--locale=C.UTF-8', '--no-sync']);

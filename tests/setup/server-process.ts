@@ -54,6 +54,11 @@ export function startServerProcess(env: Record<string, string>): Promise<ServerP
   });
 }
 
+/** The environment that has another process sign people in through `p`'s local OAuth2 stand-in, as processes behind one load balancer share one hosted provider. */
+export function signingInThrough(p: ServerProcess): Record<string, string> {
+  return { OAUTH_AUTHORIZE_URL: `${p.oauthUrl}/authorize`, OAUTH_TOKEN_URL: `${p.oauthUrl}/token`, OAUTH_USERINFO_URL: `${p.oauthUrl}/userinfo` };
+}
+
 /** Asks `probe` again (every 50 ms) until it gives true; fails naming `what` after `deadlineMs`. */
 export async function eventually(what: string, probe: () => Promise<boolean>, deadlineMs = 10_000): Promise<void> {
   const until = Date.now() + deadlineMs;
