@@ -1,4 +1,5 @@
 import MiniSearch, { type Query, type SearchResult } from 'minisearch';
+import type { SearchOwner } from './owners';
 
 export type SearchDocType = 'steel' | 'abrasive' | 'method' | 'result' | 'cell';
 
@@ -6,7 +7,8 @@ export type SearchDocType = 'steel' | 'abrasive' | 'method' | 'result' | 'cell';
 export interface SearchDoc {
   key: string;
   type: SearchDocType;
-  title: string;
+  /** Shown as the hit's title. A result has none: its title is made from its owners' labels and its figures (`titleOf`). */
+  title?: string;
   /** Other names: designations, grit notations, materials. */
   names: string;
   body: string;
@@ -23,7 +25,16 @@ export interface SearchDoc {
    * method, member; see server/search/owners.ts), each with the words it lends. Such a
    * document's title is shown but not indexed: its words are its owners' and its own names and body.
    */
-  owners?: { key: string; words: string }[];
+  owners?: SearchOwner[];
+  /** For a result: the figures its title shows (its id is `id`). */
+  figures?: ResultFigures;
+}
+
+/** A result's figures as its title shows them. */
+export interface ResultFigures {
+  hrc: number;
+  perSideDeg: number;
+  medianG: number;
 }
 
 /** A comparison cell's figures as a search hit carries them (grams-force, HRC). */
@@ -92,80 +103,96 @@ export function tokenizeQuery(text: string): string[] {
   return kept.length ? kept : terms;
 }
 
-/** What the index keeps of a document to show it as a hit (the indexed text lives in MiniSearch). */
-type ShownDoc = Pick<SearchDoc, 'type' | 'id' | 'slug' | 'title' | 'body' | 'names' | 'summary' | 'group' | 'cell'>;
+/** What the index keeps of a page or cell to show it as a hit (the indexed text lives in MiniSearch). */
+type ShownDoc = Pick<SearchDoc, 'type' | 'id' | 'slug' | 'body' | 'names' | 'summary' | 'group' | 'cell'> & { title: string };
 
 const BOOST = { title: 3, names: 3, body: 1 };
+/** Where each kind of owner sits among a document's owners, by its key's prefix ("steel:12"). */
+const OWNER_PLACES = ['steel', 'abrasive', 'method', 'member'] as const;
 /** Owners one document can have (a result: steel, abrasive at its grit, method, member). */
-const OWNERS_PER_DOC = 4;
+const OWNERS_PER_DOC = OWNER_PLACES.length;
 
 type Counts = { facets: Record<SearchDocType, number>; groups: Partial<Record<SearchDocType, Record<string, number>>> };
-type Ranked = { key: string; score: number; terms: string[] };
+type Ranked = { shown: ShownDoc; score: number; terms: string[] };
 type SearchAnswer = { hits: SearchHit[] } & Counts;
 /** Hits shown for a query, unless the caller asks for another number. */
 const HITS_SHOWN = 30;
+
+/**
+ * A result's title: "AISI D2 on <abrasive> · 61 HRC · 15° per side · median 142 g · @handle",
+ * from its owners' labels and its figures in tenths of HRC and degrees and whole grams.
+ */
+function resultTitle(steel: string, abrasive: string, hrcTenths: number, degTenths: number, grams: number, handle: string | undefined): string {
+  return `${steel} on ${abrasive} · ${hrcTenths / 10} HRC · ${degTenths / 10}° per side · median ${grams} g${handle ? ` · @${handle}` : ''}`;
+}
+
+const labelOf = (doc: SearchDoc, place: (typeof OWNER_PLACES)[number]) => doc.owners?.find((o) => o.key.startsWith(`${place}:`))?.label;
+
+/** The title a document's hit shows (a result's made from its owners' labels and its figures). */
+export function titleOf(doc: SearchDoc): string {
+  const f = doc.figures;
+  if (doc.type !== 'result' || !f) return doc.title ?? '';
+  return resultTitle(labelOf(doc, 'steel') ?? '', labelOf(doc, 'abrasive') ?? '', Math.round(f.hrc * 10), Math.round(f.perSideDeg * 10), Math.round(f.medianG), labelOf(doc, 'member'));
+}
 
 /**
  * The one in-memory search index over steels, abrasives, methods, comparison cells and approved
  * results, in three MiniSearch indexes:
  * - `pages` holds the reference pages, a hundred or so, whole.
  * - `own` holds the own words of the documents that refer to pages (results: their notes; cells:
- *   their material and grit band), which are few, so that no word is shared by thousands of them.
+ *   their material and grit band), each distinct text once, however many documents share it.
  * - `owners` holds, once each, the words such documents take from what they refer to: the steel
  *   (name, designations), the abrasive at its grit, the method, the member.
  * A result or cell matches a query term through its own words or through one of its owners. The
- * owners' numbers sit in typed arrays (`OwnerTable`), so a common word ("cbn", a steel's grade, a
- * method's name) costs a few array reads per document, where MiniSearch would spend a few
- * microseconds on each. Prefix matching only on the last term and fuzzy matching only on terms
- * of 5 or more characters keep the number of candidate terms, and so the time per query, small.
+ * documents themselves are rows of typed arrays (`OwnedTable`: their owners, own text, type,
+ * group, and a result's figures), not objects: a query scores every row in one pass of array
+ * reads, and 300 000 results take about 50 bytes each. Prefix matching only on the last term and
+ * fuzzy matching only on terms of 5 or more characters keep the number of candidate terms, and
+ * so the time per query, small.
  */
 export class SearchIndex {
   private pages = SearchIndex.create();
   private own = SearchIndex.create();
   private owners = SearchIndex.createOwners();
-  private table = new OwnerTable();
+  private table = new OwnedTable();
+  /** Pages and cells as shown; results are shown from the table. */
   private readonly docs = new Map<string, ShownDoc>();
+  /** Per query term, each own text's score (zero again after each query). */
+  private textScores: Float64Array[] = [];
 
   private static create() {
-    return new MiniSearch<SearchDoc>({
+    return new MiniSearch<SearchDoc | OwnText>({
       idField: 'key',
       fields: ['title', 'names', 'body'],
       tokenize,
-      // The title of a document with owners is made of its owners' names, indexed in `owners`.
-      extractField: (doc, field) => (field === 'title' && doc.owners ? '' : (doc as unknown as Record<string, string>)[field]),
       searchOptions: { tokenize: tokenizeQuery },
     });
   }
 
   private static createOwners() {
-    return new MiniSearch<{ key: string; words: string }>({ idField: 'key', fields: ['words'], tokenize, searchOptions: { tokenize: tokenizeQuery } });
+    return new MiniSearch<SearchOwner>({ idField: 'key', fields: ['words'], tokenize, searchOptions: { tokenize: tokenizeQuery } });
   }
 
   get size(): number {
-    return this.docs.size;
+    return this.docs.size + this.table.results;
   }
 
   /** Replaces the whole index with `docs`. */
   async rebuild(docs: AsyncIterable<SearchDoc> | Iterable<SearchDoc>): Promise<void> {
     const pageDocs: SearchDoc[] = [];
-    const ownDocs: SearchDoc[] = [];
     const shown = new Map<string, ShownDoc>();
-    const table = new OwnerTable();
+    const table = new OwnedTable();
     for await (const d of docs) {
-      shown.set(d.key, shownOf(d));
-      if (!d.owners) pageDocs.push(d);
-      else {
-        table.add(d);
-        // A result without notes has no words of its own to index.
-        if (d.body || d.names) ownDocs.push(d);
-      }
+      if (d.type !== 'result') shown.set(d.key, shownOf(d));
+      if (d.owners) table.add(d);
+      else pageDocs.push(d);
     }
     const pages = SearchIndex.create();
     await pages.addAllAsync(pageDocs, { chunkSize: 500 });
     const own = SearchIndex.create();
-    await own.addAllAsync(ownDocs, { chunkSize: 500 });
+    await own.addAllAsync(table.texts(), { chunkSize: 500 });
     const owners = SearchIndex.createOwners();
-    owners.addAll(table.ownerKeys.map((key, n) => ({ key, words: table.words[n] })));
+    owners.addAll(table.ownerKeys.map((key, n) => ({ key, words: table.words[n], label: table.labels[n] })));
     [this.pages, this.own, this.owners, this.table] = [pages, own, owners, table];
     this.docs.clear();
     for (const [k, v] of shown) this.docs.set(k, v);
@@ -190,13 +217,14 @@ export class SearchIndex {
   /** Adds or replaces one document. */
   upsert(doc: SearchDoc): void {
     this.remove(doc.key);
-    this.docs.set(doc.key, shownOf(doc));
+    if (doc.type !== 'result') this.docs.set(doc.key, shownOf(doc));
     if (!doc.owners) {
       this.pages.add(doc);
       return;
     }
-    if (doc.body || doc.names) this.own.add(doc);
-    for (const o of this.table.add(doc)) {
+    const added = this.table.add(doc);
+    if (added.text) this.own.add(added.text);
+    for (const o of added.owners) {
       // An owner seen for the first time, or one whose words changed (a page renamed).
       if (this.owners.has(o.key)) this.owners.discard(o.key);
       this.owners.add(o);
@@ -205,15 +233,15 @@ export class SearchIndex {
 
   /** Whether the index holds the document `key` (`result:12`, `steel:aisi-d2`, …). */
   has(key: string): boolean {
-    return this.docs.has(key);
+    return this.docs.has(key) || this.table.slotOf(key) !== undefined;
   }
 
   /** Removes one document if present. */
   remove(key: string): void {
-    if (!this.docs.has(key)) return;
-    for (const index of [this.pages, this.own]) if (index.has(key)) index.discard(key);
+    if (this.pages.has(key)) this.pages.discard(key);
     this.docs.delete(key);
-    this.table.remove(key);
+    const unused = this.table.remove(key);
+    if (unused !== null) this.own.discard(unused);
   }
 
   /** Hits for `query`, best first, and the number of hits of each type before the type filter. */
@@ -228,35 +256,54 @@ export class SearchIndex {
     const pages = this.pages.search({ combineWith: 'AND', queries }, { boost: BOOST });
     for (const r of pages) countHit(counts, this.docs.get(r.id as string)!);
     const owned = this.searchOwned(queries, type, limit, counts);
-    const ranked = [...pages.filter((r) => !type || this.docs.get(r.id as string)!.type === type).slice(0, limit).map((r) => ({ key: r.id as string, score: r.score, terms: r.terms })), ...owned]
+    const ranked = [
+      ...pages
+        .map((r) => ({ shown: this.docs.get(r.id as string)!, score: r.score, terms: r.terms }))
+        .filter((r) => !type || r.shown.type === type)
+        .slice(0, limit),
+      ...owned,
+    ]
       .sort((a, b) => b.score - a.score)
       .slice(0, limit);
-    const hits = ranked.map((r) => {
-      const doc = this.docs.get(r.key)!;
-      const piece = doc.summary !== undefined ? { text: doc.summary, highlights: matchedSpans(doc.summary, r.terms) } : snippet(doc, r.terms);
+    const hits = ranked.map(({ shown: doc, score, terms: matched }) => {
+      const piece = doc.summary !== undefined ? { text: doc.summary, highlights: matchedSpans(doc.summary, matched) } : snippet(doc, matched);
       return {
         type: doc.type, id: doc.id, slug: doc.slug, title: doc.title,
-        snippet: piece.text, highlights: piece.highlights, titleHighlights: matchedSpans(doc.title, r.terms), ...(doc.group ? { group: doc.group } : {}),
-        score: Math.round(r.score * 100) / 100, ...(doc.cell ? { cell: doc.cell } : {}) };
+        snippet: piece.text, highlights: piece.highlights, titleHighlights: matchedSpans(doc.title, matched), ...(doc.group ? { group: doc.group } : {}),
+        score: Math.round(score * 100) / 100, ...(doc.cell ? { cell: doc.cell } : {}) };
     });
     return { hits, ...counts };
   }
 
+  /** Per query term, a score per own text: zeros, as long as the table's texts. */
+  private textScoresFor(terms: number): Float64Array[] {
+    const size = this.table.textCapacity;
+    for (let i = 0; i < terms; i++) if (!this.textScores[i] || this.textScores[i].length < size) this.textScores[i] = new Float64Array(Math.max(size, 64));
+    return this.textScores.slice(0, terms);
+  }
+
   /**
    * Results and cells that match every query term through their own words or an owner's, counted
-   * into `counts`; returns the best `limit` of them (of `type`, if given). The term that reaches
-   * fewest documents picks the candidates; each candidate is then scored on every term from its
-   * owners' numbers, in plain loops over typed arrays, so a common term costs a few array reads
-   * per candidate.
+   * into `counts`; returns the best `limit` of them (of `type`, if given). Each term is first
+   * scored on the owners and the distinct own texts (a few hundred MiniSearch look-ups at most);
+   * then one pass over the table's rows scores each row from those numbers, the term that reaches
+   * fewest documents first, so most rows are left after a handful of array reads.
    */
   private searchOwned(queries: Query[], type: SearchDocType | undefined, limit: number, counts: Counts): Ranked[] {
     const table = this.table;
-    const perTerm = queries.map((q) => {
-      const own = new Map<number, SearchResult>();
-      for (const r of this.own.search(q, { boost: BOOST })) own.set(table.slotOf(r.id as string)!, r);
+    const textScores = this.textScoresFor(queries.length);
+    const perTerm = queries.map((q, i) => {
+      const texts = new Map<number, SearchResult>();
+      const textScore = textScores[i];
+      let size = 0;
+      for (const r of this.own.search(q, { boost: BOOST })) {
+        const n = r.id as number;
+        texts.set(n, r);
+        textScore[n] = r.score;
+        size += table.textUses(n);
+      }
       const owners = new Map<number, SearchResult>();
       const ownerScore = new Float64Array(table.ownerKeys.length);
-      let size = own.size;
       for (const r of this.owners.search(q)) {
         const n = table.ownerNumber.get(r.id as string)!;
         if (!table.memberCount(n)) continue;
@@ -264,73 +311,78 @@ export class SearchIndex {
         ownerScore[n] = r.score;
         size += table.memberCount(n);
       }
-      return { own, owners, ownerScore, size };
+      return { texts, textScore, owners, ownerScore, size };
     });
-    type Term = (typeof perTerm)[number];
-    const driver = perTerm.reduce((a, b) => (b.size < a.size ? b : a), perTerm[0]);
-    if (driver.size === 0) return [];
-    const candidates = table.candidates(driver.own.keys(), driver.owners.size ? driver.ownerScore : null);
-    const owned = table.owned;
-    const typeOf = table.typeCode;
-    const groupOf = table.groupCode;
-    const wanted = type ? TYPE_CODES.indexOf(type) : -1;
-    const typeCounts = new Int32Array(TYPE_CODES.length);
-    const groupCounts = new Int32Array(table.groupNames.length);
-    const top: { slot: number; score: number }[] = [];
-    let floor = -Infinity;
-    for (let c = 0; c < candidates.length; c++) {
-      const slot = candidates[c];
-      const base = slot * OWNERS_PER_DOC;
-      let score = 0;
-      let matched = true;
-      // A term scores its best owner's match plus the document's own words' match: a result on a
-      // CBN wheel ranks above one that only names CBN in its notes, one that does both above
-      // either (on the demo data: owner matches about 6, notes 3, the pages themselves 10–30).
-      for (const t of perTerm) {
-        let owner = 0;
-        const os = t.ownerScore;
-        for (let j = base; j < base + OWNERS_PER_DOC; j++) {
+    try {
+      // The most selective term first: a row it does not match costs one term's reads.
+      const order = [...perTerm].sort((a, b) => a.size - b.size);
+      if (order[0].size === 0) return [];
+      const ownerScores = order.map((t) => t.ownerScore);
+      const ownScores = order.map((t) => t.textScore);
+      const terms = order.length;
+      const { owned, typeCode: typeOf, groupCode: groupOf, textOf } = table;
+      const wanted = type ? TYPE_CODES.indexOf(type) : -1;
+      const typeCounts = new Int32Array(TYPE_CODES.length);
+      const groupCounts = new Int32Array(table.groupNames.length);
+      const top: { slot: number; score: number }[] = [];
+      let floor = -Infinity;
+      for (let slot = 0, end = table.end; slot < end; slot++) {
+        const kind = typeOf[slot];
+        if (kind === FREE) continue;
+        const base = slot * OWNERS_PER_DOC;
+        const text = textOf[slot];
+        let score = 0;
+        let t = 0;
+        // A term scores its best owner's match plus the document's own words' match: a result on a
+        // CBN wheel ranks above one that only names CBN in its notes, one that does both above
+        // either (on the demo data: owner matches about 6, notes 3, the pages themselves 10–30).
+        for (; t < terms; t++) {
+          const os = ownerScores[t];
+          let owner = 0;
+          for (let j = base; j < base + OWNERS_PER_DOC; j++) {
+            const o = owned[j];
+            if (o >= 0 && os[o] > owner) owner = os[o];
+          }
+          const both = text >= 0 ? owner + ownScores[t][text] : owner;
+          if (both === 0) break;
+          score += both;
+        }
+        if (t < terms) continue;
+        typeCounts[kind] += 1;
+        if (groupOf[slot] >= 0) groupCounts[groupOf[slot]] += 1;
+        // Keep the best `limit` of the type asked for, best first (rows of equal score in row order).
+        if (score <= floor || (wanted >= 0 && kind !== wanted)) continue;
+        const at = top.findIndex((x) => score > x.score);
+        top.splice(at === -1 ? top.length : at, 0, { slot, score });
+        if (top.length > limit) top.pop();
+        if (top.length === limit) floor = top[limit - 1].score;
+      }
+      TYPE_CODES.forEach((t, i) => (counts.facets[t] += typeCounts[i]));
+      groupCounts.forEach((n, g) => {
+        if (!n) return;
+        const [t, name] = table.groupNames[g];
+        const groups = (counts.groups[t] ??= {});
+        groups[name] = (groups[name] ?? 0) + n;
+      });
+      // The matched words, for the highlights, only for the documents shown.
+      const termsOf = (t: (typeof perTerm)[number], slot: number): string[] => {
+        let owner: SearchResult | undefined;
+        for (let j = slot * OWNERS_PER_DOC; j < (slot + 1) * OWNERS_PER_DOC; j++) {
           const o = owned[j];
-          if (o >= 0 && os[o] > owner) owner = os[o];
+          if (o >= 0 && t.ownerScore[o] > 0 && (!owner || t.owners.get(o)!.score > owner.score)) owner = t.owners.get(o);
         }
-        const both = owner + (t.own.size ? (t.own.get(slot)?.score ?? 0) : 0);
-        if (both === 0) {
-          matched = false;
-          break;
-        }
-        score += both;
-      }
-      if (!matched) continue;
-      typeCounts[typeOf[slot]] += 1;
-      if (groupOf[slot] >= 0) groupCounts[groupOf[slot]] += 1;
-      // Keep the best `limit` of the type asked for, best first.
-      if (score <= floor || (wanted >= 0 && typeOf[slot] !== wanted)) continue;
-      const at = top.findIndex((x) => score > x.score);
-      top.splice(at === -1 ? top.length : at, 0, { slot, score });
-      if (top.length > limit) top.pop();
-      if (top.length === limit) floor = top[limit - 1].score;
+        return [...(t.texts.get(textOf[slot])?.terms ?? []), ...(owner?.terms ?? [])];
+      };
+      return top.map(({ slot, score }) => ({ shown: table.shown(slot, this.docs), score, terms: perTerm.flatMap((t) => termsOf(t, slot)) }));
+    } finally {
+      for (const t of perTerm) for (const n of t.texts.keys()) t.textScore[n] = 0;
     }
-    TYPE_CODES.forEach((t, i) => (counts.facets[t] += typeCounts[i]));
-    groupCounts.forEach((n, g) => {
-      if (!n) return;
-      const [t, name] = table.groupNames[g];
-      const groups = (counts.groups[t] ??= {});
-      groups[name] = (groups[name] ?? 0) + n;
-    });
-    // The matched words, for the highlights, only for the documents shown.
-    const termsOf = (t: Term, slot: number): string[] => {
-      let owner: SearchResult | undefined;
-      for (let j = slot * OWNERS_PER_DOC; j < (slot + 1) * OWNERS_PER_DOC; j++) {
-        const o = owned[j];
-        if (o >= 0 && t.ownerScore[o] > 0 && (!owner || t.owners.get(o)!.score > owner.score)) owner = t.owners.get(o);
-      }
-      return [...(t.own.get(slot)?.terms ?? []), ...(owner?.terms ?? [])];
-    };
-    return top.map(({ slot, score }) => ({ key: table.keyOf(slot), score, terms: perTerm.flatMap((t) => termsOf(t, slot)) }));
   }
 }
 
 const TYPE_CODES: SearchDocType[] = ['steel', 'abrasive', 'method', 'result', 'cell'];
+/** The type code of a row no document holds. */
+const FREE = 255;
 
 /** Counts a hit into the type facets and its type's groups. */
 function countHit(counts: Counts, doc: Pick<ShownDoc, 'type' | 'group'>): void {
@@ -340,116 +392,198 @@ function countHit(counts: Counts, doc: Pick<ShownDoc, 'type' | 'group'>): void {
   groups[doc.group] = (groups[doc.group] ?? 0) + 1;
 }
 
+/** A distinct own text (a result's notes, a cell's names) as the `own` index holds it. */
+type OwnText = { key: number; names: string; body: string };
+
+/** A typed array twice as long (or `size` long), the old values kept, the rest `fill`. */
+function grown<T extends Int32Array | Uint8Array | Float64Array>(array: T, size = array.length * 2, fill = 0): T {
+  const bigger = new (array.constructor as new (n: number) => T)(size);
+  if (fill) bigger.fill(fill);
+  bigger.set(array);
+  return bigger;
+}
+
 /**
- * The documents with owners and the owners they take words from, numbered densely so that the
- * search can score a candidate with array reads: `owned` holds each slot's owner numbers
- * (OWNERS_PER_DOC per slot, -1 for none). An owner's documents are found by a pass over
- * `owned` (a few hundred thousand integer reads, well under a millisecond at 100 000 documents),
- * which costs far less memory than a set of slots per owner.
+ * The documents with owners (results, cells) as rows of typed arrays, and the owners and own texts
+ * they refer to, numbered densely: `owned` holds each row's owner numbers (OWNERS_PER_DOC per row,
+ * in OWNER_PLACES order, -1 for none), `textOf` its own text's number (-1 for none). A result is
+ * found by its id (`rowOfResult`) and shown from its row (its figures in tenths, its owners'
+ * labels); a cell by its key, shown from the index's map. An own text shared by several documents
+ * is held and indexed once.
  */
-class OwnerTable {
-  private readonly slots = new Map<string, number>();
-  private readonly keys: string[] = [];
+class OwnedTable {
+  /** Rows in use or freed: the search passes over rows [0, end). */
+  end = 0;
+  results = 0;
   private readonly free: number[] = [];
   owned = new Int32Array(1024 * OWNERS_PER_DOC).fill(-1);
-  /** Each slot's type (index in TYPE_CODES) and group (index in groupNames, -1 for none), for the facets. */
-  typeCode = new Uint8Array(1024);
+  typeCode = new Uint8Array(1024).fill(FREE);
+  /** Each row's group (index in groupNames, -1 for none), for the facets. */
   groupCode = new Int32Array(1024).fill(-1);
+  textOf = new Int32Array(1024).fill(-1);
+  /** A result's id and figures: HRC and degrees per side in tenths, the median in whole grams. */
+  private resultId = new Int32Array(1024);
+  private hrcTenths = new Int32Array(1024);
+  private degTenths = new Int32Array(1024);
+  private grams = new Int32Array(1024);
+  private rowOfResult = new Int32Array(1024).fill(-1);
+  /** Rows of the documents that are not results (cells), by key, and their keys by row. */
+  private readonly rowOfKey = new Map<string, number>();
+  private readonly keyOfRow = new Map<number, string>();
   readonly groupNames: [SearchDocType, string][] = [];
   private readonly groupNumber = new Map<string, number>();
   readonly ownerNumber = new Map<string, number>();
   readonly ownerKeys: string[] = [];
   readonly words: string[] = [];
+  readonly labels: string[] = [];
   /** Per owner number, how many documents have it. */
   private members = new Int32Array(256);
-  /** Per slot, the number of the last search that listed it as a candidate. */
-  private marks = new Uint32Array(1024);
-  private marking = 0;
-  private buffer = new Int32Array(1024);
+  /** Own texts: number by text, the text by number, how many documents use it, numbers free again. */
+  private readonly textNumber = new Map<string, number>();
+  private readonly textNames: string[] = [];
+  private readonly textBodies: string[] = [];
+  private uses = new Int32Array(256);
+  private readonly freeTexts: number[] = [];
 
-  slotOf(key: string): number | undefined {
-    return this.slots.get(key);
+  get textCapacity(): number {
+    return this.textBodies.length;
   }
 
-  keyOf(slot: number): string {
-    return this.keys[slot];
+  slotOf(key: string): number | undefined {
+    if (!key.startsWith('result:')) return this.rowOfKey.get(key);
+    const id = Number(key.slice('result:'.length));
+    const row = Number.isInteger(id) && id >= 0 && id < this.rowOfResult.length ? this.rowOfResult[id] : -1;
+    return row >= 0 ? row : undefined;
   }
 
   memberCount(owner: number): number {
     return this.members[owner];
   }
 
-  /** The slots in `slots` and those with an owner that `ownerScore` scores above 0, each once. */
-  candidates(slots: Iterable<number>, ownerScore: Float64Array | null): Int32Array {
-    this.marking = (this.marking + 1) >>> 0 || 1;
-    if (this.marking === 1) this.marks.fill(0);
-    const seen = this.marking;
-    let count = 0;
-    const take = (slot: number) => {
-      if (this.marks[slot] === seen) return;
-      this.marks[slot] = seen;
-      this.buffer[count++] = slot;
-    };
-    for (const slot of slots) take(slot);
-    if (ownerScore) {
-      const owned = this.owned;
-      for (let slot = 0, end = this.keys.length; slot < end; slot++) {
-        for (let j = slot * OWNERS_PER_DOC; j < (slot + 1) * OWNERS_PER_DOC; j++) {
-          const o = owned[j];
-          if (o >= 0 && ownerScore[o] > 0) {
-            take(slot);
-            break;
-          }
-        }
-      }
-    }
-    return this.buffer.subarray(0, count);
+  textUses(text: number): number {
+    return this.uses[text];
   }
 
-  /** Records `doc` and its owners; returns the owners that are new or whose words changed. */
-  add(doc: SearchDoc): { key: string; words: string }[] {
+  /** Every own text in use, as the `own` index holds it. */
+  texts(): OwnText[] {
+    const out: OwnText[] = [];
+    for (let n = 0; n < this.textBodies.length; n++) if (this.uses[n] > 0) out.push({ key: n, names: this.textNames[n], body: this.textBodies[n] });
+    return out;
+  }
+
+  /** How row `slot` is shown as a hit (a cell's from `docs`, where the index keeps it). */
+  shown(slot: number, docs: Map<string, ShownDoc>): ShownDoc {
+    const key = this.keyOfRow.get(slot);
+    if (key !== undefined) return docs.get(key)!;
+    const label = (place: number) => {
+      const o = this.owned[slot * OWNERS_PER_DOC + place];
+      return o >= 0 ? this.labels[o] : undefined;
+    };
+    const text = this.textOf[slot];
+    return {
+      type: 'result',
+      id: this.resultId[slot],
+      title: resultTitle(label(0) ?? '', label(1) ?? '', this.hrcTenths[slot], this.degTenths[slot], this.grams[slot], label(3)),
+      body: text >= 0 ? this.textBodies[text] : '',
+      names: '',
+    };
+  }
+
+  /**
+   * Records `doc` and its owners; returns the owners that are new or whose words changed, and its
+   * own text when no other document had it (to be indexed).
+   */
+  add(doc: SearchDoc): { owners: SearchOwner[]; text: OwnText | null } {
     const owners = doc.owners ?? [];
     if (owners.length > OWNERS_PER_DOC) throw new Error(`a search document has at most ${OWNERS_PER_DOC} owners`);
+    const isResult = doc.type === 'result';
+    if (isResult && (doc.id === undefined || !doc.figures)) throw new Error(`the result document ${doc.key} needs its id and figures`);
     this.remove(doc.key);
-    const slot = this.free.pop() ?? this.keys.length;
+    const slot = this.free.pop() ?? this.end++;
     if (slot >= this.typeCode.length) this.grow();
-    this.slots.set(doc.key, slot);
-    this.keys[slot] = doc.key;
     this.typeCode[slot] = TYPE_CODES.indexOf(doc.type);
     this.groupCode[slot] = doc.group ? this.groupOf(doc.type, doc.group) : -1;
-    const changed: { key: string; words: string }[] = [];
-    owners.forEach((o, j) => {
+    if (isResult) {
+      const id = doc.id!;
+      if (id >= this.rowOfResult.length) this.rowOfResult = grown(this.rowOfResult, Math.max(id + 1, this.rowOfResult.length * 2), -1);
+      this.rowOfResult[id] = slot;
+      this.resultId[slot] = id;
+      this.hrcTenths[slot] = Math.round(doc.figures!.hrc * 10);
+      this.degTenths[slot] = Math.round(doc.figures!.perSideDeg * 10);
+      this.grams[slot] = Math.round(doc.figures!.medianG);
+      this.results += 1;
+    } else {
+      this.rowOfKey.set(doc.key, slot);
+      this.keyOfRow.set(slot, doc.key);
+    }
+    const changed: SearchOwner[] = [];
+    for (const o of owners) {
+      const place = OWNER_PLACES.indexOf(o.key.slice(0, o.key.indexOf(':')) as (typeof OWNER_PLACES)[number]);
+      if (place < 0) throw new Error(`a search owner's key starts with one of ${OWNER_PLACES.join(', ')} (got "${o.key}")`);
       let n = this.ownerNumber.get(o.key);
       if (n === undefined) {
         n = this.ownerKeys.length;
         this.ownerNumber.set(o.key, n);
         this.ownerKeys.push(o.key);
         this.words.push('');
-        if (n >= this.members.length) {
-          const grown = new Int32Array(this.members.length * 2);
-          grown.set(this.members);
-          this.members = grown;
-        }
+        this.labels.push('');
+        if (n >= this.members.length) this.members = grown(this.members);
       }
-      if (this.words[n] !== o.words) {
+      if (this.words[n] !== o.words || this.labels[n] !== o.label) {
         this.words[n] = o.words;
+        this.labels[n] = o.label;
         changed.push(o);
       }
       this.members[n] += 1;
-      this.owned[slot * OWNERS_PER_DOC + j] = n;
-    });
-    return changed;
+      this.owned[slot * OWNERS_PER_DOC + place] = n;
+    }
+    const text = this.useText(doc.names, doc.body);
+    this.textOf[slot] = text?.number ?? -1;
+    return { owners: changed, text: text?.added ? { key: text.number, names: doc.names, body: doc.body } : null };
   }
 
-  remove(key: string): void {
-    const slot = this.slots.get(key);
-    if (slot === undefined) return;
+  /** Forgets the document `key`; returns its own text's number when no document uses it any more (to be dropped from the index). */
+  remove(key: string): number | null {
+    const slot = this.slotOf(key);
+    if (slot === undefined) return null;
     for (let j = slot * OWNERS_PER_DOC; j < (slot + 1) * OWNERS_PER_DOC; j++) {
       if (this.owned[j] >= 0) this.members[this.owned[j]] -= 1;
       this.owned[j] = -1;
     }
-    this.slots.delete(key);
+    if (this.typeCode[slot] === TYPE_CODES.indexOf('result')) {
+      this.rowOfResult[this.resultId[slot]] = -1;
+      this.results -= 1;
+    } else {
+      this.rowOfKey.delete(key);
+      this.keyOfRow.delete(slot);
+    }
+    this.typeCode[slot] = FREE;
+    this.groupCode[slot] = -1;
+    const text = this.textOf[slot];
+    this.textOf[slot] = -1;
     this.free.push(slot);
+    if (text < 0 || --this.uses[text] > 0) return null;
+    this.textNumber.delete(`${this.textNames[text]}\u0000${this.textBodies[text]}`);
+    this.textNames[text] = this.textBodies[text] = '';
+    this.freeTexts.push(text);
+    return text;
+  }
+
+  /** The number of the own text (names, body), counted as used once more; null for no words. */
+  private useText(names: string, body: string): { number: number; added: boolean } | null {
+    if (!names && !body) return null;
+    const key = `${names}\u0000${body}`;
+    let n = this.textNumber.get(key);
+    const added = n === undefined;
+    if (n === undefined) {
+      n = this.freeTexts.pop() ?? this.textBodies.length;
+      this.textNumber.set(key, n);
+      this.textNames[n] = names;
+      this.textBodies[n] = body;
+      if (n >= this.uses.length) this.uses = grown(this.uses);
+    }
+    this.uses[n] += 1;
+    return { number: n, added };
   }
 
   private groupOf(type: SearchDocType, group: string): number {
@@ -462,23 +596,22 @@ class OwnerTable {
     return g;
   }
 
-  /** Doubles every per-slot array. */
+  /** Doubles every per-row array. */
   private grow(): void {
     const size = this.typeCode.length * 2;
-    const owned = new Int32Array(size * OWNERS_PER_DOC).fill(-1);
-    owned.set(this.owned);
-    const typeCode = new Uint8Array(size);
-    typeCode.set(this.typeCode);
-    const groupCode = new Int32Array(size).fill(-1);
-    groupCode.set(this.groupCode);
-    const marks = new Uint32Array(size);
-    marks.set(this.marks);
-    [this.owned, this.typeCode, this.groupCode, this.marks, this.buffer] = [owned, typeCode, groupCode, marks, new Int32Array(size)];
+    this.owned = grown(this.owned, size * OWNERS_PER_DOC, -1);
+    this.typeCode = grown(this.typeCode, size, FREE);
+    this.groupCode = grown(this.groupCode, size, -1);
+    this.textOf = grown(this.textOf, size, -1);
+    this.resultId = grown(this.resultId, size);
+    this.hrcTenths = grown(this.hrcTenths, size);
+    this.degTenths = grown(this.degTenths, size);
+    this.grams = grown(this.grams, size);
   }
 }
 
 function shownOf(d: SearchDoc): ShownDoc {
-  const shown: ShownDoc = { type: d.type, title: d.title, body: d.body, names: d.owners ? '' : d.names };
+  const shown: ShownDoc = { type: d.type, title: titleOf(d), body: d.body, names: d.owners ? '' : d.names };
   if (d.summary !== undefined) shown.summary = d.summary;
   if (d.id !== undefined) shown.id = d.id;
   if (d.slug !== undefined) shown.slug = d.slug;
