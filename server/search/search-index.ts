@@ -233,7 +233,7 @@ export class SearchIndex {
 
   /** Whether the index holds the document `key` (`result:12`, `steel:aisi-d2`, …). */
   has(key: string): boolean {
-    return this.docs.has(key) || this.table.slotOf(key) !== undefined;
+    return this.docs.has(key) || this.table.has(key);
   }
 
   /** Removes one document if present. */
@@ -286,8 +286,9 @@ export class SearchIndex {
    * Results and cells that match every query term through their own words or an owner's, counted
    * into `counts`; returns the best `limit` of them (of `type`, if given). Each term is first
    * scored on the owners and the distinct own texts (a few hundred MiniSearch look-ups at most);
-   * then one pass over the table's rows scores each row from those numbers, the term that reaches
-   * fewest documents first, so most rows are left after a handful of array reads.
+   * then one pass over the table's groups (documents of one type with the same owners, own text
+   * and facet group, which score alike) scores each group from those numbers, the term that
+   * reaches fewest documents first, so most groups are left after a handful of array reads.
    */
   private searchOwned(queries: Query[], type: SearchDocType | undefined, limit: number, counts: Counts): Ranked[] {
     const table = this.table;
@@ -314,23 +315,25 @@ export class SearchIndex {
       return { texts, textScore, owners, ownerScore, size };
     });
     try {
-      // The most selective term first: a row it does not match costs one term's reads.
+      // The most selective term first: a group it does not match costs one term's reads.
       const order = [...perTerm].sort((a, b) => a.size - b.size);
       if (order[0].size === 0) return [];
       const ownerScores = order.map((t) => t.ownerScore);
       const ownScores = order.map((t) => t.textScore);
       const terms = order.length;
-      const { owned, typeCode: typeOf, groupCode: groupOf, textOf } = table;
+      const { owned, typeCode: typeOf, groupCode: groupOf, textOf, members } = table;
       const wanted = type ? TYPE_CODES.indexOf(type) : -1;
       const typeCounts = new Int32Array(TYPE_CODES.length);
       const groupCounts = new Int32Array(table.groupNames.length);
-      const top: { slot: number; score: number }[] = [];
+      // The best groups, best first (equal scores in group order), as few as hold `limit` documents.
+      const top: { g: number; score: number }[] = [];
+      let held = 0;
       let floor = -Infinity;
-      for (let slot = 0, end = table.end; slot < end; slot++) {
-        const kind = typeOf[slot];
+      for (let g = 0, end = table.groups; g < end; g++) {
+        const kind = typeOf[g];
         if (kind === FREE) continue;
-        const base = slot * OWNERS_PER_DOC;
-        const text = textOf[slot];
+        const base = g * OWNERS_PER_DOC;
+        const text = textOf[g];
         let score = 0;
         let t = 0;
         // A term scores its best owner's match plus the document's own words' match: a result on a
@@ -348,14 +351,15 @@ export class SearchIndex {
           score += both;
         }
         if (t < terms) continue;
-        typeCounts[kind] += 1;
-        if (groupOf[slot] >= 0) groupCounts[groupOf[slot]] += 1;
-        // Keep the best `limit` of the type asked for, best first (rows of equal score in row order).
+        const n = members[g];
+        typeCounts[kind] += n;
+        if (groupOf[g] >= 0) groupCounts[groupOf[g]] += n;
         if (score <= floor || (wanted >= 0 && kind !== wanted)) continue;
         const at = top.findIndex((x) => score > x.score);
-        top.splice(at === -1 ? top.length : at, 0, { slot, score });
-        if (top.length > limit) top.pop();
-        if (top.length === limit) floor = top[limit - 1].score;
+        top.splice(at === -1 ? top.length : at, 0, { g, score });
+        held += n;
+        while (top.length > 1 && held - members[top[top.length - 1].g] >= limit) held -= members[top.pop()!.g];
+        if (held >= limit) floor = top[top.length - 1].score;
       }
       TYPE_CODES.forEach((t, i) => (counts.facets[t] += typeCounts[i]));
       groupCounts.forEach((n, g) => {
@@ -364,16 +368,21 @@ export class SearchIndex {
         const groups = (counts.groups[t] ??= {});
         groups[name] = (groups[name] ?? 0) + n;
       });
-      // The matched words, for the highlights, only for the documents shown.
-      const termsOf = (t: (typeof perTerm)[number], slot: number): string[] => {
+      // The matched words, for the highlights, only for the groups shown.
+      const termsOf = (t: (typeof perTerm)[number], g: number): string[] => {
         let owner: SearchResult | undefined;
-        for (let j = slot * OWNERS_PER_DOC; j < (slot + 1) * OWNERS_PER_DOC; j++) {
+        for (let j = g * OWNERS_PER_DOC; j < (g + 1) * OWNERS_PER_DOC; j++) {
           const o = owned[j];
           if (o >= 0 && t.ownerScore[o] > 0 && (!owner || t.owners.get(o)!.score > owner.score)) owner = t.owners.get(o);
         }
-        return [...(t.texts.get(textOf[slot])?.terms ?? []), ...(owner?.terms ?? [])];
+        return [...(t.texts.get(textOf[g])?.terms ?? []), ...(owner?.terms ?? [])];
       };
-      return top.map(({ slot, score }) => ({ shown: table.shown(slot, this.docs), score, terms: perTerm.flatMap((t) => termsOf(t, slot)) }));
+      const ranked: Ranked[] = [];
+      for (const { g, score } of top) {
+        const matched = perTerm.flatMap((t) => termsOf(t, g));
+        for (const row of table.rowsOf(g, limit - ranked.length)) ranked.push({ shown: table.shown(row, this.docs), score, terms: matched });
+      }
+      return ranked;
     } finally {
       for (const t of perTerm) for (const n of t.texts.keys()) t.textScore[n] = 0;
     }
@@ -381,7 +390,7 @@ export class SearchIndex {
 }
 
 const TYPE_CODES: SearchDocType[] = ['steel', 'abrasive', 'method', 'result', 'cell'];
-/** The type code of a row no document holds. */
+/** The type code of a group no document is in. */
 const FREE = 255;
 
 /** Counts a hit into the type facets and its type's groups. */
@@ -404,24 +413,37 @@ function grown<T extends Int32Array | Uint8Array | Float64Array>(array: T, size 
 }
 
 /**
- * The documents with owners (results, cells) as rows of typed arrays, and the owners and own texts
- * they refer to, numbered densely: `owned` holds each row's owner numbers (OWNERS_PER_DOC per row,
- * in OWNER_PLACES order, -1 for none), `textOf` its own text's number (-1 for none). A result is
- * found by its id (`rowOfResult`) and shown from its row (its figures in tenths, its owners'
- * labels); a cell by its key, shown from the index's map. An own text shared by several documents
- * is held and indexed once.
+ * The documents with owners (results, cells) as rows of typed arrays, in groups that score alike:
+ * one group per type, owners, own text and facet group. A group holds its owner numbers
+ * (`owned`, OWNERS_PER_DOC per group in OWNER_PLACES order, -1 for none), its own text's number
+ * (`textOf`, -1 for none), its type and facet group, its number of documents (`members`) and
+ * its rows as a list in the order added (`first`, `last`, `next`, `previous`). A row is one
+ * document: a result, found by its id (`rowOfResult`), keeps its figures in tenths and is shown
+ * from them and its group's owners' labels; a cell is found by its key and shown from the index's
+ * map. Owners and own texts are numbered densely; an own text shared by several documents is
+ * held and indexed once. On the bench's 100 000 results (copies of the demo's, spread over its
+ * members) about 500 groups; at worst one per document.
  */
 class OwnedTable {
-  /** Rows in use or freed: the search passes over rows [0, end). */
-  end = 0;
   results = 0;
-  private readonly free: number[] = [];
-  owned = new Int32Array(1024 * OWNERS_PER_DOC).fill(-1);
-  typeCode = new Uint8Array(1024).fill(FREE);
-  /** Each row's group (index in groupNames, -1 for none), for the facets. */
-  groupCode = new Int32Array(1024).fill(-1);
-  textOf = new Int32Array(1024).fill(-1);
-  /** A result's id and figures: HRC and degrees per side in tenths, the median in whole grams. */
+  /** Groups in use or freed: the search passes over groups [0, groups). */
+  groups = 0;
+  private readonly freeGroups: number[] = [];
+  private readonly groupNumber = new Map<string, number>();
+  owned = new Int32Array(256 * OWNERS_PER_DOC).fill(-1);
+  typeCode = new Uint8Array(256).fill(FREE);
+  /** Each group's facet group (index in groupNames, -1 for none). */
+  groupCode = new Int32Array(256).fill(-1);
+  textOf = new Int32Array(256).fill(-1);
+  members = new Int32Array(256);
+  private first = new Int32Array(256).fill(-1);
+  private last = new Int32Array(256).fill(-1);
+  /** Rows: each one's group, neighbours in it, and a result's id and figures. */
+  private rows = 0;
+  private readonly freeRows: number[] = [];
+  private groupOfRow = new Int32Array(1024);
+  private next = new Int32Array(1024);
+  private previous = new Int32Array(1024);
   private resultId = new Int32Array(1024);
   private hrcTenths = new Int32Array(1024);
   private degTenths = new Int32Array(1024);
@@ -431,13 +453,13 @@ class OwnedTable {
   private readonly rowOfKey = new Map<string, number>();
   private readonly keyOfRow = new Map<number, string>();
   readonly groupNames: [SearchDocType, string][] = [];
-  private readonly groupNumber = new Map<string, number>();
+  private readonly facetNumber = new Map<string, number>();
   readonly ownerNumber = new Map<string, number>();
   readonly ownerKeys: string[] = [];
   readonly words: string[] = [];
   readonly labels: string[] = [];
   /** Per owner number, how many documents have it. */
-  private members = new Int32Array(256);
+  private ownerUses = new Int32Array(256);
   /** Own texts: number by text, the text by number, how many documents use it, numbers free again. */
   private readonly textNumber = new Map<string, number>();
   private readonly textNames: string[] = [];
@@ -449,15 +471,19 @@ class OwnedTable {
     return this.textBodies.length;
   }
 
-  slotOf(key: string): number | undefined {
+  private rowOf(key: string): number | undefined {
     if (!key.startsWith('result:')) return this.rowOfKey.get(key);
     const id = Number(key.slice('result:'.length));
     const row = Number.isInteger(id) && id >= 0 && id < this.rowOfResult.length ? this.rowOfResult[id] : -1;
     return row >= 0 ? row : undefined;
   }
 
+  has(key: string): boolean {
+    return this.rowOf(key) !== undefined;
+  }
+
   memberCount(owner: number): number {
-    return this.members[owner];
+    return this.ownerUses[owner];
   }
 
   textUses(text: number): number {
@@ -471,19 +497,27 @@ class OwnedTable {
     return out;
   }
 
-  /** How row `slot` is shown as a hit (a cell's from `docs`, where the index keeps it). */
-  shown(slot: number, docs: Map<string, ShownDoc>): ShownDoc {
-    const key = this.keyOfRow.get(slot);
+  /** The first `count` rows of group `g`, in the order added. */
+  rowsOf(g: number, count: number): number[] {
+    const out: number[] = [];
+    for (let row = this.first[g]; row >= 0 && out.length < count; row = this.next[row]) out.push(row);
+    return out;
+  }
+
+  /** How row `row` is shown as a hit (a cell's from `docs`, where the index keeps it). */
+  shown(row: number, docs: Map<string, ShownDoc>): ShownDoc {
+    const key = this.keyOfRow.get(row);
     if (key !== undefined) return docs.get(key)!;
+    const g = this.groupOfRow[row];
     const label = (place: number) => {
-      const o = this.owned[slot * OWNERS_PER_DOC + place];
+      const o = this.owned[g * OWNERS_PER_DOC + place];
       return o >= 0 ? this.labels[o] : undefined;
     };
-    const text = this.textOf[slot];
+    const text = this.textOf[g];
     return {
       type: 'result',
-      id: this.resultId[slot],
-      title: resultTitle(label(0) ?? '', label(1) ?? '', this.hrcTenths[slot], this.degTenths[slot], this.grams[slot], label(3)),
+      id: this.resultId[row],
+      title: resultTitle(label(0) ?? '', label(1) ?? '', this.hrcTenths[row], this.degTenths[row], this.grams[row], label(3)),
       body: text >= 0 ? this.textBodies[text] : '',
       names: '',
     };
@@ -499,24 +533,8 @@ class OwnedTable {
     const isResult = doc.type === 'result';
     if (isResult && (doc.id === undefined || !doc.figures)) throw new Error(`the result document ${doc.key} needs its id and figures`);
     this.remove(doc.key);
-    const slot = this.free.pop() ?? this.end++;
-    if (slot >= this.typeCode.length) this.grow();
-    this.typeCode[slot] = TYPE_CODES.indexOf(doc.type);
-    this.groupCode[slot] = doc.group ? this.groupOf(doc.type, doc.group) : -1;
-    if (isResult) {
-      const id = doc.id!;
-      if (id >= this.rowOfResult.length) this.rowOfResult = grown(this.rowOfResult, Math.max(id + 1, this.rowOfResult.length * 2), -1);
-      this.rowOfResult[id] = slot;
-      this.resultId[slot] = id;
-      this.hrcTenths[slot] = Math.round(doc.figures!.hrc * 10);
-      this.degTenths[slot] = Math.round(doc.figures!.perSideDeg * 10);
-      this.grams[slot] = Math.round(doc.figures!.medianG);
-      this.results += 1;
-    } else {
-      this.rowOfKey.set(doc.key, slot);
-      this.keyOfRow.set(slot, doc.key);
-    }
     const changed: SearchOwner[] = [];
+    const numbers = [-1, -1, -1, -1];
     for (const o of owners) {
       const place = OWNER_PLACES.indexOf(o.key.slice(0, o.key.indexOf(':')) as (typeof OWNER_PLACES)[number]);
       if (place < 0) throw new Error(`a search owner's key starts with one of ${OWNER_PLACES.join(', ')} (got "${o.key}")`);
@@ -527,46 +545,95 @@ class OwnedTable {
         this.ownerKeys.push(o.key);
         this.words.push('');
         this.labels.push('');
-        if (n >= this.members.length) this.members = grown(this.members);
+        if (n >= this.ownerUses.length) this.ownerUses = grown(this.ownerUses);
       }
       if (this.words[n] !== o.words || this.labels[n] !== o.label) {
         this.words[n] = o.words;
         this.labels[n] = o.label;
         changed.push(o);
       }
-      this.members[n] += 1;
-      this.owned[slot * OWNERS_PER_DOC + place] = n;
+      this.ownerUses[n] += 1;
+      numbers[place] = n;
     }
     const text = this.useText(doc.names, doc.body);
-    this.textOf[slot] = text?.number ?? -1;
+    const g = this.groupFor(TYPE_CODES.indexOf(doc.type), doc.group ? this.facetOf(doc.type, doc.group) : -1, text?.number ?? -1, numbers);
+    const row = this.freeRows.pop() ?? this.rows++;
+    if (row >= this.groupOfRow.length) this.growRows();
+    this.groupOfRow[row] = g;
+    this.previous[row] = this.last[g];
+    this.next[row] = -1;
+    if (this.last[g] >= 0) this.next[this.last[g]] = row;
+    else this.first[g] = row;
+    this.last[g] = row;
+    this.members[g] += 1;
+    if (isResult) {
+      const id = doc.id!;
+      if (id >= this.rowOfResult.length) this.rowOfResult = grown(this.rowOfResult, Math.max(id + 1, this.rowOfResult.length * 2), -1);
+      this.rowOfResult[id] = row;
+      this.resultId[row] = id;
+      this.hrcTenths[row] = Math.round(doc.figures!.hrc * 10);
+      this.degTenths[row] = Math.round(doc.figures!.perSideDeg * 10);
+      this.grams[row] = Math.round(doc.figures!.medianG);
+      this.results += 1;
+    } else {
+      this.rowOfKey.set(doc.key, row);
+      this.keyOfRow.set(row, doc.key);
+    }
     return { owners: changed, text: text?.added ? { key: text.number, names: doc.names, body: doc.body } : null };
   }
 
   /** Forgets the document `key`; returns its own text's number when no document uses it any more (to be dropped from the index). */
   remove(key: string): number | null {
-    const slot = this.slotOf(key);
-    if (slot === undefined) return null;
-    for (let j = slot * OWNERS_PER_DOC; j < (slot + 1) * OWNERS_PER_DOC; j++) {
-      if (this.owned[j] >= 0) this.members[this.owned[j]] -= 1;
-      this.owned[j] = -1;
-    }
-    if (this.typeCode[slot] === TYPE_CODES.indexOf('result')) {
-      this.rowOfResult[this.resultId[slot]] = -1;
-      this.results -= 1;
-    } else {
+    const row = this.rowOf(key);
+    if (row === undefined) return null;
+    const g = this.groupOfRow[row];
+    if (this.keyOfRow.has(row)) {
       this.rowOfKey.delete(key);
-      this.keyOfRow.delete(slot);
+      this.keyOfRow.delete(row);
+    } else {
+      this.rowOfResult[this.resultId[row]] = -1;
+      this.results -= 1;
     }
-    this.typeCode[slot] = FREE;
-    this.groupCode[slot] = -1;
-    const text = this.textOf[slot];
-    this.textOf[slot] = -1;
-    this.free.push(slot);
+    const [before, after] = [this.previous[row], this.next[row]];
+    if (before >= 0) this.next[before] = after;
+    else this.first[g] = after;
+    if (after >= 0) this.previous[after] = before;
+    else this.last[g] = before;
+    this.freeRows.push(row);
+    for (let j = g * OWNERS_PER_DOC; j < (g + 1) * OWNERS_PER_DOC; j++) if (this.owned[j] >= 0) this.ownerUses[this.owned[j]] -= 1;
+    const text = this.textOf[g];
+    if (--this.members[g] === 0) this.freeGroup(g);
     if (text < 0 || --this.uses[text] > 0) return null;
     this.textNumber.delete(`${this.textNames[text]}\u0000${this.textBodies[text]}`);
     this.textNames[text] = this.textBodies[text] = '';
     this.freeTexts.push(text);
     return text;
+  }
+
+  /** The group of documents of this type, facet group, own text and owners (made when new). */
+  private groupFor(kind: number, facet: number, text: number, owners: number[]): number {
+    const key = `${kind} ${facet} ${text} ${owners.join(' ')}`;
+    let g = this.groupNumber.get(key);
+    if (g !== undefined) return g;
+    g = this.freeGroups.pop() ?? this.groups++;
+    if (g >= this.typeCode.length) this.growGroups();
+    this.groupNumber.set(key, g);
+    this.typeCode[g] = kind;
+    this.groupCode[g] = facet;
+    this.textOf[g] = text;
+    this.owned.set(owners, g * OWNERS_PER_DOC);
+    this.first[g] = this.last[g] = -1;
+    return g;
+  }
+
+  private freeGroup(g: number): void {
+    const owners = Array.from(this.owned.subarray(g * OWNERS_PER_DOC, (g + 1) * OWNERS_PER_DOC));
+    this.groupNumber.delete(`${this.typeCode[g]} ${this.groupCode[g]} ${this.textOf[g]} ${owners.join(' ')}`);
+    this.typeCode[g] = FREE;
+    this.groupCode[g] = -1;
+    this.textOf[g] = -1;
+    this.owned.fill(-1, g * OWNERS_PER_DOC, (g + 1) * OWNERS_PER_DOC);
+    this.freeGroups.push(g);
   }
 
   /** The number of the own text (names, body), counted as used once more; null for no words. */
@@ -586,27 +653,32 @@ class OwnedTable {
     return { number: n, added };
   }
 
-  private groupOf(type: SearchDocType, group: string): number {
+  private facetOf(type: SearchDocType, group: string): number {
     const key = `${type}:${group}`;
-    let g = this.groupNumber.get(key);
+    let g = this.facetNumber.get(key);
     if (g === undefined) {
       g = this.groupNames.push([type, group]) - 1;
-      this.groupNumber.set(key, g);
+      this.facetNumber.set(key, g);
     }
     return g;
   }
 
-  /** Doubles every per-row array. */
-  private grow(): void {
+  /** Doubles every per-group array. */
+  private growGroups(): void {
     const size = this.typeCode.length * 2;
     this.owned = grown(this.owned, size * OWNERS_PER_DOC, -1);
     this.typeCode = grown(this.typeCode, size, FREE);
     this.groupCode = grown(this.groupCode, size, -1);
     this.textOf = grown(this.textOf, size, -1);
-    this.resultId = grown(this.resultId, size);
-    this.hrcTenths = grown(this.hrcTenths, size);
-    this.degTenths = grown(this.degTenths, size);
-    this.grams = grown(this.grams, size);
+    this.members = grown(this.members, size);
+    this.first = grown(this.first, size, -1);
+    this.last = grown(this.last, size, -1);
+  }
+
+  /** Doubles every per-row array. */
+  private growRows(): void {
+    const size = this.groupOfRow.length * 2;
+    for (const name of ['groupOfRow', 'next', 'previous', 'resultId', 'hrcTenths', 'degTenths', 'grams'] as const) this[name] = grown(this[name], size);
   }
 }
 

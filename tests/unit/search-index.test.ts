@@ -140,6 +140,18 @@ describe('results and the pages they refer to', () => {
     expect(hit.titleHighlights.map(([a, b]) => hit.title.slice(a, b))).toEqual(['D2', 'CBN']);
   });
 
+  it('shows results that score alike in the order added, up to the limit, across a removal', async () => {
+    const s = new SearchIndex();
+    await s.rebuild([result(1, [d2, cbn]), result(2, [d2, diamond]), result(3, [d2, cbn]), result(4, [d2, cbn]), result(5, [d2, cbn, member])]);
+    expect(s.search('cbn', 'result', 3).hits.map((h) => h.id)).toEqual([1, 3, 4]);
+    expect(s.search('cbn', 'result', 3).facets.result).toBe(4);
+    s.remove('result:3');
+    s.upsert(result(6, [d2, cbn]));
+    expect(s.search('cbn', 'result', 3).hits.map((h) => h.id)).toEqual([1, 4, 6]);
+    expect(s.search('cbn grey', 'result').hits.map((h) => h.id)).toEqual([5]);
+    expect(s.search('d2').facets.result).toBe(5);
+  });
+
   it('holds notes shared by several results once, and drops them with the last result that had them', async () => {
     const s = await withResults();
     s.upsert(result(4, [d2, diamond], 'Burr came off cleanly'));
