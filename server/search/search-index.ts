@@ -144,9 +144,9 @@ export function titleOf(doc: SearchDoc): string {
  * - `owners` holds, once each, the words such documents take from what they refer to: the steel
  *   (name, designations), the abrasive at its grit, the method, the member.
  * A result or cell matches a query term through its own words or through one of its owners. The
- * documents themselves are rows of typed arrays (`OwnedTable`: their owners, own text, type,
- * group, and a result's figures), not objects: a query scores every row in one pass of array
- * reads, and 300 000 results take about 50 bytes each. Prefix matching only on the last term and
+ * documents themselves are rows of typed arrays in groups that score alike (`OwnedTable`), not
+ * objects: a query scores each group once in one pass of array reads, and a result takes about
+ * 32 bytes beside its notes (decision 033). Prefix matching only on the last term and
  * fuzzy matching only on terms of 5 or more characters keep the number of candidate terms, and
  * so the time per query, small.
  */
