@@ -17,7 +17,9 @@
  *    in), 20 % unique searches, 10 % varied result submissions. Each phase reports its rate,
  *    p50/p95/p99 (from every response), the answer cache's hit ratio over the phase (from
  *    /api/health), and the p99 wait of a health check sent every 100 ms during it.
- * 4. Counts the stored results (every submission answered 201 must be there), prints a table,
+ * 4. Asks SQLite FTS5 over the same search documents the search phases' own queries
+ *    (bench/fts.ts, in-process), as the search's yardstick.
+ * 5. Counts the stored results (every submission answered 201 must be there), prints a table,
  *    and one JSON line last.
  *
  * BENCH_RESULTS (default 100000), BENCH_SECONDS (per phase, default 8), BENCH_KEEP=<dir> (build
@@ -53,6 +55,8 @@ import { buildServer, serverNodeFlags } from '../scripts/build-server';
 import { LocalOAuthProvider } from '../server/auth/local-provider';
 import { startCluster, type Cluster } from '../tests/setup/postgres-cluster';
 import { rand, traffic, vocabulary, type Req } from './traffic';
+import { ftsTimes } from './fts';
+import { allSearchDocs } from '../server/search/documents';
 
 const TOTAL = Number(process.env.BENCH_RESULTS ?? 100_000);
 const PHASE_SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
@@ -480,6 +484,12 @@ const bundle = await buildServer();
 const figures: Figure[] = [];
 const servers: { cache: 'on' | 'off'; process: number; bootS: number; rssMb: number }[] = [];
 say(`${DIALECT === 'postgres' ? 'PostgreSQL' : 'SQLite'}, ${PROCS} server process${PROCS > 1 ? 'es' : ''}.`);
+/** The search phases' queries, for FTS5 after the servers stop. */
+const searchQueries: string[] = [];
+const asked = (r: Req): Req => {
+  searchQueries.push(new URL(r.path, base).searchParams.get('q')!);
+  return r;
+};
 for (const cache of CACHES) {
   bases = Array.from({ length: PROCS }, (_, i) => `http://${HOST}:${PORTS.server(cache, i)}`);
   base = bases[0];
@@ -512,7 +522,7 @@ for (const cache of CACHES) {
     list: () => phase('home list pages', cache, () => t.list()),
     visitors: () => phase('pages, visitors', cache, () => (rand() < 0.5 ? t.steel() : t.abrasive())),
     members: () => phase('pages, members', cache, () => (rand() < 0.5 ? t.steel(true) : t.abrasive(true))),
-    search: () => phase('unique search, 1 conn', cache, t.search, 1),
+    search: () => phase('unique search, 1 conn', cache, () => asked(t.search()), 1),
     mix: () => phase('mix 70/20/10', cache, t.mixed),
   };
   for (const p of ALL_PHASES) if (ONLY.includes(p)) figures.push(await phases[p]());
@@ -522,6 +532,17 @@ for (const cache of CACHES) {
 }
 hello.kill('SIGTERM');
 await provider.stop();
+
+// The yardstick: SQLite FTS5 over the same documents, asked the search phases' own queries.
+let fts: { queries: number; p50: number; p95: number } | null = null;
+if (searchQueries.length) {
+  const db = openDatabase();
+  await db.migrate();
+  const ftsMs = await ftsTimes(allSearchDocs(), searchQueries);
+  await db.close();
+  fts = { queries: ftsMs.length, p50: percentile(ftsMs, 0.5), p95: percentile(ftsMs, 0.95) };
+  say(`  SQLite FTS5 on the same documents and the search phases' ${fts.queries} queries (in-process, no HTTP): p50 ${fts.p50} ms, p95 ${fts.p95} ms.`);
+}
 
 const resultsAfter = await countResults();
 const acknowledged = figures.reduce((n, f) => n + f.created, 0);
@@ -548,6 +569,7 @@ console.log(
     servers,
     figures: figures.map(({ statusCodes: _s, ...f }) => f),
     membersOfVisitors: { on: members('on'), off: members('off') },
+    fts,
     writes: { acknowledged, stored, lost, serverErrors },
     failed: failures,
     seconds: seconds(),

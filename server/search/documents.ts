@@ -51,36 +51,25 @@ export function methodDoc(method: Method, aliases: string[] = []): SearchDoc {
   };
 }
 
-/** What of a result its search document shows. */
-type ResultFacts = Pick<Result, 'id' | 'hrc' | 'perSideDeg' | 'sharpnessMedianG'> & {
-  input: { notes?: RichTextNode };
-  steel?: { name: string };
-  abrasive?: { name: string };
-  author?: { handle: string };
-};
+/** What of a result its search document holds. */
+type ResultFacts = Pick<Result, 'id' | 'hrc' | 'perSideDeg' | 'sharpnessMedianG'> & { input: { notes?: RichTextNode } };
 
 /**
  * An approved result as a search document (needs steel, abrasive, author and method loaded). Its
  * own words are its notes; its steel, abrasive at its grit, method and author lend it
- * theirs (see SearchIndex), so a query on a grade or a material matches the result too.
+ * theirs (see SearchIndex), so a query on a grade or a material matches the result too. Its
+ * title ("AISI D2 on <abrasive> · 61 HRC · 15° per side · median 142 g · @handle") is made
+ * from its owners' labels and its figures when it is shown (`titleOf`).
  */
 export function resultDoc(result: ResultFacts, owners: SearchOwner[] = resultOwners(result as Result)): SearchDoc {
-  const steel = result.steel!;
-  const abrasive = result.abrasive!;
   return {
     key: `result:${result.id}`,
     type: 'result',
     id: result.id,
-    // join() makes one flat string; a template literal leaves a tree of pieces, which at 100 000
-    // results held some 30 MB.
-    // The result page's own words: "AISI D2 on <abrasive> · 61 HRC · 15° per side · median 142 g".
-    title: [
-      steel.name, ' on ', abrasive.name, ' · ', Math.round(result.hrc * 10) / 10, ' HRC · ', Math.round(result.perSideDeg * 10) / 10, '° per side · median ',
-      Math.round(result.sharpnessMedianG), ' g', result.author ? ` · @${result.author.handle}` : '',
-    ].join(''),
     names: '',
     body: richTextToPlain(result.input.notes, BLOCKS),
     owners,
+    figures: { hrc: result.hrc, perSideDeg: result.perSideDeg, medianG: result.sharpnessMedianG },
   };
 }
 
@@ -205,7 +194,7 @@ async function* approvedResultDocs(): AsyncGenerator<SearchDoc> {
         ...(u ? [once(`u${u.id}`, () => memberOwner(u))] : []),
       ];
       const notes = r.notes ? (JSON.parse(r.notes) as RichTextNode) : undefined;
-      yield resultDoc({ id: r.id, hrc: r.hrc, perSideDeg: r.perSideDeg, sharpnessMedianG: r.sharpnessMedianG, input: { notes }, steel: s, abrasive: a, author: u }, resultOwners);
+      yield resultDoc({ id: r.id, hrc: r.hrc, perSideDeg: r.perSideDeg, sharpnessMedianG: r.sharpnessMedianG, input: { notes } }, resultOwners);
     }
   }
 }

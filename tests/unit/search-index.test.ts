@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { matchedSpans, SearchIndex, tokenizeQuery, transpositions, type SearchDoc } from '../../server/search/search-index';
+import type { SearchOwner } from '../../server/search/owners';
 
 const docs: SearchDoc[] = [
   { key: 'steel:aisi-52100', type: 'steel', slug: 'aisi-52100', title: 'AISI 52100', names: 'AISI 52100 SAE 52100 EN 100Cr6 WNr 1.3505 JIS SUJ2', body: 'A bearing steel, very clean for rolling contact.', group: 'low-alloy' },
@@ -83,10 +84,12 @@ describe('matchedSpans', () => {
 });
 
 describe('results and the pages they refer to', () => {
-  const d2 = { key: 'steel:1', words: 'AISI D2 D2 1.2379 SKD11' };
-  const cbn = { key: 'abrasive:7:B126', words: 'CBN wheel B126 cubic boron nitride cbn B126 126 µm' };
-  const diamond = { key: 'abrasive:8:D46', words: 'Diamond plate D46 diamond D46 46 µm' };
-  const result = (id: number, owners: { key: string; words: string }[], notes = ''): SearchDoc => ({ key: `result:${id}`, type: 'result', id, title: `Result ${id}`, names: '', body: notes, owners });
+  const d2 = { key: 'steel:1', words: 'AISI D2 D2 1.2379 SKD11', label: 'AISI D2' };
+  const cbn = { key: 'abrasive:7:B126', words: 'CBN wheel B126 cubic boron nitride cbn B126 126 µm', label: 'CBN wheel B126' };
+  const diamond = { key: 'abrasive:8:D46', words: 'Diamond plate D46 diamond D46 46 µm', label: 'Diamond plate D46' };
+  const member = { key: 'member:4', words: 'grey-hone', label: 'grey-hone' };
+  const figures = { hrc: 61.04, perSideDeg: 14.95, medianG: 142.4 };
+  const result = (id: number, owners: SearchOwner[], notes = ''): SearchDoc => ({ key: `result:${id}`, type: 'result', id, names: '', body: notes, owners, figures });
   const withResults = async () => {
     const s = new SearchIndex();
     await s.rebuild([...docs, result(1, [d2, cbn], 'Burr came off cleanly'), result(2, [d2, diamond]), result(3, [d2, cbn])]);
@@ -148,11 +151,38 @@ describe('results and the pages they refer to', () => {
     expect(s.size).toBe(docs.length + 2);
   });
 
-  it('highlights the owner words that matched in the result title', async () => {
+  it('titles a result from its owners and figures, and highlights the owner words that matched there', async () => {
     const s = new SearchIndex();
-    await s.rebuild([{ ...result(1, [d2, cbn]), title: 'AISI D2 at 61 HRC on CBN wheel B126' }]);
+    await s.rebuild([result(1, [d2, cbn, member])]);
     const [hit] = s.search('d2 cbn').hits;
+    // The figures rounded as Math.round(x * 10) / 10 rounds them (HRC, degrees) and whole grams.
+    expect(hit.title).toBe('AISI D2 on CBN wheel B126 · 61 HRC · 15° per side · median 142 g · @grey-hone');
     expect(hit.titleHighlights.map(([a, b]) => hit.title.slice(a, b))).toEqual(['D2', 'CBN']);
+  });
+
+  it('shows results that score alike in the order added, up to the limit, across a removal', async () => {
+    const s = new SearchIndex();
+    await s.rebuild([result(1, [d2, cbn]), result(2, [d2, diamond]), result(3, [d2, cbn]), result(4, [d2, cbn]), result(5, [d2, cbn, member])]);
+    expect(s.search('cbn', 'result', 3).hits.map((h) => h.id)).toEqual([1, 3, 4]);
+    expect(s.search('cbn', 'result', 3).facets.result).toBe(4);
+    s.remove('result:3');
+    s.upsert(result(6, [d2, cbn]));
+    expect(s.search('cbn', 'result', 3).hits.map((h) => h.id)).toEqual([1, 4, 6]);
+    expect(s.search('cbn grey', 'result').hits.map((h) => h.id)).toEqual([5]);
+    expect(s.search('d2').facets.result).toBe(5);
+  });
+
+  it('holds notes shared by several results once, and drops them with the last result that had them', async () => {
+    const s = await withResults();
+    s.upsert(result(4, [d2, diamond], 'Burr came off cleanly'));
+    expect(s.search('burr', 'result').hits.map((h) => h.id).sort()).toEqual([1, 4]);
+    expect(s.search('burr', 'result').hits[0].snippet).toBe('Burr came off cleanly');
+    s.remove('result:1');
+    s.upsert(result(4, [d2, diamond]));
+    expect(s.search('burr').facets.result).toBe(0);
+    s.upsert(result(5, [d2, cbn], 'Burr came off cleanly'));
+    expect(s.search('burr cbn', 'result').hits.map((h) => h.id)).toEqual([5]);
+    expect(s.has('result:5') && !s.has('result:1')).toBe(true);
   });
 });
 
