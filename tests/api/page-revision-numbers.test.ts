@@ -35,7 +35,8 @@ describe('migration 0014: a number per page for every page revision', () => {
   it('numbers interleaved edits of several pages from 1 per page, in the order saved, and rewrites the server’s own summaries', async () => {
     const qi = db.sequelize.getQueryInterface();
     const now = new Date('2026-11-02T10:00:00Z');
-    await qi.bulkInsert('users', [{ id: 1, handle: 'numbering-test', displayName: 'Numbering test', email: null, role: 'moderator', banned: false, oauthSubject: 'numbering-test', bio: null, createdAt: now, updatedAt: now }]);
+    // A fresh table numbers its rows from 1 on both dialects; ids are left to the database so its sequence follows.
+    await qi.bulkInsert('users', [{ handle: 'numbering-test', displayName: 'Numbering test', email: null, role: 'moderator', banned: false, oauthSubject: 'numbering-test', bio: null, createdAt: now, updatedAt: now }]);
     // id → page, in the order saved: steel 1 and steel 2 edited in turns, an abrasive 1 between them.
     const saved: [number, string, number, string, Partial<{ kind: string; baseRevisionId: number; revertedFromId: number; appliedFromId: number; status: string }>][] = [
       [1, 'steel', 1, 'First text', {}],
@@ -51,7 +52,7 @@ describe('migration 0014: a number per page for every page revision', () => {
     ];
     await qi.bulkInsert(
       'page_revisions',
-      saved.map(([id, pageType, pageId, summary, more]) => ({ id, pageType, pageId, authorId: 1, summary, fields: '{}', body: null, status: 'live', kind: 'edit', createdAt: now, updatedAt: now, ...more })),
+      saved.map(([, pageType, pageId, summary, more]) => ({ pageType, pageId, authorId: 1, summary, fields: '{}', body: null, status: 'live', kind: 'edit', createdAt: now, updatedAt: now, ...more })),
     );
 
     await db.migrate();
