@@ -25,7 +25,7 @@ function RevertButton({ section, slug, revision }: { section: WikiSection; slug:
   }
   return (
     <span className="flex flex-wrap items-center gap-2">
-      <span className="text-sm">Make revision {revision.id} current again, as a new revision?</span>
+      <span className="text-sm">Make revision {revision.number} current again, as a new revision?</span>
       <Button size="sm" busy={revert.isPending} onClick={() => revert.mutate({ toRevision: revision.id })}>
         Yes, revert
       </Button>
@@ -59,7 +59,7 @@ function HistoryLoaded({ section, slug }: { section: WikiSection; slug: string }
   return (
     <>
       <WikiCrumbs section={section} slug={slug} name={name} here="History" />
-      <PageTitle title={`History of ${name}`} lead="Every saved revision, newest first. Nothing is overwritten or deleted: pick any two to compare them side by side.">
+      <PageTitle title={`History of ${name}`} lead="Every saved revision of this page, numbered from 1 and listed newest first. Nothing is overwritten or deleted: pick any two to compare them side by side.">
         History of {name}
       </PageTitle>
       {history.data.page.mergedInto ? (
@@ -96,13 +96,13 @@ function HistoryLoaded({ section, slug }: { section: WikiSection; slug: string }
                 return (
                   <tr key={r.id} className={r.current ? 'bg-accent-soft/40' : ''}>
                     <td className="border-b border-rule/60 px-3 py-2">
-                      <input type="radio" name="from" aria-label={`Compare from revision ${r.id}`} checked={chosenFrom === r.id} onChange={() => setFrom(r.id)} />
+                      <input type="radio" name="from" aria-label={`Compare from revision ${r.number}`} checked={chosenFrom === r.id} onChange={() => setFrom(r.id)} />
                     </td>
                     <td className="border-b border-rule/60 px-3 py-2">
-                      <input type="radio" name="to" aria-label={`Compare to revision ${r.id}`} checked={chosenTo === r.id} onChange={() => setTo(r.id)} />
+                      <input type="radio" name="to" aria-label={`Compare to revision ${r.number}`} checked={chosenTo === r.id} onChange={() => setTo(r.id)} />
                     </td>
                     <td className="border-b border-rule/60 px-3 py-2 whitespace-nowrap">
-                      <Link to={paths.wiki.revision.getHref(section, slug, r.id)}>Revision {r.id}</Link>
+                      <Link to={paths.wiki.revision.getHref(section, slug, r.id)}>Revision {r.number}</Link>
                       {r.current ? <span className="ml-2"><Badge tone="accent">current</Badge></span> : null}
                     </td>
                     <td className="border-b border-rule/60 px-3 py-2 whitespace-nowrap">{formatDateTime(r.createdAt)}</td>
