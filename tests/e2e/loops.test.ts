@@ -31,6 +31,9 @@ async function screenshot(name: string) {
   await page.setViewportSize({ width: 1280, height: 900 });
 }
 
+/** The demo accounts the sign-in page offers. */
+const demoAccounts = async () => (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
+
 /** The signed-in browser's own API call (session cookie and CSRF token). */
 async function browserPost<T>(url: string, body: unknown): Promise<T> {
   return page.evaluate(
@@ -50,7 +53,7 @@ describe('edit and resubmit, corrections, members', () => {
   let id = 0;
 
   it('a moderator returns a result with a note; the member edits and resubmits it', async () => {
-    accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
+    accounts = await demoAccounts();
     member = accounts.filter((a) => a.role === 'member')[1];
     moderator = accounts.find((a) => a.role === 'moderator')!;
 
@@ -151,7 +154,7 @@ describe('edit and resubmit, corrections, members', () => {
 
 describe('an import report that says everything', () => {
   it('a publisher checks a file whose rows have several bad fields and a near-miss slug: every problem is listed, with the nearest slug', async () => {
-    const accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
+    const accounts = await demoAccounts();
     const good: Record<string, string> = {
       steel: 'aisi-d2', hardness: '61', abrasive: 'cbn-electroplated-wheel-250-b126', grit_standard: 'iso6106', grit: 'B126',
       angle_per_side_deg: '15', sharpness_method: 'push-cut-test-v2', readings_g: '180;175;190', notes: 'Invented browser-test row.',
@@ -174,7 +177,7 @@ describe('an import report that says everything', () => {
 
 describe('a page edit, its history numbered per page, a diff and a revert', () => {
   it('a moderator edits a steel page twice; the history names revisions 1, 2 and 3 of this page; a diff; a revert makes revision 4', async () => {
-    const accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
+    const accounts = await demoAccounts();
     const moderator = accounts.find((a) => a.role === 'moderator')!;
     const slug = 'aisi-440a';
     await signInAs(moderator.handle, `/steels/${slug}/edit`);
@@ -222,7 +225,7 @@ describe('small things found by walking it (issue 17, item 6)', () => {
   }, 60_000);
 
   it('the new-result page logs no "NaN cannot be parsed" warning, and offers no retention method for sharpness', async () => {
-    const accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
+    const accounts = await demoAccounts();
     const messages: string[] = [];
     const listen = (m: { text: () => string }) => messages.push(m.text());
     page.on('console', listen);
