@@ -4,6 +4,7 @@ import { paths } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
+import { cardBodyClass, cardCellClass, cardRowClass, cardTableClass } from '@/components/ui/table-frame';
 import { PageTitle } from '@/components/ui/page-title';
 import { describeError, ErrorState, Loading } from '@/components/ui/states';
 import { useHistory } from '../api/get-history';
@@ -41,9 +42,9 @@ function RevertButton({ section, slug, revision }: { section: WikiSection; slug:
   );
 }
 
-// Below the md breakpoint each revision is drawn as a card, every cell labelled from data-label (as the comparison's table, decision 028).
-const CARD = 'max-md:grid max-md:grid-cols-2 max-md:gap-x-3 max-md:gap-y-2 max-md:rounded-md max-md:border max-md:border-rule max-md:p-3';
-const CELL = 'border-b border-rule/60 px-3 py-2 max-md:border-0 max-md:p-0 max-md:before:block max-md:before:text-xs max-md:before:text-muted max-md:before:content-[attr(data-label)]';
+// Below the md breakpoint each revision is drawn as a card, every cell labelled from data-label.
+const CARD = cardRowClass;
+const CELL = `border-b border-rule/60 px-3 py-2 ${cardCellClass}`;
 
 function HistoryLoaded({ section, slug }: { section: WikiSection; slug: string }) {
   const history = useHistory(section, slug);
@@ -80,7 +81,7 @@ function HistoryLoaded({ section, slug }: { section: WikiSection; slug: string }
         }}
       >
         <div className="rounded-md border border-rule bg-panel md:overflow-x-auto">
-          <table className="w-full border-collapse text-[0.95rem] max-md:block md:min-w-[44rem]">
+          <table className={`${cardTableClass} text-[0.95rem] md:min-w-[44rem]`}>
             <caption className="sr-only">Revisions of {name}</caption>
             <thead className="max-md:sr-only">
               <tr className="text-left text-sm text-muted">
@@ -94,7 +95,7 @@ function HistoryLoaded({ section, slug }: { section: WikiSection; slug: string }
                 {mayRevert ? <th scope="col" className="border-b border-rule px-3 py-2"><span className="sr-only">Revert</span></th> : null}
               </tr>
             </thead>
-            <tbody className="max-md:flex max-md:flex-col max-md:gap-3 max-md:p-3">
+            <tbody className={cardBodyClass}>
               {items.map((r) => {
                 const origin = revisionOrigin(r);
                 return (
