@@ -24,20 +24,20 @@ export async function revertPage(ctx: AppContext, actor: Actor, type: PageType, 
       return { outcome: 'stale', page, current, conflicts: [], merged: contentOf(current) };
     }
     const target = await findRevisionOf(type, page.id, input.toRevision, transaction).catch(() => {
-      throw badRequest('Invalid input.', [{ path: 'toRevision', message: `revision ${input.toRevision} is not a revision of this page` }]);
+      throw badRequest('Invalid input.', [{ path: 'toRevision', message: `no revision of this page has the id ${input.toRevision}` }]);
     });
-    if (target.status !== 'live') throw badRequest('Invalid input.', [{ path: 'toRevision', message: `revision ${target.id} was never live (it is ${target.status})` }]);
-    if (target.id === current.id) throw badRequest('Invalid input.', [{ path: 'toRevision', message: `revision ${target.id} is already the current one` }]);
+    if (target.status !== 'live') throw badRequest('Invalid input.', [{ path: 'toRevision', message: `revision ${target.number} was never live (it is ${target.status})` }]);
+    if (target.id === current.id) throw badRequest('Invalid input.', [{ path: 'toRevision', message: `revision ${target.number} is already the current one` }]);
     const content = contentOf(target);
     if (changedFields(type, contentOf(current), content).length === 0) {
-      throw badRequest('Invalid input.', [{ path: 'toRevision', message: `revision ${target.id} has the same content as the current one` }]);
+      throw badRequest('Invalid input.', [{ path: 'toRevision', message: `revision ${target.number} has the same content as the current one` }]);
     }
     const revision = await PageRevision.create(
       {
         pageType: type,
         pageId: page.id,
         authorId: actor.id,
-        summary: (input.summary || `Reverted to revision ${target.id}`).slice(0, 300),
+        summary: (input.summary || `Reverted to revision ${target.number}`).slice(0, 300),
         fields: content.fields,
         body: content.body,
         status: 'live',

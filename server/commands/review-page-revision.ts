@@ -55,7 +55,7 @@ export async function reviewPageRevision(ctx: AppContext, actor: Actor, id: numb
         pageType: type,
         pageId: page.id,
         authorId: found.authorId,
-        summary: `${found.summary} (merged with revision ${current.id})`.slice(0, 300),
+        summary: `${found.summary} (merged with revision ${current.number})`.slice(0, 300),
         fields: merge.content.fields,
         body: merge.content.body,
         status: 'live',

@@ -139,10 +139,10 @@ export async function revisePage(ctx: AppContext, actor: Actor, type: PageType, 
     const subject = { isProtected: page.isProtected };
     if (!can(actor, 'edit:page', subject)) throw forbidden('This page is protected: only moderators edit it.');
     const baseRevision = await findRevisionOf(type, page.id, base, transaction).catch(() => {
-      throw badRequest('Invalid input.', [{ path: 'baseRevision', message: `revision ${base} is not a revision of this page` }]);
+      throw badRequest('Invalid input.', [{ path: 'baseRevision', message: `no revision of this page has the id ${base}` }]);
     });
     if (baseRevision.status !== 'live') {
-      throw badRequest('Invalid input.', [{ path: 'baseRevision', message: `revision ${base} was never live; start from the page as it is` }]);
+      throw badRequest('Invalid input.', [{ path: 'baseRevision', message: `revision ${baseRevision.number} of this page (id ${base}) was never live; start from the page as it is` }]);
     }
     if (page.currentRevisionId !== base) {
       const current = await findRevisionOf(type, page.id, page.currentRevisionId!, transaction);
@@ -150,7 +150,7 @@ export async function revisePage(ctx: AppContext, actor: Actor, type: PageType, 
       return { outcome: 'stale', page, current, conflicts: merge.conflicts, merged: merge.content };
     }
     if (changedFields(type, contentOf(baseRevision), content).length === 0) {
-      throw badRequest(`Nothing changed: the fields and text are the same as revision ${base}.`, [{ path: '(body)', message: 'change something before saving' }]);
+      throw badRequest(`Nothing changed: the fields and text are the same as revision ${baseRevision.number}.`, [{ path: '(body)', message: 'change something before saving' }]);
     }
     // Validates before anything is written, also for proposals (a proposal must be applicable).
     validContent(type, content);

@@ -18,6 +18,7 @@ import * as m0010 from './migrations/0010-result-revisions';
 import * as m0011 from './migrations/0011-result-progression';
 import * as m0012 from './migrations/0012-workshop';
 import * as m0013 from './migrations/0013-shared-process-state';
+import * as m0014 from './migrations/0014-page-revision-numbers';
 
 /** Migrations in order; imported as modules (umzug's glob loader cannot load .ts under vitest). */
 const migrations = [
@@ -33,6 +34,7 @@ const migrations = [
   { name: '0011-result-progression', module: m0011 },
   { name: '0012-workshop', module: m0012 },
   { name: '0013-shared-process-state', module: m0013 },
+  { name: '0014-page-revision-numbers', module: m0014 },
 ];
 
 export interface DatabaseOptions {
@@ -69,16 +71,17 @@ export class Database {
     this.changes = new ChangeFeed(this, this.sequelize, refreshCells, (work) => this.write(work));
   }
 
-  /** Applies every pending migration. */
-  async migrate(): Promise<void> {
+  /** Applies every pending migration (or those up to and including `to`, for a test of a later one). */
+  async migrate({ to }: { to?: string } = {}): Promise<void> {
     const umzug = new Umzug({
       migrations: migrations.map(({ name, module }) => ({ name, up: module.up, down: module.down })),
       context: this.sequelize.getQueryInterface(),
       storage: new SequelizeStorage({ sequelize: this.sequelize, tableName: 'migrations_applied' }),
       logger: undefined,
     });
-    if (this.isSqlite) await umzug.up();
-    else await postgresMigrateAlone(this.sequelize, () => umzug.up());
+    const up = () => umzug.up(to ? { to } : {});
+    if (this.isSqlite) await up();
+    else await postgresMigrateAlone(this.sequelize, up);
   }
 
   /**

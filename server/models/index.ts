@@ -25,6 +25,10 @@ export function initModels(sequelize: Sequelize) {
   ResultRevision.belongsTo(User, { as: 'reviewer', foreignKey: 'reviewedById' });
   PageRevision.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   PageRevision.belongsTo(User, { as: 'reviewer', foreignKey: 'reviewedById' });
+  // The revisions a revision names, read for their numbers (a history says "restores revision 3").
+  PageRevision.belongsTo(PageRevision, { as: 'base', foreignKey: 'baseRevisionId', constraints: false });
+  PageRevision.belongsTo(PageRevision, { as: 'revertedFrom', foreignKey: 'revertedFromId', constraints: false });
+  PageRevision.belongsTo(PageRevision, { as: 'appliedFrom', foreignKey: 'appliedFromId', constraints: false });
   PageEvent.initModel(sequelize);
   PageEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
   Wheel.hasMany(WheelMeasurement, { as: 'measurements', foreignKey: 'wheelId' });

@@ -1,4 +1,4 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type Transaction, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
 import type { RichTextNode } from '@shared/rich-text';
 import type { User } from './user';
 
@@ -164,6 +164,11 @@ export class PageRevision extends Model<InferAttributes<PageRevision>, InferCrea
   declare id: CreationOptional<number>;
   declare pageType: 'steel' | 'abrasive' | 'method';
   declare pageId: number;
+  /**
+   * Revision 1, 2, 3… of its page, in the order saved (migration 0014): how the history, the
+   * messages and the desk name it. Set on create, inside the write's transaction (see initModel).
+   */
+  declare number: CreationOptional<number>;
   declare authorId: number;
   declare summary: string;
   declare fields: Record<string, unknown>;
@@ -183,6 +188,10 @@ export class PageRevision extends Model<InferAttributes<PageRevision>, InferCrea
   declare updatedAt: CreationOptional<Date>;
   declare author?: NonAttribute<User>;
   declare reviewer?: NonAttribute<User>;
+  /** The revisions named by baseRevisionId, revertedFromId and appliedFromId, when included (their id and number). */
+  declare base?: NonAttribute<PageRevision | null>;
+  declare revertedFrom?: NonAttribute<PageRevision | null>;
+  declare appliedFrom?: NonAttribute<PageRevision | null>;
 
   static initModel(sequelize: Sequelize) {
     PageRevision.init(
@@ -190,6 +199,7 @@ export class PageRevision extends Model<InferAttributes<PageRevision>, InferCrea
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
         pageType: { type: DataTypes.STRING(20), allowNull: false },
         pageId: { type: DataTypes.INTEGER, allowNull: false },
+        number: { type: DataTypes.INTEGER, allowNull: false },
         authorId: { type: DataTypes.INTEGER, allowNull: false },
         summary: { type: DataTypes.STRING(300), allowNull: false },
         fields: { type: DataTypes.JSON, allowNull: false },
@@ -207,6 +217,17 @@ export class PageRevision extends Model<InferAttributes<PageRevision>, InferCrea
       },
       { sequelize, tableName: 'page_revisions' },
     );
+    // Every new revision takes the next number of its page, read in the creating transaction:
+    // on SQLite the write queue runs one write at a time; on PostgreSQL two SERIALIZABLE writes
+    // that read the same last number conflict and one runs again (the unique index on page and
+    // number refuses a duplicate in any case). `validate: false` would skip it: never used here.
+    // (Sequelize hands `beforeValidate` the options of the save, transaction included; its types name only the validation's.)
+    PageRevision.beforeValidate('numberPerPage', async (revision, options) => {
+      if (!revision.isNewRecord || revision.number) return;
+      const { transaction } = options as { transaction?: Transaction | null };
+      const last = (await PageRevision.max('number', { where: { pageType: revision.pageType, pageId: revision.pageId }, transaction: transaction ?? undefined })) as number | null;
+      revision.number = (last ?? 0) + 1;
+    });
   }
 }
 

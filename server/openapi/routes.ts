@@ -79,7 +79,11 @@ import {
   loggedWheelSchema,
   managedAccountPageSchema,
   ownPageSchema,
+  pageHistorySchema,
   pageListSchema,
+  pageReviewOutcomeSchema,
+  pageRevisionSchema,
+  pageSaveSchema,
   resultEditSchema,
   resultInputExample,
   resultPageSchema,
@@ -88,6 +92,7 @@ import {
   resultSchema,
   sessionSchema,
   wheelListSchema,
+  wikiPageSchema,
   workshopSchema,
 } from '@shared/schemas/responses';
 import { angleToolQuerySchema, gritToolQuerySchema, hardnessToolQuerySchema, retentionToolBodySchema, sideAngleToolQuerySchema, wearDriftQuerySchema } from '@shared/schemas/tools';
@@ -145,7 +150,7 @@ const pageRoutes: RouteDoc[] = PAGE_TYPES.flatMap((type): RouteDoc[] => {
   const section = PAGE_SECTIONS[type];
   const tag = 'reference pages';
   return [
-    { method: 'get', path: `/${section}/:slug`, summary: `One ${type} page (301 to the surviving page when it was merged)`, tag, access: 'public', params: slugParams, answer: json() },
+    { method: 'get', path: `/${section}/:slug`, summary: `One ${type} page (301 to the surviving page when it was merged)`, tag, access: 'public', params: slugParams, answer: json(wikiPageSchema) },
     {
       method: 'put',
       path: `/${section}/:slug`,
@@ -154,12 +159,12 @@ const pageRoutes: RouteDoc[] = PAGE_TYPES.flatMap((type): RouteDoc[] => {
       access: 'signed-in',
       params: slugParams,
       body: pageEditSchemas[type],
-      answer: { json: jsonObjectSchema, also: 202 },
+      answer: { json: pageSaveSchema, also: 202 },
       errors: [409],
     },
-    { method: 'get', path: `/${section}/:slug/revisions`, summary: `The history of a ${type} page`, tag, access: 'public', params: slugParams, answer: json() },
-    { method: 'get', path: `/${section}/:slug/revisions/:id`, summary: `One revision of a ${type} page`, tag, access: 'public', params: revisionParams, answer: json() },
-    { method: 'post', path: `/${section}/:slug/revert`, summary: `Revert a ${type} page to an earlier revision`, tag, access: 'moderator', params: slugParams, body: pageRevertSchema, answer: json() },
+    { method: 'get', path: `/${section}/:slug/revisions`, summary: `The history of a ${type} page: its revisions, numbered 1, 2, 3… on the page`, tag, access: 'public', params: slugParams, answer: json(pageHistorySchema) },
+    { method: 'get', path: `/${section}/:slug/revisions/:id`, summary: `One revision of a ${type} page, by its id (its answer gives its number on the page)`, tag, access: 'public', params: revisionParams, answer: json(pageRevisionSchema) },
+    { method: 'post', path: `/${section}/:slug/revert`, summary: `Revert a ${type} page to an earlier revision (named by its id)`, tag, access: 'moderator', params: slugParams, body: pageRevertSchema, answer: json(pageSaveSchema), errors: [409] },
     { method: 'post', path: `/${section}/:slug/protect`, summary: `Protect a ${type} page or lift its protection`, tag, access: 'moderator', params: slugParams, body: pageProtectSchema, answer: json() },
     { method: 'post', path: `/${section}/:slug/merge`, summary: `Merge a duplicate ${type} page into this one`, tag, access: 'moderator', params: slugParams, body: pageMergeSchema, answer: json(), errors: [409] },
   ];
@@ -186,8 +191,8 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'get', path: '/abrasives', summary: 'Abrasive pages, filtered', tag: 'reference pages', access: 'public', query: abrasiveListQuerySchema, answer: json(pageListSchema) },
   { method: 'get', path: '/methods', summary: 'Test method pages', tag: 'reference pages', access: 'public', query: emptyQuerySchema, answer: json(pageListSchema) },
   ...pageRoutes,
-  { method: 'post', path: '/page-revisions/:id/review', summary: 'Accept or decline a proposed page revision', tag: 'reference pages', access: 'moderator', params: idParams, body: pageReviewSchema, answer: json(), errors: [409] },
-  { method: 'get', path: '/page-revisions/:id', summary: 'One page revision by id', tag: 'reference pages', access: 'public', params: idParams, answer: json() },
+  { method: 'post', path: '/page-revisions/:id/review', summary: 'Accept or decline a proposed page revision', tag: 'reference pages', access: 'moderator', params: idParams, body: pageReviewSchema, answer: json(pageReviewOutcomeSchema), errors: [409] },
+  { method: 'get', path: '/page-revisions/:id', summary: 'One page revision by id', tag: 'reference pages', access: 'public', params: idParams, answer: json(pageRevisionSchema) },
 
   // Results
   { method: 'post', path: '/results', summary: 'Submit a result', tag: 'results', access: 'signed-in', body: resultInputSchema, example: resultInputExample, answer: created(resultSchema) },

@@ -11,6 +11,8 @@ export interface PageExtras {
   linkExists?: RenderOptions['linkExists'];
   /** Proposed revisions waiting for review on this page. */
   proposals?: number;
+  /** The number on this page of its current revision (`revision` is its id). */
+  revisionNumber?: number | null;
   /** Approved results on this page, grouped (see queries/pages steelResults and abrasiveResults). */
   results?: unknown;
 }
@@ -35,6 +37,7 @@ function wikiParts(page: PageModel, extras: PageExtras) {
     citations: page.citations,
     sources: page.sources ?? {},
     revision: page.currentRevisionId,
+    revisionNumber: extras.revisionNumber ?? null,
     isProtected: page.isProtected,
     proposals: extras.proposals ?? 0,
     can: pageActions(page, extras.viewer),
@@ -120,6 +123,8 @@ const insiderOf = (r: PageRevision, viewer: Actor | null | undefined) => !!viewe
 export function presentRevisionSummary(r: PageRevision, currentRevisionId: number | null, viewer: Actor | null | undefined) {
   return {
     id: r.id,
+    // Its number on its page; the ids below stay what every route and write takes, the numbers name them.
+    number: r.number,
     author: r.author ? { handle: r.author.handle } : null,
     createdAt: r.createdAt,
     summary: r.summary,
@@ -127,8 +132,11 @@ export function presentRevisionSummary(r: PageRevision, currentRevisionId: numbe
     kind: r.kind,
     current: r.id === currentRevisionId,
     baseRevisionId: r.baseRevisionId,
+    baseRevisionNumber: r.base?.number ?? null,
     revertedFromId: r.revertedFromId,
+    revertedFromNumber: r.revertedFrom?.number ?? null,
     appliedFromId: r.appliedFromId,
+    appliedFromNumber: r.appliedFrom?.number ?? null,
     // Who reviewed is public history; the note is for the author and moderators.
     review: r.reviewedAt ? { by: r.reviewer ? { handle: r.reviewer.handle } : null, at: r.reviewedAt, note: insiderOf(r, viewer) ? r.reviewNote : null } : null,
   };
@@ -160,17 +168,21 @@ export function presentPageEvent(e: PageEvent) {
  * author, what changed against the revision it started from, and whether the page has moved
  * on since (then approving merges the two, or refuses on a conflict).
  */
-export function presentDeskRevision(r: PageRevision, page: PageModel | null, changed: string[], viewer: Actor) {
+export function presentDeskRevision(r: PageRevision, page: PageModel | null, changed: string[], currentNumber: number | null, viewer: Actor) {
   const type: PageType = r.pageType;
   return {
     kind: 'page-revision' as const,
     id: r.id,
+    number: r.number,
     pageType: type,
-    page: page ? { slug: page.slug, name: page.name, section: PAGE_SECTIONS[type], currentRevisionId: page.currentRevisionId, isProtected: page.isProtected } : null,
+    page: page
+      ? { slug: page.slug, name: page.name, section: PAGE_SECTIONS[type], currentRevisionId: page.currentRevisionId, currentRevisionNumber: currentNumber, isProtected: page.isProtected }
+      : null,
     author: r.author ? { handle: r.author.handle } : null,
     createdAt: r.createdAt,
     summary: r.summary,
     baseRevisionId: r.baseRevisionId,
+    baseRevisionNumber: r.base?.number ?? null,
     stale: !!page && r.baseRevisionId !== page.currentRevisionId,
     changed,
     can: { review: can(viewer, 'review:page-revision', { authorId: r.authorId, status: r.status }) },

@@ -14,8 +14,8 @@ export function presentDeskResults({ results, importOf }: { results: Result[]; i
 }
 
 /** Proposed page edits as `kind: 'page-revision'` items: the page, the author, the fields changed, whether the page moved on. */
-export function presentDeskRevisions(queue: { revision: PageRevision; page: PageModel | null; changed: string[] }[], viewer: Actor) {
-  return queue.map(({ revision, page, changed }) => presentDeskRevision(revision, page, changed, viewer));
+export function presentDeskRevisions(queue: { revision: PageRevision; page: PageModel | null; changed: string[]; currentNumber: number | null }[], viewer: Actor) {
+  return queue.map(({ revision, page, changed, currentNumber }) => presentDeskRevision(revision, page, changed, currentNumber, viewer));
 }
 
 /** Open flags as `kind: 'flag'` items with what each is about. */

@@ -15,6 +15,7 @@ import {
   proposalCounts,
   abrasiveResults,
   steelResults,
+  revisionNumberOf,
   revisionsOf,
   survivorOf,
   type PageModel,
@@ -57,7 +58,7 @@ export function versionsOf(method: Method, all: Method[]): Method[] {
 }
 
 /** What a whole page is shown with: which site links exist, its open proposals, and per type its results' summary or its version chain. */
-export type PageView = { linkExists: (href: string) => boolean; proposals: number } & (
+export type PageView = { linkExists: (href: string) => boolean; proposals: number; revisionNumber: number | null } & (
   | { type: 'steel'; page: Steel; results: Awaited<ReturnType<typeof steelResults>> }
   | { type: 'abrasive'; page: Abrasive; results: Awaited<ReturnType<typeof abrasiveResults>> }
   | { type: 'method'; page: Method; slugById: Map<number, string>; versions: Method[] }
@@ -65,8 +66,8 @@ export type PageView = { linkExists: (href: string) => boolean; proposals: numbe
 
 /** Reads what a whole page of `type` is shown with (GET /api/{section}/:slug and the answers of its edits). */
 export async function pageView(type: PageType, page: PageModel): Promise<PageView> {
-  const [linkExists, proposalsByPage] = await Promise.all([linkCheckerFor([page.body]), proposalCounts(type)]);
-  const common = { linkExists, proposals: proposalsByPage.get(page.id) ?? 0 };
+  const [linkExists, proposalsByPage, revisionNumber] = await Promise.all([linkCheckerFor([page.body]), proposalCounts(type), revisionNumberOf(page.currentRevisionId)]);
+  const common = { linkExists, proposals: proposalsByPage.get(page.id) ?? 0, revisionNumber };
   if (type === 'steel') return { ...common, type, page: page as Steel, results: await steelResults(page.id) };
   if (type === 'abrasive') return { ...common, type, page: page as Abrasive, results: await abrasiveResults(page.id) };
   // Every method, for the version chain and the slugs it names: without their bodies.

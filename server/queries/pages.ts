@@ -79,6 +79,7 @@ export async function survivorOf(type: PageType, page: PageModel): Promise<PageM
 const revisionIncludes = [
   { model: User, as: 'author' },
   { model: User, as: 'reviewer' },
+  ...(['base', 'revertedFrom', 'appliedFrom'] as const).map((as) => ({ model: PageRevision, as, attributes: ['id', 'number'] })),
 ];
 
 /** Every revision of a page, newest first, with author and reviewer. */
@@ -91,6 +92,12 @@ export async function findRevisionOf(type: PageType, pageId: number, id: number,
   const revision = await PageRevision.findByPk(id, { include: revisionIncludes, transaction });
   if (!revision || revision.pageType !== type || revision.pageId !== pageId) throw notFound('Revision');
   return revision;
+}
+
+/** The number on its page of the revision with this id (a page's current revision), or null. */
+export async function revisionNumberOf(id: number | null, transaction?: Transaction): Promise<number | null> {
+  if (id === null) return null;
+  return (await PageRevision.findByPk(id, { attributes: ['number'], transaction }))?.number ?? null;
 }
 
 /** Page-level actions (protect, merge) on a page, newest first. */
@@ -215,17 +222,20 @@ export async function steelResults(steelId: number): Promise<SteelResults> {
 }
 
 /**
- * The review desk's page edits: every proposed revision, oldest first, with its page and the
- * fields changed against the revision it started from (presentDeskRevision shows them).
+ * The review desk's page edits: every proposed revision, oldest first, with its page, the
+ * fields changed against the revision it started from and the number of the page's current
+ * revision (presentDeskRevision shows them).
  */
 export async function reviewDeskRevisions() {
   const queue = await proposedRevisions();
   const baseIds = [...new Set(queue.map((q) => q.revision.baseRevisionId).filter((id): id is number => id !== null))];
   const bases = new Map((await PageRevision.findAll({ where: { id: { [Op.in]: baseIds } } })).map((b) => [b.id, b]));
+  const currentIds = [...new Set(queue.map((q) => q.page?.currentRevisionId).filter((id): id is number => typeof id === 'number'))];
+  const numbers = new Map((await PageRevision.findAll({ where: { id: { [Op.in]: currentIds } }, attributes: ['id', 'number'] })).map((r) => [r.id, r.number]));
   return queue.map(({ revision, page }) => {
     const base = revision.baseRevisionId ? bases.get(revision.baseRevisionId) : undefined;
     const changed = base ? changedFields(revision.pageType, contentOf(base), contentOf(revision)) : [];
-    return { revision, page, changed };
+    return { revision, page, changed, currentNumber: page?.currentRevisionId ? (numbers.get(page.currentRevisionId) ?? null) : null };
   });
 }
 

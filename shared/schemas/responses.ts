@@ -106,6 +106,105 @@ export const pageSummarySchema = z.looseObject({ slug: z.string(), name: z.strin
 /** GET /steels, /abrasives, /methods. */
 export const pageListSchema = z.looseObject({ items: z.array(pageSummarySchema) }).meta({ id: 'PageList' });
 
+const handleOrNull = z.object({ handle: z.string() }).nullable();
+const revisionNumber = z.number().int().positive();
+const richTextSchema = z.looseObject({ type: z.string() }).nullable();
+
+/**
+ * One revision in a page's history (server/presenters/pages.ts presentRevisionSummary). `id`
+ * is what routes and writes take; `number` (1, 2, 3… per page) is how people name it. The
+ * revisions it names are given both ways.
+ */
+export const pageRevisionSummarySchema = z
+  .looseObject({
+    id: z.number().int().positive(),
+    number: revisionNumber,
+    author: handleOrNull,
+    createdAt: z.string(),
+    summary: z.string(),
+    status: z.enum(['live', 'proposed', 'declined']),
+    kind: z.enum(['edit', 'revert', 'merge']),
+    current: z.boolean(),
+    baseRevisionId: z.number().int().positive().nullable(),
+    baseRevisionNumber: revisionNumber.nullable(),
+    revertedFromId: z.number().int().positive().nullable(),
+    revertedFromNumber: revisionNumber.nullable(),
+    appliedFromId: z.number().int().positive().nullable(),
+    appliedFromNumber: revisionNumber.nullable(),
+    /** Who reviewed and when (public); the note only for the author and moderators. */
+    review: z.object({ by: handleOrNull, at: z.string(), note: z.string().nullable() }).nullable(),
+  })
+  .meta({ id: 'PageRevisionSummary' });
+
+/** A page revision whole: its fields and body as saved, with its page and what the viewer may do. */
+export const pageRevisionSchema = pageRevisionSummarySchema
+  .extend({
+    pageType: z.enum(['steel', 'abrasive', 'method']),
+    page: z.object({ slug: z.string(), name: z.string(), section: z.enum(['steels', 'abrasives', 'methods']) }),
+    fields: z.looseObject({ name: z.string() }),
+    body: richTextSchema,
+    bodyHtml: z.string(),
+    can: z.object({ review: z.boolean(), revert: z.boolean() }),
+  })
+  .meta({ id: 'PageRevision' });
+
+/** GET /{section}/:slug/revisions: the revisions the viewer may read, newest first, and the page's moderation events. */
+export const pageHistorySchema = z
+  .looseObject({
+    page: z.object({
+      slug: z.string(),
+      name: z.string(),
+      currentRevisionId: z.number().int().positive().nullable(),
+      currentRevisionNumber: revisionNumber.nullable(),
+      isProtected: z.boolean(),
+      mergedInto: z.string().nullable(),
+    }),
+    items: z.array(pageRevisionSummarySchema),
+    events: z.array(
+      z.object({
+        id: z.number().int().positive(),
+        action: z.enum(['protect', 'unprotect', 'merged-into', 'absorbed']),
+        by: handleOrNull,
+        at: z.string(),
+        note: z.string().nullable(),
+        detail: z.looseObject({}).nullable(),
+      }),
+    ),
+  })
+  .meta({ id: 'PageHistory' });
+
+/**
+ * A steel, abrasive or method page whole (GET /{section}/:slug): its type's fields (a steel's
+ * composition, an abrasive's grit, a method's readings per edge…) and the wiki parts every page
+ * has, named here: its text, references, current revision (id and number), protection, open
+ * proposals and what the viewer may do.
+ */
+export const wikiPageSchema = z
+  .looseObject({
+    slug: z.string(),
+    name: z.string(),
+    body: richTextSchema,
+    bodyHtml: z.string(),
+    citations: z.array(z.looseObject({ title: z.string(), organisation: z.string(), year: z.number().int().nullable(), supports: z.string() })),
+    sources: z.record(z.string(), z.number().int().nonnegative()),
+    revision: z.number().int().positive().nullable(),
+    revisionNumber: revisionNumber.nullable(),
+    isProtected: z.boolean(),
+    proposals: z.number().int().nonnegative(),
+    can: z.object({ edit: z.boolean(), publish: z.boolean(), revert: z.boolean(), protect: z.boolean(), merge: z.boolean() }),
+  })
+  .meta({ id: 'WikiPage' });
+
+/** PUT /{section}/:slug: live at once (200, with the page) or proposed for review (202). POST /{section}/:slug/revert: live. */
+export const pageSaveSchema = z
+  .looseObject({ status: z.enum(['live', 'proposed']), revision: pageRevisionSchema, page: wikiPageSchema.optional() })
+  .meta({ id: 'PageSave' });
+
+/** POST /page-revisions/:id/review: the proposal as decided, and the revision that went live (itself, or a merge over later edits). */
+export const pageReviewOutcomeSchema = z
+  .looseObject({ status: z.enum(['live', 'declined']), revision: pageRevisionSchema, applied: pageRevisionSchema })
+  .meta({ id: 'PageReviewOutcome' });
+
 /** GET /me: the signed-in member's own page. */
 export const ownPageSchema = z
   .looseObject({

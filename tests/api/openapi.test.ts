@@ -124,6 +124,37 @@ describe('answers of the API hold to the document', () => {
     expectDocumented('get', '/compare/difference', difference);
   });
 
+  it('a page edited live and by proposal, its history, a revision, its review and a revert: every revision named by id and by its number on the page', async () => {
+    const moderator = await signIn(server.url, await demoHandle(server.url, 'moderator'));
+    const member = await signIn(server.url, await demoHandle(server.url, 'member', 2));
+    const send = (who: typeof member, method: 'post' | 'put', url: string, body: object) => who.agent[method](`/api/v1${url}`).set('X-CSRF-Token', who.csrf).send(body);
+    const slug = 'aisi-52100';
+    const page = await moderator.agent.get(`/api/v1/steels/${slug}`).expect(200);
+    expectDocumented('get', '/steels/{slug}', page);
+    const p = page.body as Record<string, unknown> & { revision: number };
+    const edit = (summary: string, hardnessHrc: object, baseRevision: number) => ({
+      ...Object.fromEntries(['name', 'category', 'designations', 'composition', 'citations', 'sources'].map((k) => [k, p[k]])),
+      body: p.body,
+      hardnessHrc,
+      baseRevision,
+      summary,
+    });
+    const live = await send(moderator, 'put', `/steels/${slug}`, edit('Range as tempered', { min: 58, max: 63 }, p.revision)).expect(200);
+    expectDocumented('put', '/steels/{slug}', live);
+    const proposed = await send(member, 'put', `/steels/${slug}`, edit('Narrower range', { min: 59, max: 62 }, live.body.revision.id)).expect(202);
+    expectDocumented('put', '/steels/{slug}', proposed);
+    expect([live.body.revision.number, proposed.body.revision.number]).toEqual([p.revisionNumber as number + 1, p.revisionNumber as number + 2]);
+    expectDocumented('get', '/page-revisions/{id}', await moderator.agent.get(`/api/v1/page-revisions/${proposed.body.revision.id}`).expect(200));
+    const reviewed = await send(moderator, 'post', `/page-revisions/${proposed.body.revision.id}/review`, { decision: 'approve' }).expect(200);
+    expectDocumented('post', '/page-revisions/{id}/review', reviewed);
+    const reverted = await send(moderator, 'post', `/steels/${slug}/revert`, { toRevision: p.revision }).expect(200);
+    expectDocumented('post', '/steels/{slug}/revert', reverted);
+    expect(reverted.body.revision).toMatchObject({ revertedFromNumber: p.revisionNumber, summary: `Reverted to revision ${p.revisionNumber as number}` });
+    const history = await moderator.agent.get(`/api/v1/steels/${slug}/revisions`).expect(200);
+    expectDocumented('get', '/steels/{slug}/revisions', history);
+    expectDocumented('get', '/steels/{slug}/revisions/{id}', await moderator.agent.get(`/api/v1/steels/${slug}/revisions/${reverted.body.revision.id}`).expect(200));
+  });
+
   it('an admin’s page of accounts, with its Link header', async () => {
     const admin = await signIn(server.url, await demoHandle(server.url, 'admin'));
     const users = await admin.agent.get('/api/v1/admin/users').expect(200);

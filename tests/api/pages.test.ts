@@ -23,7 +23,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-type Page = Record<string, unknown> & { revision: number; body: unknown };
+type Page = Record<string, unknown> & { revision: number; revisionNumber: number; body: unknown };
 
 const paragraph = (text: string, marks?: unknown[]) => ({ type: 'paragraph', content: [{ type: 'text', text, ...(marks ? { marks } : {}) }] });
 const doc = (...blocks: unknown[]) => ({ type: 'doc', content: blocks });
@@ -225,6 +225,7 @@ describe('proposals and review', () => {
     expect(res.status).toBe(202);
     expect(res.body.status).toBe('proposed');
     const id = res.body.revision.id as number;
+    expect(res.body.revision.number).toBe(before.revisionNumber + 1);
 
     // The page is unchanged and the proposal is not public.
     expect(((await get('/api/steels/aisi-1084')).body as Page).revision).toBe(before.revision);
@@ -247,7 +248,7 @@ describe('proposals and review', () => {
     const approved = await post(moderator, `/api/page-revisions/${id}/review`, { decision: 'approve', note: 'Thanks' });
     expect(approved.status).toBe(200);
     expect(approved.body.status).toBe('live');
-    expect(approved.body.applied.id).toBe(id);
+    expect(approved.body.applied).toMatchObject({ id, number: before.revisionNumber + 1 });
 
     const after = (await get('/api/steels/aisi-1084')).body as Page;
     expect(after.revision).toBe(id);
@@ -281,16 +282,20 @@ describe('proposals and review', () => {
     const b = await put(member2, '/api/abrasives/alox-vitrified-wheel-250-fine-dressed', editOf('abrasives', start, 'Price', { priceNote: 'about 90 EUR (invented)' }));
     const c = await put(member2, '/api/abrasives/alox-vitrified-wheel-250-fine-dressed', editOf('abrasives', start, 'Width again', { widthMm: 49 }));
     expect([a.status, b.status, c.status]).toEqual([202, 202, 202]);
+    // Proposals are revisions of the page too, numbered as they come.
+    expect([start.revisionNumber, a.body.revision.number, b.body.revision.number, c.body.revision.number]).toEqual([1, 2, 3, 4]);
 
     expect((await post(moderator, `/api/page-revisions/${a.body.revision.id}/review`, { decision: 'approve' })).status).toBe(200);
     const desk = (await get('/api/review-desk', moderator)).body.revisions as { id: number; stale: boolean }[];
-    expect(desk.find((r) => r.id === b.body.revision.id)?.stale).toBe(true);
+    expect(desk.find((r) => r.id === b.body.revision.id)).toMatchObject({ stale: true, number: 3, baseRevisionNumber: 1, page: { currentRevisionNumber: 2 } });
 
     const merged = await post(moderator, `/api/page-revisions/${b.body.revision.id}/review`, { decision: 'approve' });
     expect(merged.status).toBe(200);
     expect(merged.body.applied).toMatchObject({ kind: 'merge', appliedFromId: b.body.revision.id, baseRevisionId: a.body.revision.id, author: { handle: member2.user.handle } });
+    expect(merged.body.applied).toMatchObject({ number: 5, appliedFromNumber: 3, baseRevisionNumber: 2, summary: 'Price (merged with revision 2)' });
+    expect(merged.body.revision).toMatchObject({ number: 3, status: 'live' });
     const page = (await get('/api/abrasives/alox-vitrified-wheel-250-fine-dressed')).body as Page;
-    expect(page).toMatchObject({ widthMm: 51, priceNote: 'about 90 EUR (invented)', revision: merged.body.applied.id });
+    expect(page).toMatchObject({ widthMm: 51, priceNote: 'about 90 EUR (invented)', revision: merged.body.applied.id, revisionNumber: 5 });
 
     const count = await PageRevision.count();
     const refused = await post(moderator, `/api/page-revisions/${c.body.revision.id}/review`, { decision: 'approve' });
@@ -298,6 +303,23 @@ describe('proposals and review', () => {
     expect(refused.body.conflicts).toEqual(['widthMm']);
     expect(await PageRevision.count()).toBe(count);
     expect((await get(`/api/abrasives/alox-vitrified-wheel-250-fine-dressed/revisions/${c.body.revision.id}`, moderator)).body.status).toBe('proposed');
+  });
+});
+
+describe('revision numbers', () => {
+  it('gives edits of one page sent at once distinct numbers, one after another', async () => {
+    const slug = 'en-1-4110';
+    const page = (await get(`/api/steels/${slug}`)).body as Page;
+    // Proposals do not move the page, so none is refused as stale: each is a new revision of it.
+    const sent = await Promise.all(
+      Array.from({ length: 8 }, (_, i) => put(i % 2 ? member : member2, `/api/steels/${slug}`, editOf('steels', page, `Proposal ${i}`, { body: doc(paragraph(`Proposal ${i}.`)) }))),
+    );
+    expect(sent.map((r) => r.status)).toEqual(Array(8).fill(202));
+    const numbers = sent.map((r) => r.body.revision.number as number).sort((x, y) => x - y);
+    expect(numbers).toEqual(Array.from({ length: 8 }, (_, i) => page.revisionNumber + 1 + i));
+    const stored = await PageRevision.findAll({ where: { pageType: 'steel', pageId: (await Steel.findOne({ where: { slug } }))!.id }, order: [['id', 'ASC']] });
+    expect(stored.map((r) => r.number)).toEqual(stored.map((_, i) => i + 1));
+    for (const r of sent) await post(moderator, `/api/page-revisions/${r.body.revision.id}/review`, { decision: 'decline', note: 'A test of numbering.' });
   });
 });
 
@@ -316,14 +338,21 @@ describe('revert', () => {
 
     const reverted = await post(moderator, `/api/steels/${slug}/revert`, { toRevision: v1.revision });
     expect(reverted.status).toBe(200);
-    expect(reverted.body.revision).toMatchObject({ kind: 'revert', revertedFromId: v1.revision, status: 'live', current: true, summary: `Reverted to revision ${v1.revision}` });
+    // Revisions are named by their number on the page: the demo page's first is 1, the two edits 2 and 3, the revert 4.
+    expect(v1.revisionNumber).toBe(1);
+    expect([r2.body.revision.number, r3.body.revision.number]).toEqual([2, 3]);
+    expect(reverted.body.revision).toMatchObject({ kind: 'revert', number: 4, revertedFromId: v1.revision, revertedFromNumber: 1, baseRevisionNumber: 3, status: 'live', current: true, summary: 'Reverted to revision 1' });
     const now = (await get(`/api/steels/${slug}`)).body as Page;
     expect(now.body).toEqual(v1.body);
     expect(now.hardnessHrc).toEqual(v1.hardnessHrc);
-    expect(now.revision).toBe(reverted.body.revision.id);
+    expect(now).toMatchObject({ revision: reverted.body.revision.id, revisionNumber: 4 });
+    const refused = await post(moderator, `/api/steels/${slug}/revert`, { toRevision: reverted.body.revision.id });
+    expect(refused.body.issues).toEqual([{ path: 'toRevision', message: 'revision 4 is already the current one' }]);
 
     const { list, whole } = await everyRevision('steels', slug);
     expect(list.items.map((r: { id: number }) => r.id)).toEqual([reverted.body.revision.id, r3.body.revision.id, r2.body.revision.id, v1.revision]);
+    expect(list.items.map((r: { number: number }) => r.number)).toEqual([4, 3, 2, 1]);
+    expect(list.page).toMatchObject({ currentRevisionId: reverted.body.revision.id, currentRevisionNumber: 4 });
     expect(list.items[0]).toEqual(expect.objectContaining({ id: reverted.body.revision.id, author: { handle: moderator.user.handle }, createdAt: expect.any(String), summary: expect.any(String), status: 'live' }));
     expect(whole.map((r) => r.body)).toEqual([v1.body, doc(paragraph('Third text.')), doc(paragraph('Second text.')), v1.body]);
   });

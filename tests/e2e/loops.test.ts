@@ -2,12 +2,16 @@
  * Browser test of issue 17's loops: a moderator returns a member's result with a note, the
  * member edits and resubmits it, the moderator approves it; the member corrects the published
  * result and the moderator approves the correction from its diff; an admin bans a member and
- * changes a role from the members screen. Built client, real server, headless Debian Chromium.
+ * changes a role from the members screen and reads it in the audit log; a publisher's import
+ * with several bad fields in a row gets every one reported; a moderator edits a page, reads its
+ * history numbered per page, a diff, and reverts. Built client, real server, headless Debian Chromium.
  * Screenshots go to $LOOPS_SHOTS when set (1280x900 and 390x844).
  */
 import type { Page } from 'playwright-core';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { e2eSuite, type DemoAccount } from '../setup/e2e-app';
+import { IMPORT_COLUMNS } from '../../shared/csv';
+import { toCsv } from '../../shared/csv-writer';
 
 const shots = process.env.LOOPS_SHOTS;
 
@@ -26,6 +30,9 @@ async function screenshot(name: string) {
   }
   await page.setViewportSize({ width: 1280, height: 900 });
 }
+
+/** The demo accounts the sign-in page offers. */
+const demoAccounts = async () => (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
 
 /** The signed-in browser's own API call (session cookie and CSRF token). */
 async function browserPost<T>(url: string, body: unknown): Promise<T> {
@@ -46,7 +53,7 @@ describe('edit and resubmit, corrections, members', () => {
   let id = 0;
 
   it('a moderator returns a result with a note; the member edits and resubmits it', async () => {
-    accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
+    accounts = await demoAccounts();
     member = accounts.filter((a) => a.role === 'member')[1];
     moderator = accounts.find((a) => a.role === 'moderator')!;
 
@@ -140,8 +147,65 @@ describe('edit and resubmit, corrections, members', () => {
     await screenshot('admin-members');
     await page.getByRole('navigation', { name: 'Staff' }).getByRole('link', { name: 'Audit log' }).click();
     await page.getByText('Copied readings.').first().waitFor();
+    await screenshot('audit-log');
     await signOut();
   }, 120_000);
+});
+
+describe('an import report that says everything', () => {
+  it('a publisher checks a file whose rows have several bad fields and a near-miss slug: every problem is listed, with the nearest slug', async () => {
+    const accounts = await demoAccounts();
+    const good: Record<string, string> = {
+      steel: 'aisi-d2', hardness: '61', abrasive: 'cbn-electroplated-wheel-250-b126', grit_standard: 'iso6106', grit: 'B126',
+      angle_per_side_deg: '15', sharpness_method: 'push-cut-test-v2', readings_g: '180;175;190', notes: 'Invented browser-test row.',
+    };
+    const rowOf = (overrides: Record<string, string>) => IMPORT_COLUMNS.map((c) => ({ ...good, ...overrides })[c] ?? '');
+    const csv = toCsv([[...IMPORT_COLUMNS], rowOf({}), rowOf({ hardness: '95', readings_g: 'abc' }), rowOf({ steel: 'aisi-d3' })]);
+    await signInAs(accounts.find((a) => a.role === 'publisher')!.handle, '/import');
+    await page.getByLabel('CSV file of results').setInputFiles({ name: 'several.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await page.getByRole('button', { name: 'Check the file' }).click();
+    const problems = page.getByRole('table').filter({ hasText: 'Problems by row' });
+    await problems.waitFor();
+    // Row 3 (the file's second data row) has two bad fields: both are listed.
+    expect(await problems.getByRole('row').filter({ hasText: /^3hardness/ }).count()).toBe(1);
+    expect(await problems.getByRole('row').filter({ hasText: /^3readings_g/ }).count()).toBe(1);
+    await problems.getByText('did you mean "aisi-d2"?', { exact: false }).waitFor();
+    await screenshot('import-report');
+    await signOut();
+  }, 60_000);
+});
+
+describe('a page edit, its history numbered per page, a diff and a revert', () => {
+  it('a moderator edits a steel page twice; the history names revisions 1, 2 and 3 of this page; a diff; a revert makes revision 4', async () => {
+    const accounts = await demoAccounts();
+    const moderator = accounts.find((a) => a.role === 'moderator')!;
+    const slug = 'aisi-440a';
+    await signInAs(moderator.handle, `/steels/${slug}/edit`);
+    for (const [to, summary] of [['57', 'Upper hardness as tempered'], ['56', 'Upper hardness for a tougher edge']] as const) {
+      if (!page.url().endsWith('/edit')) await page.goto(`${base}/steels/${slug}/edit`);
+      await page.getByLabel('To (HRC)').fill(to);
+      await page.getByLabel('Summary of your changes').fill(summary);
+      await page.getByRole('button', { name: 'Save and publish' }).click();
+      await page.waitForURL(new RegExp(`/steels/${slug}$`));
+    }
+    await page.getByRole('link', { name: 'History' }).click();
+    const history = page.getByRole('table', { name: /Revisions of/ });
+    for (const n of [1, 2, 3]) await history.getByRole('link', { name: `Revision ${n}`, exact: true }).waitFor();
+    await screenshot('page-history');
+    await page.getByRole('button', { name: 'Compare the selected revisions' }).click();
+    await page.getByRole('heading', { name: /revision 2 against 3/ }).waitFor();
+    expect(await page.getByRole('table', { name: 'Changes to Typical hardness (HRC)' }).locator('ins').allTextContents()).toContain('56');
+    await screenshot('page-diff');
+    await page.getByRole('link', { name: 'Back to the history' }).click();
+    await history.getByRole('row', { name: /Revision 1\b/ }).getByRole('button', { name: 'Revert to this' }).click();
+    await page.getByText('Make revision 1 current again, as a new revision?').waitFor();
+    await page.getByRole('button', { name: 'Yes, revert' }).click();
+    const reverted = history.getByRole('row', { name: /Revision 4\b/ });
+    await reverted.getByText('restores revision 1').waitFor();
+    expect(await reverted.textContent()).toContain('Reverted to revision 1');
+    await screenshot('page-reverted');
+    await signOut();
+  }, 90_000);
 });
 
 describe('small things found by walking it (issue 17, item 6)', () => {
@@ -161,7 +225,7 @@ describe('small things found by walking it (issue 17, item 6)', () => {
   }, 60_000);
 
   it('the new-result page logs no "NaN cannot be parsed" warning, and offers no retention method for sharpness', async () => {
-    const accounts = (await (await fetch(`${base}/auth/demo-accounts`)).json()) as DemoAccount[];
+    const accounts = await demoAccounts();
     const messages: string[] = [];
     const listen = (m: { text: () => string }) => messages.push(m.text());
     page.on('console', listen);

@@ -84,7 +84,7 @@ describe('the publisher’s journey in a browser', () => {
     await page.getByRole('button', { name: 'Check the file' }).click();
     await page.getByText('1000 rows read, 1000 valid: every row is ready to import.').waitFor();
     // The preview shows how rows will be stored: D2 matched by designation, grit converted to µm.
-    const preview = page.getByRole('table').filter({ hasText: 'How the first rows will be stored' });
+    const preview = page.getByRole('table', { name: /How the first rows will be stored/ });
     expect(await preview.getByRole('row').nth(2).textContent()).toContain('AISI D2');
     await page.getByRole('button', { name: 'Import 1000 results' }).click();
     const done = page.getByText(/Imported 1000 results \(import #(\d+)\)/);

@@ -131,7 +131,7 @@ describe('the reference wiki in a browser', () => {
     const accounts = await api<Account[]>('/auth/demo-accounts');
     const member = accounts.find((a) => a.role === 'member')!;
     const moderator = accounts.find((a) => a.role === 'moderator')!;
-    const before = await api<{ revision: number; hardnessHrc: { min: number; max: number } }>('/api/steels/aisi-d2');
+    const before = await api<{ revision: number; revisionNumber: number; hardnessHrc: { min: number; max: number } }>('/api/steels/aisi-d2');
 
     // The member opens the page and its edit form.
     await signInAs(member.handle, '/steels/aisi-d2');
@@ -196,8 +196,9 @@ describe('the reference wiki in a browser', () => {
     expect((await compared.locator('ins').allTextContents()).join(' ')).toContain(marker);
     expect(await page.getByRole('table', { name: 'Changes to Typical hardness (HRC)' }).locator('ins').allTextContents()).toContain('63');
     // The old revision is still there, whole.
+    // Links keep the revision's id; the page names it by its number on the page.
     await page.goto(`${base}/steels/aisi-d2/revisions/${before.revision}`);
-    await page.getByRole('heading', { name: `AISI D2, revision ${before.revision}` }).waitFor();
+    await page.getByRole('heading', { name: `AISI D2, revision ${before.revisionNumber}` }).waitFor();
     expect(await page.getByText(marker).count()).toBe(0);
     await signOut();
   }, 90_000);

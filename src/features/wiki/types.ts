@@ -37,7 +37,9 @@ export interface WikiParts {
   bodyHtml: string;
   citations: WikiCitation[];
   sources: Record<string, number>;
+  /** The current revision's id (what an edit names as its base) and its number on the page (what people read). */
   revision: number;
+  revisionNumber: number;
   isProtected: boolean;
   proposals: number;
   can: PageActions;
@@ -57,9 +59,13 @@ export interface WikiCitation {
 
 export type RevisionStatus = 'live' | 'proposed' | 'declined';
 
-/** One revision in a page's history. */
+/**
+ * One revision in a page's history. `id` is what links and writes take; `number` (1, 2, 3… on
+ * its page) is what the screens call it, and so for the revisions it names.
+ */
 export interface RevisionSummary {
   id: number;
+  number: number;
   author: { handle: string } | null;
   createdAt: string;
   summary: string;
@@ -67,8 +73,11 @@ export interface RevisionSummary {
   kind: 'edit' | 'revert' | 'merge';
   current: boolean;
   baseRevisionId: number | null;
+  baseRevisionNumber: number | null;
   revertedFromId: number | null;
+  revertedFromNumber: number | null;
   appliedFromId: number | null;
+  appliedFromNumber: number | null;
   review: { by: { handle: string } | null; at: string; note: string | null } | null;
 }
 
@@ -94,7 +103,7 @@ export interface PageEventItem {
 
 /** GET /api/{section}/:slug/revisions. */
 export interface History {
-  page: { slug: string; name: string; currentRevisionId: number; isProtected: boolean; mergedInto: string | null };
+  page: { slug: string; name: string; currentRevisionId: number; currentRevisionNumber: number; isProtected: boolean; mergedInto: string | null };
   items: RevisionSummary[];
   events: PageEventItem[];
 }
@@ -111,11 +120,13 @@ export interface DeskRevision {
   kind: 'page-revision';
   id: number;
   pageType: PageType;
-  page: { slug: string; name: string; section: WikiSection; currentRevisionId: number; isProtected: boolean } | null;
+  page: { slug: string; name: string; section: WikiSection; currentRevisionId: number; currentRevisionNumber: number | null; isProtected: boolean } | null;
+  number: number;
   author: { handle: string } | null;
   createdAt: string;
   summary: string;
   baseRevisionId: number | null;
+  baseRevisionNumber: number | null;
   stale: boolean;
   changed: string[];
   can: { review: boolean };

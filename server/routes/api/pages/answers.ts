@@ -11,7 +11,7 @@ import type { ReviseOutcome } from '../../../commands/revise-page';
 /** A page whole, as GET /api/{section}/:slug answers it, for `viewer`. */
 export async function presentPage(type: PageType, page: PageModel, viewer: Actor | null) {
   const view = await pageView(type, page);
-  const extras = { viewer, linkExists: view.linkExists, proposals: view.proposals };
+  const extras = { viewer, linkExists: view.linkExists, proposals: view.proposals, revisionNumber: view.revisionNumber };
   if (view.type === 'steel') return presentSteel(view.page, view.results.count, { ...extras, results: view.results });
   if (view.type === 'abrasive') return presentAbrasive(view.page, view.results.count, { ...extras, results: view.results });
   return presentMethod(view.page, view.slugById, { ...extras, versions: view.versions });
@@ -39,7 +39,7 @@ export async function sendStale(res: Response, outcome: Extract<ReviseOutcome, {
   const linkExists = await linkCheckerFor([outcome.current.body]);
   const author = outcome.current.author?.handle;
   res.status(409).json({
-    error: `Someone saved this page while you were editing: revision ${outcome.current.id}${author ? ` by ${author}` : ''} is now current. Nothing was saved; review their changes, merge yours into the current revision and save again.`,
+    error: `Someone saved this page while you were editing: revision ${outcome.current.number}${author ? ` by ${author}` : ''} is now current. Nothing was saved; review their changes, merge yours into the current revision and save again.`,
     current: presentRevision(outcome.current, outcome.page, viewer, linkExists),
     conflicts: outcome.conflicts,
     merged: outcome.merged,

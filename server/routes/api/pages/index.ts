@@ -112,7 +112,14 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
       const viewer = actorOf(req);
       const { page, mergedInto, revisions, events } = await pageHistory(type, req.valid.params.slug, viewer);
       res.json({
-        page: { slug: page.slug, name: page.name, currentRevisionId: page.currentRevisionId, isProtected: page.isProtected, mergedInto: mergedInto?.slug ?? null },
+        page: {
+          slug: page.slug,
+          name: page.name,
+          currentRevisionId: page.currentRevisionId,
+          currentRevisionNumber: revisions.find((r) => r.id === page.currentRevisionId)?.number ?? null,
+          isProtected: page.isProtected,
+          mergedInto: mergedInto?.slug ?? null,
+        },
         items: revisions.map((r) => presentRevisionSummary(r, page.currentRevisionId, viewer)),
         events: events.map(presentPageEvent),
       });

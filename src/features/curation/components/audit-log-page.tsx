@@ -6,6 +6,7 @@ import { formatDateTime } from '@/lib/format';
 import { SignInRequired } from '@/lib/authorization';
 import { useCan } from '@/lib/auth';
 import { Badge } from '@/components/ui/badge';
+import { cardBodyClass, cardCellClass, cardRowClass, cardTableClass } from '@/components/ui/table-frame';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
 import { PageTitle } from '@/components/ui/page-title';
@@ -84,12 +85,13 @@ function AuditTable() {
         <Empty title="No entries">{filters.actor || filters.action ? 'Nothing matches these filters.' : 'No moderator or admin has acted yet.'}</Empty>
       ) : (
         <>
-          <div className="overflow-x-auto rounded-md border border-rule bg-panel">
-            <table className="w-full border-collapse text-sm">
-              <caption className="px-3 py-2 text-left text-muted">
+          {/* Below the md breakpoint each entry is a labelled card, and the caption wraps within the frame. */}
+          <div className="rounded-md border border-rule bg-panel md:overflow-x-auto">
+            <table className={`${cardTableClass} text-sm`}>
+              <caption className="px-3 py-2 text-left text-muted max-md:block">
                 Every moderator and admin action, newest first; refused attempts included. {audit.data.total} entries.
               </caption>
-              <thead>
+              <thead className="max-md:sr-only">
                 <tr className="border-b border-rule text-left">
                   {['When', 'Who', 'What', 'On', 'Outcome', 'Why'].map((h) => (
                     <th key={h} scope="col" className="px-3 py-1.5">
@@ -98,17 +100,17 @@ function AuditTable() {
                   ))}
                 </tr>
               </thead>
-              <tbody>
+              <tbody className={cardBodyClass}>
                 {audit.data.items.map((e) => (
-                  <tr key={e.id} className="border-b border-rule/60 align-top last:border-0">
-                    <td className="whitespace-nowrap px-3 py-1.5">{formatDateTime(e.at)}</td>
-                    <td className="px-3 py-1.5">@{e.actor?.handle}</td>
-                    <td className="px-3 py-1.5">{AUDIT_ACTION_LABELS[e.action] ?? e.action}</td>
-                    <td className="px-3 py-1.5">
+                  <tr key={e.id} className={`border-b border-rule/60 align-top md:last:border-0 ${cardRowClass}`}>
+                    <td data-label="When" className={`whitespace-nowrap px-3 py-1.5 ${cardCellClass}`}>{formatDateTime(e.at)}</td>
+                    <td data-label="Who" className={`px-3 py-1.5 md:whitespace-nowrap ${cardCellClass}`}>@{e.actor?.handle}</td>
+                    <td data-label="What" className={`px-3 py-1.5 ${cardCellClass}`}>{AUDIT_ACTION_LABELS[e.action] ?? e.action}</td>
+                    <td data-label="On" className={`px-3 py-1.5 ${cardCellClass}`}>
                       <AuditSubject entry={e} />
                     </td>
-                    <td className="px-3 py-1.5">{e.outcome === 'done' ? <Badge tone="accent">Done</Badge> : <Badge tone="caution">Refused</Badge>}</td>
-                    <td className="px-3 py-1.5">
+                    <td data-label="Outcome" className={`px-3 py-1.5 ${cardCellClass}`}>{e.outcome === 'done' ? <Badge tone="accent">Done</Badge> : <Badge tone="caution">Refused</Badge>}</td>
+                    <td data-label="Why" className={`px-3 py-1.5 max-md:col-span-2 ${cardCellClass}`}>
                       {e.reason}
                       {typeof e.details?.refusal === 'string' ? <span className="block text-muted">Refused: {e.details.refusal}</span> : null}
                     </td>

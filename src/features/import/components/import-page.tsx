@@ -71,9 +71,13 @@ function Report({ report }: { report: ImportReport }) {
         </>
       ) : null}
       {report.preview.length ? (
-        <div className="overflow-x-auto rounded-md border border-rule bg-panel">
-          <table className="w-full border-collapse text-sm">
-            <caption className="px-3 py-2 text-left text-muted">How the first rows will be stored: pages matched, hardness in HRC, grit in µm, angle per side, median reading.</caption>
+        // The table's title sits above its scrolling box, so a phone shows it whole rather than cut at the frame.
+        <div className="rounded-md border border-rule bg-panel">
+          <p id="import-preview-title" className="px-3 py-2 text-sm text-muted">
+            How the first rows will be stored: pages matched, hardness in HRC, grit in µm, angle per side, median reading.
+          </p>
+          <div className="overflow-x-auto">
+          <table aria-labelledby="import-preview-title" className="w-full border-collapse text-sm">
             <thead>
               <tr className="border-b border-rule text-left">
                 {['Row', 'Steel', 'Abrasive', 'HRC', 'Grit', 'µm', '° per side', 'Median g'].map((h) => (
@@ -98,6 +102,7 @@ function Report({ report }: { report: ImportReport }) {
               ))}
             </tbody>
           </table>
+          </div>
         </div>
       ) : null}
     </section>

@@ -9,7 +9,7 @@ import { contentOfRevision } from './page-editor';
 import { RevisionDiff } from './revision-diff';
 import { NotAWikiPage, useWikiParams, WikiCrumbs } from './wiki-route-frame';
 
-const labelOf = (r: Revision) => `Revision ${r.id}, ${formatDateTime(r.createdAt)}, ${r.author?.handle ?? 'unknown'}`;
+const labelOf = (r: Revision) => `Revision ${r.number}, ${formatDateTime(r.createdAt)}, ${r.author?.handle ?? 'unknown'}`;
 
 function CompareLoaded({ section, slug, from, to }: { section: WikiSection; slug: string; from: number; to: number }) {
   const a = useRevision(section, slug, from);
@@ -19,9 +19,9 @@ function CompareLoaded({ section, slug, from, to }: { section: WikiSection; slug
   const type = SECTION_TYPES[section];
   return (
     <>
-      <WikiCrumbs section={section} slug={slug} name={b.data.page.name} here={`Revisions ${from} and ${to}`} />
-      <PageTitle title={`${b.data.page.name}: revisions ${from} and ${to}`} lead={<>“{a.data.summary}” against “{b.data.summary}”.</>}>
-        {b.data.page.name}: revision {from} against {to}
+      <WikiCrumbs section={section} slug={slug} name={b.data.page.name} here={`Revisions ${a.data.number} and ${b.data.number}`} />
+      <PageTitle title={`${b.data.page.name}: revisions ${a.data.number} and ${b.data.number}`} lead={<>“{a.data.summary}” against “{b.data.summary}”.</>}>
+        {b.data.page.name}: revision {a.data.number} against {b.data.number}
       </PageTitle>
       <p>
         <Link to={paths.wiki.history.getHref(section, slug)}>Back to the history</Link>

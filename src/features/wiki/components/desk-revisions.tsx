@@ -26,11 +26,11 @@ function OpenEdit({ item, onDecided }: { item: DeskRevision; onDecided: () => vo
         Edit of <Link to={paths.wiki.page(page.section, page.slug)}>{page.name}</Link>: “{item.summary}”
       </h3>
       <p className="text-muted">
-        Revision {item.id} by {item.author?.handle ?? 'unknown'}, {formatDate(item.createdAt)}, from revision {item.baseRevisionId}.
+        Revision {item.number} of this page, by {item.author?.handle ?? 'unknown'}, {formatDate(item.createdAt)}, from revision {item.baseRevisionNumber}.
       </p>
       {item.stale ? (
         <p className="rounded-md border border-caution/40 bg-caution-soft px-4 py-2">
-          The page has changed since (revision {page.currentRevisionId} is current). Approving merges this edit with the later ones; if both changed the same field,
+          The page has changed since (revision {page.currentRevisionNumber} is current). Approving merges this edit with the later ones; if both changed the same field,
           approval is refused and nothing is saved.
         </p>
       ) : null}
@@ -41,11 +41,11 @@ function OpenEdit({ item, onDecided }: { item: DeskRevision; onDecided: () => vo
           type={type}
           before={contentOfRevision(type, base.data)}
           after={contentOfRevision(type, proposal.data)}
-          beforeLabel={`Revision ${base.data.id} (before)`}
-          afterLabel={`Revision ${proposal.data.id} (proposed)`}
+          beforeLabel={`Revision ${base.data.number} (before)`}
+          afterLabel={`Revision ${proposal.data.number} (proposed)`}
         />
       ) : null}
-      {item.can.review ? <ReviewRevisionForm key={item.id} id={item.id} onDecided={onDecided} /> : <p className="text-muted">You cannot review your own edit.</p>}
+      {item.can.review ? <ReviewRevisionForm key={item.id} id={item.id} number={item.number} onDecided={onDecided} /> : <p className="text-muted">You cannot review your own edit.</p>}
     </div>
   );
 }
@@ -83,7 +83,7 @@ export function DeskRevisions() {
                     {i.page?.name ?? 'A page'}: {i.summary}
                   </span>
                   <span className="block text-sm text-muted">
-                    #{i.id} · {i.author?.handle ?? 'unknown'} · {formatDate(i.createdAt)} · {i.changed.map((c) => FIELD_LABELS[c] ?? c).join(', ') || 'no changes'}
+                    revision {i.number} · {i.author?.handle ?? 'unknown'} · {formatDate(i.createdAt)} · {i.changed.map((c) => FIELD_LABELS[c] ?? c).join(', ') || 'no changes'}
                   </span>
                   {i.stale ? <Badge tone="caution">page changed since</Badge> : null}
                 </button>

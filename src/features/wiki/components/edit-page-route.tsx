@@ -25,7 +25,7 @@ function EditLoaded({ section, slug }: { section: WikiSection; slug: string }) {
   return (
     <>
       <WikiCrumbs section={section} slug={slug} name={page.data.name} here="Edit" />
-      <PageTitle title={`Edit ${page.data.name}`} lead={`Editing from revision ${page.data.revision}.`}>
+      <PageTitle title={`Edit ${page.data.name}`} lead={`Editing from revision ${page.data.revisionNumber} of this page.`}>
         Edit {page.data.name}
       </PageTitle>
       <PageEditor key={page.data.slug} section={section} page={page.data} />

@@ -4,6 +4,7 @@ import { paths } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
+import { cardBodyClass, cardCellClass, cardRowClass, cardTableClass } from '@/components/ui/table-frame';
 import { PageTitle } from '@/components/ui/page-title';
 import { describeError, ErrorState, Loading } from '@/components/ui/states';
 import { useHistory } from '../api/get-history';
@@ -25,8 +26,8 @@ function RevertButton({ section, slug, revision }: { section: WikiSection; slug:
   }
   return (
     <span className="flex flex-wrap items-center gap-2">
-      <span className="text-sm">Make revision {revision.id} current again, as a new revision?</span>
-      <Button size="sm" busy={revert.isPending} onClick={() => revert.mutate({ toRevision: revision.id })}>
+      <span className="text-sm">Make revision {revision.number} current again, as a new revision?</span>
+      <Button size="sm" busy={revert.isPending} onClick={() => revert.mutate({ toRevision: revision.id }, { onSuccess: () => setAsked(false) })}>
         Yes, revert
       </Button>
       <Button variant="quiet" size="sm" onClick={() => setAsked(false)}>
@@ -40,6 +41,10 @@ function RevertButton({ section, slug, revision }: { section: WikiSection; slug:
     </span>
   );
 }
+
+// Below the md breakpoint each revision is drawn as a card, every cell labelled from data-label.
+const CARD = cardRowClass;
+const CELL = `border-b border-rule/60 px-3 py-2 ${cardCellClass}`;
 
 function HistoryLoaded({ section, slug }: { section: WikiSection; slug: string }) {
   const history = useHistory(section, slug);
@@ -59,7 +64,7 @@ function HistoryLoaded({ section, slug }: { section: WikiSection; slug: string }
   return (
     <>
       <WikiCrumbs section={section} slug={slug} name={name} here="History" />
-      <PageTitle title={`History of ${name}`} lead="Every saved revision, newest first. Nothing is overwritten or deleted: pick any two to compare them side by side.">
+      <PageTitle title={`History of ${name}`} lead="Every saved revision of this page, numbered from 1 and listed newest first. Nothing is overwritten or deleted: pick any two to compare them side by side.">
         History of {name}
       </PageTitle>
       {history.data.page.mergedInto ? (
@@ -75,10 +80,10 @@ function HistoryLoaded({ section, slug }: { section: WikiSection; slug: string }
           if (chosenFrom && chosenTo) navigate(paths.wiki.compare.getHref(section, slug, Math.min(chosenFrom, chosenTo), Math.max(chosenFrom, chosenTo)));
         }}
       >
-        <div className="overflow-x-auto rounded-md border border-rule bg-panel">
-          <table className="w-full min-w-[44rem] border-collapse text-[0.95rem]">
+        <div className="rounded-md border border-rule bg-panel md:overflow-x-auto">
+          <table className={`${cardTableClass} text-[0.95rem] md:min-w-[44rem]`}>
             <caption className="sr-only">Revisions of {name}</caption>
-            <thead>
+            <thead className="max-md:sr-only">
               <tr className="text-left text-sm text-muted">
                 <th scope="col" className="border-b border-rule px-3 py-2">From</th>
                 <th scope="col" className="border-b border-rule px-3 py-2">To</th>
@@ -90,33 +95,33 @@ function HistoryLoaded({ section, slug }: { section: WikiSection; slug: string }
                 {mayRevert ? <th scope="col" className="border-b border-rule px-3 py-2"><span className="sr-only">Revert</span></th> : null}
               </tr>
             </thead>
-            <tbody>
+            <tbody className={cardBodyClass}>
               {items.map((r) => {
                 const origin = revisionOrigin(r);
                 return (
-                  <tr key={r.id} className={r.current ? 'bg-accent-soft/40' : ''}>
-                    <td className="border-b border-rule/60 px-3 py-2">
-                      <input type="radio" name="from" aria-label={`Compare from revision ${r.id}`} checked={chosenFrom === r.id} onChange={() => setFrom(r.id)} />
+                  <tr key={r.id} className={`${r.current ? 'bg-accent-soft/40' : ''} ${CARD}`}>
+                    <td data-label="From" className={CELL}>
+                      <input type="radio" name="from" aria-label={`Compare from revision ${r.number}`} checked={chosenFrom === r.id} onChange={() => setFrom(r.id)} />
                     </td>
-                    <td className="border-b border-rule/60 px-3 py-2">
-                      <input type="radio" name="to" aria-label={`Compare to revision ${r.id}`} checked={chosenTo === r.id} onChange={() => setTo(r.id)} />
+                    <td data-label="To" className={CELL}>
+                      <input type="radio" name="to" aria-label={`Compare to revision ${r.number}`} checked={chosenTo === r.id} onChange={() => setTo(r.id)} />
                     </td>
-                    <td className="border-b border-rule/60 px-3 py-2 whitespace-nowrap">
-                      <Link to={paths.wiki.revision.getHref(section, slug, r.id)}>Revision {r.id}</Link>
+                    <td className={`${CELL} whitespace-nowrap max-md:col-span-2 max-md:-order-1 max-md:before:hidden`}>
+                      <Link to={paths.wiki.revision.getHref(section, slug, r.id)}>Revision {r.number}</Link>
                       {r.current ? <span className="ml-2"><Badge tone="accent">current</Badge></span> : null}
                     </td>
-                    <td className="border-b border-rule/60 px-3 py-2 whitespace-nowrap">{formatDateTime(r.createdAt)}</td>
-                    <td className="border-b border-rule/60 px-3 py-2">{r.author?.handle ?? '—'}</td>
-                    <td className="border-b border-rule/60 px-3 py-2">
+                    <td data-label="Saved" className={`${CELL} whitespace-nowrap`}>{formatDateTime(r.createdAt)}</td>
+                    <td data-label="By" className={`${CELL} md:whitespace-nowrap`}>{r.author?.handle ?? '—'}</td>
+                    <td data-label="Summary" className={`${CELL} max-md:col-span-2`}>
                       {r.summary}
                       {origin ? <span className="block text-sm text-muted">{origin}</span> : null}
                       {r.review?.note ? <span className="block text-sm text-muted">Review note: {r.review.note}</span> : null}
                     </td>
-                    <td className="border-b border-rule/60 px-3 py-2">
+                    <td data-label="State" className={CELL}>
                       <Badge tone={REVISION_STATUS[r.status].tone}>{REVISION_STATUS[r.status].text}</Badge>
                     </td>
                     {mayRevert ? (
-                      <td className="border-b border-rule/60 px-3 py-2">
+                      <td className={`${CELL} max-md:col-span-2 max-md:before:hidden`}>
                         {r.status === 'live' && !r.current ? <RevertButton section={section} slug={slug} revision={r} /> : null}
                       </td>
                     ) : null}

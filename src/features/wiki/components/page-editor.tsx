@@ -117,7 +117,7 @@ export function PageEditor({ section, page }: { section: WikiSection; page: Wiki
       <div role="status" className="flex flex-col gap-3 rounded-md border border-accent/40 bg-accent-soft px-5 py-4">
         <p className="font-serif text-lg">Thank you: your edit is waiting for review.</p>
         <p>
-          A moderator will look at revision {proposed.id} on the review desk. Until then the page shows the last approved version; you can follow the edit in the
+          A moderator will look at revision {proposed.number} of this page on the review desk. Until then the page shows the last approved version; you can follow the edit in the
           page’s history.
         </p>
         <div className="flex flex-wrap gap-4">
@@ -224,7 +224,7 @@ function StalePanel({ type, stale, onContinue }: { type: PageType; stale: Stale;
         {who} saved this page while you were editing
       </h2>
       <p>
-        Nothing of yours was saved and nothing of theirs was overwritten. Revision {stale.current.id} (“{stale.current.summary}”) is now current.
+        Nothing of yours was saved and nothing of theirs was overwritten. Revision {stale.current.number} (“{stale.current.summary}”) is now current.
         {stale.conflicts.length ? (
           <>
             {' '}
@@ -236,12 +236,12 @@ function StalePanel({ type, stale, onContinue }: { type: PageType; stale: Stale;
         )}
       </p>
       <div>
-        <Button onClick={onContinue}>Carry on from revision {stale.current.id} with my changes</Button>
+        <Button onClick={onContinue}>Carry on from revision {stale.current.number} with my changes</Button>
       </div>
       <h3 className="text-lg font-semibold">What they changed</h3>
-      <RevisionDiff type={type} before={contentOfRevision(type, stale.base)} after={contentOfRevision(type, stale.current)} beforeLabel={`Revision ${stale.base.id} (where you started)`} afterLabel={`Revision ${stale.current.id} (theirs)`} />
+      <RevisionDiff type={type} before={contentOfRevision(type, stale.base)} after={contentOfRevision(type, stale.current)} beforeLabel={`Revision ${stale.base.number} (where you started)`} afterLabel={`Revision ${stale.current.number} (theirs)`} />
       <h3 className="text-lg font-semibold">Yours against the current page</h3>
-      <RevisionDiff type={type} before={contentOfRevision(type, stale.current)} after={stale.mine} beforeLabel={`Revision ${stale.current.id}`} afterLabel="Your edit" />
+      <RevisionDiff type={type} before={contentOfRevision(type, stale.current)} after={stale.mine} beforeLabel={`Revision ${stale.current.number}`} afterLabel="Your edit" />
     </section>
   );
 }

@@ -9,7 +9,7 @@ import { pageReviewSchema, useReviewRevision, type PageReview } from '../api/rev
  * A moderator's decision on a proposed page edit: approve it (live at once; merged with later
  * edits when the page moved on) or decline it with a note the author sees.
  */
-export function ReviewRevisionForm({ id, onDecided }: { id: number; onDecided?: () => void }) {
+export function ReviewRevisionForm({ id, number, onDecided }: { id: number; number: number; onDecided?: () => void }) {
   const noteId = useId();
   const [note, setNote] = useState('');
   const [noteError, setNoteError] = useState<string | undefined>();
@@ -32,7 +32,7 @@ export function ReviewRevisionForm({ id, onDecided }: { id: number; onDecided?: 
         : null;
   return (
     <form
-      aria-label={`Decision on revision ${id}`}
+      aria-label={`Decision on revision ${number}`}
       className="flex flex-col gap-4 rounded-md border border-rule bg-panel p-4"
       onSubmit={(e) => {
         e.preventDefault();

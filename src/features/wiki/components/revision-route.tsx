@@ -25,16 +25,16 @@ function RevisionLoaded({ section, slug, id }: { section: WikiSection; slug: str
   const origin = revisionOrigin(r);
   return (
     <>
-      <WikiCrumbs section={section} slug={slug} name={r.page.name} here={`Revision ${r.id}`} />
-      <PageTitle title={`${r.page.name}, revision ${r.id}`} lead={`“${r.summary}”, saved ${formatDateTime(r.createdAt)} by ${r.author?.handle ?? 'unknown'}.`}>
-        {r.page.name}, revision {r.id}
+      <WikiCrumbs section={section} slug={slug} name={r.page.name} here={`Revision ${r.number}`} />
+      <PageTitle title={`${r.page.name}, revision ${r.number}`} lead={`Revision ${r.number} of this page: “${r.summary}”, saved ${formatDateTime(r.createdAt)} by ${r.author?.handle ?? 'unknown'}.`}>
+        {r.page.name}, revision {r.number}
       </PageTitle>
       <div className="flex flex-wrap items-center gap-3">
         <Badge tone={REVISION_STATUS[r.status].tone}>{REVISION_STATUS[r.status].text}</Badge>
         {r.current ? <Badge tone="accent">current</Badge> : null}
         {origin ? <span className="text-sm text-muted">This revision {origin}.</span> : null}
         <Link to={paths.wiki.history.getHref(section, slug)}>History</Link>
-        {r.baseRevisionId ? <Link to={paths.wiki.compare.getHref(section, slug, r.baseRevisionId, r.id)}>Changes against revision {r.baseRevisionId}</Link> : null}
+        {r.baseRevisionId ? <Link to={paths.wiki.compare.getHref(section, slug, r.baseRevisionId, r.id)}>Changes against revision {r.baseRevisionNumber}</Link> : null}
       </div>
       {r.review ? (
         <p className="text-sm">
@@ -47,7 +47,7 @@ function RevisionLoaded({ section, slug, id }: { section: WikiSection; slug: str
           <h2 id="decide" className="mb-2 text-xl font-semibold">
             Decision
           </h2>
-          <ReviewRevisionForm id={r.id} />
+          <ReviewRevisionForm id={r.id} number={r.number} />
         </section>
       ) : null}
       <Facts items={EDITABLE_FIELDS[type].map((f) => ({ term: FIELD_LABELS[f] ?? f, value: <span className="whitespace-pre-line">{fieldLines(f, fields[f]).join('\n') || '—'}</span> }))} />

@@ -10,8 +10,8 @@ export const REVISION_STATUS: Record<RevisionSummary['status'], { text: string; 
 
 /** How a revision came about, in a few words. */
 export function revisionOrigin(r: RevisionSummary): string | null {
-  if (r.kind === 'revert' && r.revertedFromId) return `restores revision ${r.revertedFromId}`;
-  if (r.kind === 'merge' && r.appliedFromId) return `applies proposal ${r.appliedFromId} over revision ${r.baseRevisionId}`;
+  if (r.kind === 'revert' && r.revertedFromNumber) return `restores revision ${r.revertedFromNumber}`;
+  if (r.kind === 'merge' && r.appliedFromNumber) return `applies proposed revision ${r.appliedFromNumber} over revision ${r.baseRevisionNumber}`;
   return null;
 }
 

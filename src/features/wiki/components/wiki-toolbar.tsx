@@ -13,7 +13,7 @@ import { SECTION_LABELS, type PageActions, type WikiSection } from '../types';
 interface ToolbarPage {
   slug: string;
   name: string;
-  revision: number;
+  revisionNumber: number;
   isProtected: boolean;
   proposals: number;
   can: PageActions;
@@ -101,7 +101,7 @@ export function WikiToolbar({ section, page }: { section: WikiSection; page: Too
             {page.proposals} edit{page.proposals === 1 ? '' : 's'} awaiting review
           </Badge>
         ) : null}
-        <span className="text-sm text-muted">Revision {page.revision}</span>
+        <span className="text-sm text-muted">Revision {page.revisionNumber}</span>
         {page.can.protect ? (
           <Button variant="quiet" size="sm" busy={protect.isPending} onClick={() => protect.mutate({ protected: !page.isProtected })}>
             {page.isProtected ? 'Release protection' : 'Protect this page'}
