@@ -1,7 +1,10 @@
 import type { User } from '../models';
 
+/** What presentAccount reads of an account. */
+export type AccountFace = Pick<User, 'handle' | 'displayName' | 'role'>;
+
 /** The public face of an account: never its e-mail address or provider subject. */
-export function presentAccount(user: User) {
+export function presentAccount(user: AccountFace) {
   return { handle: user.handle, displayName: user.displayName, role: user.role };
 }
 
