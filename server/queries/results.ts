@@ -27,17 +27,38 @@ async function approvedListRows(ids: readonly number[]): Promise<ListRow[]> {
   const rows = await Result.sequelize!.query<Record<string, unknown>>(
     `SELECT r."id", r."status", r."createdAt", r."updatedAt", r."authorId", r."material", r."gritUm", r."gritStandard", r."gritGrade", r."gritPhi",
        r."hrc", r."perSideDeg", r."inclusiveDeg", r."sharpnessMedianG", r."steelId", r."abrasiveId", r."sharpnessMethodId", u."handle", u."displayName", u."role"
-     FROM "results" r LEFT JOIN "users" u ON u."id" = r."authorId" WHERE r."id" IN (:ids)`,
-    { type: QueryTypes.SELECT, replacements: { ids } },
+     FROM "results" r LEFT JOIN "users" u ON u."id" = r."authorId" WHERE r."id" IN (${ids.map((id) => String(Math.trunc(id))).join(',')})`,
+    // The ids written into the SQL (whole numbers from the read model): Sequelize's scan of the
+    // statement for replacements cost a third of the read's CPU time (0.55 of 1.64 ms).
+    { type: QueryTypes.SELECT },
   );
-  return rows
-    .filter((r) => r.status === 'approved')
-    .map(({ handle, displayName, role, ...r }) => ({
-      ...(r as unknown as ListRow),
+  // Each row built field by field: spreading the driver's rows (rest and spread) took a fifth
+  // of the read's CPU time.
+  const list: ListRow[] = [];
+  for (const r of rows) {
+    if (r.status !== 'approved') continue;
+    list.push({
+      id: r.id as number,
+      status: 'approved',
       createdAt: rawDate(r.createdAt as string),
       updatedAt: rawDate(r.updatedAt as string),
-      author: handle === null ? null : ({ handle, displayName, role } as AccountFace),
-    }));
+      authorId: r.authorId as number,
+      author: r.handle === null ? null : ({ handle: r.handle, displayName: r.displayName, role: r.role } as AccountFace),
+      material: r.material as string,
+      gritUm: r.gritUm as number,
+      gritStandard: r.gritStandard as string,
+      gritGrade: r.gritGrade as string,
+      gritPhi: r.gritPhi as number,
+      hrc: r.hrc as number,
+      perSideDeg: r.perSideDeg as number,
+      inclusiveDeg: r.inclusiveDeg as number,
+      sharpnessMedianG: r.sharpnessMedianG as number,
+      steelId: r.steelId as number,
+      abrasiveId: r.abrasiveId as number,
+      sharpnessMethodId: r.sharpnessMethodId as number,
+    });
+  }
+  return list;
 }
 
 /** A result's pages, author and trail (each step with who took it): what presentResult shows. */
