@@ -3,26 +3,10 @@ import { bandOfPhi } from '@shared/derive-result';
 import { ABRASIVE_MATERIALS, REVISION_STATUS_LABELS } from '@shared/vocabulary';
 import { resultChanges } from '@shared/result-diff';
 import type { ResultInput } from '@shared/schemas/result';
-import type { Result, ResultEvent, ResultRevision } from '../models';
-import { presentAccount, type AccountFace } from './user';
+import type { Result, ResultRevision, SummarisableResult } from '../models';
+import { presentAccount } from './user';
 
 const round = (x: number, digits = 2) => Math.round(x * 10 ** digits) / 10 ** digits;
-
-/**
- * What presentResultSummary reads of a result: its derived columns, the pages it refers to, its
- * author's public face and (for insiders) its trail. A Result with its includes is one; the
- * public list builds plain ones from a raw read (queries/results.ts).
- */
-export type SummarisableResult = Pick<
-  Result,
-  'id' | 'status' | 'createdAt' | 'updatedAt' | 'authorId' | 'material' | 'gritUm' | 'gritStandard' | 'gritGrade' | 'gritPhi' | 'hrc' | 'perSideDeg' | 'inclusiveDeg' | 'sharpnessMedianG'
-> & {
-  author?: AccountFace | null;
-  steel?: { slug: string; name: string } | null;
-  abrasive?: { slug: string; name: string; bond: string } | null;
-  sharpnessMethod?: { name: string } | null;
-  events?: Pick<ResultEvent, 'id' | 'fromStatus' | 'toStatus' | 'note' | 'createdAt' | 'actor'>[];
-};
 
 /** The trail, oldest first, and the last decision in it (unless the result went back on the desk after it: edited and resubmitted). */
 function trailOf(result: SummarisableResult) {

@@ -1,7 +1,4 @@
-import type { User } from '../models';
-
-/** What presentAccount reads of an account. */
-export type AccountFace = Pick<User, 'handle' | 'displayName' | 'role'>;
+import type { AccountFace, User } from '../models';
 
 /** The public face of an account: never its e-mail address or provider subject. */
 export function presentAccount(user: AccountFace) {

@@ -4,15 +4,15 @@ import { limits } from '@shared/validations';
 import type { z } from 'zod';
 import type { resultListQuerySchema } from '@shared/schemas/result';
 import { forbidden, notFound } from '../errors';
-import { Abrasive, Method, Result, ResultEvent, Steel, User } from '../models';
+import { Abrasive, Method, Result, ResultEvent, Steel, User, type AccountFace, type SummarisableResult } from '../models';
 import { resultIncludes } from '../search/documents';
 import { approvedResults } from '../read-models/approved-results';
 import { lookups } from './compare-lookups';
 import { rawDate } from '../db/raw-values';
-import type { SummarisableResult } from '../presenters/result';
-import type { AccountFace } from '../presenters/user';
 
 type ListRow = SummarisableResult & { steelId: number; abrasiveId: number; sharpnessMethodId: number };
+/** A row as the list's read gives it: dates as the driver gives them, the author's face beside (null without an author). */
+type RawListRow = Omit<ListRow, 'createdAt' | 'updatedAt' | 'author'> & { createdAt: Date | string; updatedAt: Date | string } & { [K in keyof AccountFace]: AccountFace[K] | null };
 
 /**
  * The rows of a page of the public list, by primary key, with their authors' public faces: one
@@ -24,7 +24,7 @@ type ListRow = SummarisableResult & { steelId: number; abrasiveId: number; sharp
  */
 async function approvedListRows(ids: readonly number[]): Promise<ListRow[]> {
   if (!ids.length) return [];
-  const rows = await Result.sequelize!.query<Record<string, unknown>>(
+  const rows = await Result.sequelize!.query<RawListRow>(
     `SELECT r."id", r."status", r."createdAt", r."updatedAt", r."authorId", r."material", r."gritUm", r."gritStandard", r."gritGrade", r."gritPhi",
        r."hrc", r."perSideDeg", r."inclusiveDeg", r."sharpnessMedianG", r."steelId", r."abrasiveId", r."sharpnessMethodId", u."handle", u."displayName", u."role"
      FROM "results" r LEFT JOIN "users" u ON u."id" = r."authorId" WHERE r."id" IN (${ids.map((id) => String(Math.trunc(id))).join(',')})`,
@@ -32,31 +32,15 @@ async function approvedListRows(ids: readonly number[]): Promise<ListRow[]> {
     // statement for replacements cost a third of the read's CPU time (0.55 of 1.64 ms).
     { type: QueryTypes.SELECT },
   );
-  // Each row built field by field: spreading the driver's rows (rest and spread) took a fifth
-  // of the read's CPU time.
+  // Each row built by name: spreading the driver's rows (rest and spread) took a fifth of the
+  // read's CPU time.
   const list: ListRow[] = [];
   for (const r of rows) {
     if (r.status !== 'approved') continue;
-    list.push({
-      id: r.id as number,
-      status: 'approved',
-      createdAt: rawDate(r.createdAt as string),
-      updatedAt: rawDate(r.updatedAt as string),
-      authorId: r.authorId as number,
-      author: r.handle === null ? null : ({ handle: r.handle, displayName: r.displayName, role: r.role } as AccountFace),
-      material: r.material as string,
-      gritUm: r.gritUm as number,
-      gritStandard: r.gritStandard as string,
-      gritGrade: r.gritGrade as string,
-      gritPhi: r.gritPhi as number,
-      hrc: r.hrc as number,
-      perSideDeg: r.perSideDeg as number,
-      inclusiveDeg: r.inclusiveDeg as number,
-      sharpnessMedianG: r.sharpnessMedianG as number,
-      steelId: r.steelId as number,
-      abrasiveId: r.abrasiveId as number,
-      sharpnessMethodId: r.sharpnessMethodId as number,
-    });
+    const { id, authorId, material, gritUm, gritStandard, gritGrade, gritPhi, hrc, perSideDeg, inclusiveDeg, sharpnessMedianG, steelId, abrasiveId, sharpnessMethodId } = r;
+    const author = r.handle === null ? null : { handle: r.handle, displayName: r.displayName!, role: r.role! };
+    const [createdAt, updatedAt] = [rawDate(r.createdAt), rawDate(r.updatedAt)];
+    list.push({ id, status: 'approved', createdAt, updatedAt, authorId, author, material, gritUm, gritStandard, gritGrade, gritPhi, hrc, perSideDeg, inclusiveDeg, sharpnessMedianG, steelId, abrasiveId, sharpnessMethodId });
   }
   return list;
 }
