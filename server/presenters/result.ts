@@ -60,7 +60,6 @@ export function presentResultSummary(result: SummarisableResult, viewer: Actor |
     },
   };
 }
-export type PresentedResultSummary = ReturnType<typeof presentResultSummary>;
 
 /**
  * A result as the API gives it: the summary, with what was entered (the pages as entered), the

@@ -91,7 +91,7 @@ export async function listResults(query: z.infer<typeof resultListQuerySchema>, 
       r.abrasive = look.abrasives.get(r.abrasiveId);
       r.sharpnessMethod = look.methods.get(r.sharpnessMethodId);
     }
-    // The trail only for those who see it (presentResult): the author and moderators.
+    // The trail, for the review note that only the author and moderators see (presentResultSummary).
     const insiderOf = found.filter((r) => viewer && (viewer.id === r.authorId || atLeast(viewer.role, 'moderator')));
     if (insiderOf.length) {
       const events = await ResultEvent.findAll({ where: { resultId: insiderOf.map((r) => r.id) }, include: [{ model: User, as: 'actor' }] });
