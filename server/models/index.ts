@@ -52,6 +52,8 @@ export function initModels(sequelize: Sequelize) {
 export { User, Steel, Abrasive, Method, PageRevision, Result, ResultEvent, ResultRevision, ComparisonCell, Wheel, WheelMeasurement, Grinder, Jig, Setup, PriceReport };
 export { PublisherApplication, ApiToken, ImportBatch, ImportBatchResult, Photo, Flag, AuditEntry, Follow, NotificationSetting, SiteSetting };
 export { PageEvent };
+export type { AccountFace } from './user';
+export type { SummarisableResult } from './result';
 export { SignInState, RateLimitHit };
 
 /**

@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
 import type { ResultInput, ResultRevisionStatus, ResultStatus } from '@shared/schemas/result';
 import type { DerivedStep } from '@shared/progression';
-import type { User } from './user';
+import type { AccountFace, User } from './user';
 import type { Abrasive, Method, Steel } from './reference-pages';
 
 /**
@@ -148,3 +148,19 @@ export class ResultRevision extends Model<InferAttributes<ResultRevision>, Infer
 
 /** The comparison cell model lives in ./comparison-cell.ts (whole- and half-φ bands, migration 0003). */
 export { ComparisonCell } from './comparison-cell';
+
+/**
+ * What presentResultSummary reads of a result: its derived columns, the pages it refers to, its
+ * author's public face and (for insiders) its trail. A Result with its includes is one; the
+ * public list builds plain ones from a raw read (queries/results.ts).
+ */
+export type SummarisableResult = Pick<
+  Result,
+  'id' | 'status' | 'createdAt' | 'updatedAt' | 'authorId' | 'material' | 'gritUm' | 'gritStandard' | 'gritGrade' | 'gritPhi' | 'hrc' | 'perSideDeg' | 'inclusiveDeg' | 'sharpnessMedianG'
+> & {
+  author?: AccountFace | null;
+  steel?: { slug: string; name: string } | null;
+  abrasive?: { slug: string; name: string; bond: string } | null;
+  sharpnessMethod?: { name: string } | null;
+  events?: Pick<ResultEvent, 'id' | 'fromStatus' | 'toStatus' | 'note' | 'createdAt' | 'actor'>[];
+};

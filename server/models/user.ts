@@ -1,6 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Actor, Role } from '@shared/permissions';
 
+/** An account's public face, as presenters/user.ts presentAccount gives it. */
+export type AccountFace = Pick<User, 'handle' | 'displayName' | 'role'>;
+
 /** A person with an account; `oauthSubject` is the provider's stable id for them. */
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;

@@ -3,7 +3,7 @@ import { bandOfPhi } from '@shared/derive-result';
 import { ABRASIVE_MATERIALS, REVISION_STATUS_LABELS } from '@shared/vocabulary';
 import { resultChanges } from '@shared/result-diff';
 import type { ResultInput } from '@shared/schemas/result';
-import type { Result, ResultRevision } from '../models';
+import type { Result, ResultRevision, SummarisableResult } from '../models';
 import { presentAccount } from './user';
 
 /** Abrasive pages' names by slug (the route reads them with `abrasiveNames()`): a progression step names its abrasive by slug. */
@@ -11,23 +11,68 @@ export type AbrasiveNames = ReadonlyMap<string, string>;
 
 const round = (x: number, digits = 2) => Math.round(x * 10 ** digits) / 10 ** digits;
 
-/**
- * A result as the API gives it: what was entered, the names of what it refers to, the derived
- * values, and, for its author and moderators only, the review note and the trail.
- */
-export function presentResult(result: Result, viewer: Actor | null, names: AbrasiveNames) {
-  const input = result.input;
-  const insider = !!viewer && (viewer.id === result.authorId || atLeast(viewer.role, 'moderator'));
+/** The trail, oldest first, and the last decision in it (unless the result went back on the desk after it: edited and resubmitted). */
+function trailOf(result: SummarisableResult) {
   const events = [...(result.events ?? [])].sort((a, b) => a.id - b.id);
-  // The last decision, unless the result went back on the desk after it (edited and resubmitted).
   const lastDecision = events.findLastIndex((e) => e.fromStatus === 'pending' && e.toStatus !== 'pending');
   const decision = lastDecision >= 0 && !events.slice(lastDecision + 1).some((e) => e.toStatus === 'pending') ? events[lastDecision] : undefined;
+  return { events, decision };
+}
+
+const isInsider = (result: SummarisableResult, viewer: Actor | null) => !!viewer && (viewer.id === result.authorId || atLeast(viewer.role, 'moderator'));
+
+/**
+ * A result in a list (GET /results): what a list shows of it (its pages, figures, author, date,
+ * state, the review note for its author and moderators, the viewer's actions), without what was
+ * entered in full, the notes or the trail, which its own answer (presentResult) gives.
+ */
+export function presentResultSummary(result: SummarisableResult, viewer: Actor | null) {
+  const { decision } = trailOf(result);
   return {
     id: result.id,
     status: result.status,
     createdAt: result.createdAt,
     updatedAt: result.updatedAt,
     author: result.author ? presentAccount(result.author) : null,
+    steel: result.steel?.slug ?? '',
+    steelName: result.steel?.name ?? '',
+    abrasive: result.abrasive?.slug ?? '',
+    abrasiveName: result.abrasive?.name ?? '',
+    abrasiveMaterial: result.material,
+    abrasiveMaterialLabel: ABRASIVE_MATERIALS[result.material as keyof typeof ABRASIVE_MATERIALS] ?? result.material,
+    bond: result.abrasive?.bond ?? null,
+    sharpnessMethodName: result.sharpnessMethod?.name ?? '',
+    derived: {
+      gritUm: round(result.gritUm, 3),
+      gritStandard: result.gritStandard,
+      gritGrade: result.gritGrade,
+      gritBand: bandOfPhi(result.gritPhi),
+      hrc: round(result.hrc, 1),
+      perSideDeg: round(result.perSideDeg),
+      inclusiveDeg: round(result.inclusiveDeg),
+      sharpnessMedianG: round(result.sharpnessMedianG),
+    },
+    review:
+      isInsider(result, viewer) && decision
+        ? { decision: decision.toStatus, note: decision.note, at: decision.createdAt, by: decision.actor ? { handle: decision.actor.handle } : null }
+        : null,
+    can: {
+      review: can(viewer, 'review:result', { authorId: result.authorId, status: result.status }) && result.status === 'pending',
+      retract: can(viewer, 'retract:result', { authorId: result.authorId, status: result.status }),
+      edit: can(viewer, 'edit:result', { authorId: result.authorId, status: result.status }),
+    },
+  };
+}
+
+/**
+ * A result as the API gives it: the summary, with what was entered (the pages as entered), the
+ * progression, the notes, and, for its author and moderators only, the trail.
+ */
+export function presentResult(result: Result, viewer: Actor | null, names: AbrasiveNames) {
+  const input = result.input;
+  const { events } = trailOf(result);
+  return {
+    ...presentResultSummary(result, viewer),
     steel: input.steel,
     steelName: result.steel?.name ?? input.steel,
     hardness: input.hardness,
@@ -44,9 +89,6 @@ export function presentResult(result: Result, viewer: Actor | null, names: Abras
     })),
     abrasive: input.abrasive,
     abrasiveName: result.abrasive?.name ?? input.abrasive,
-    abrasiveMaterial: result.material,
-    abrasiveMaterialLabel: ABRASIVE_MATERIALS[result.material as keyof typeof ABRASIVE_MATERIALS] ?? result.material,
-    bond: result.abrasive?.bond ?? null,
     grit: input.grit ?? null,
     edgeAngle: input.edgeAngle,
     sharpness: input.sharpness,
@@ -54,28 +96,9 @@ export function presentResult(result: Result, viewer: Actor | null, names: Abras
     retention: input.retention ?? null,
     notes: input.notes ?? null,
     notesHtml: result.notesHtml,
-    derived: {
-      gritUm: round(result.gritUm, 3),
-      gritStandard: result.gritStandard,
-      gritGrade: result.gritGrade,
-      gritBand: bandOfPhi(result.gritPhi),
-      hrc: round(result.hrc, 1),
-      perSideDeg: round(result.perSideDeg),
-      inclusiveDeg: round(result.inclusiveDeg),
-      sharpnessMedianG: round(result.sharpnessMedianG),
-    },
-    review:
-      insider && decision
-        ? { decision: decision.toStatus, note: decision.note, at: decision.createdAt, by: decision.actor ? { handle: decision.actor.handle } : null }
-        : null,
-    trail: insider
+    trail: isInsider(result, viewer)
       ? events.map((e) => ({ from: e.fromStatus, to: e.toStatus, at: e.createdAt, by: e.actor ? { handle: e.actor.handle } : null, note: e.note }))
       : [],
-    can: {
-      review: can(viewer, 'review:result', { authorId: result.authorId, status: result.status }) && result.status === 'pending',
-      retract: can(viewer, 'retract:result', { authorId: result.authorId, status: result.status }),
-      edit: can(viewer, 'edit:result', { authorId: result.authorId, status: result.status }),
-    },
   };
 }
 export type PresentedResult = ReturnType<typeof presentResult>;

@@ -1,7 +1,7 @@
-import type { User } from '../models';
+import type { AccountFace, User } from '../models';
 
 /** The public face of an account: never its e-mail address or provider subject. */
-export function presentAccount(user: User) {
+export function presentAccount(user: AccountFace) {
   return { handle: user.handle, displayName: user.displayName, role: user.role };
 }
 

@@ -1,5 +1,6 @@
 import { Abrasive, Method, Steel } from '../models';
 import { keptUntil } from './kept-until';
+import { rawJson } from '../db/raw-values';
 
 /** What the comparison needs to know of a steel page. */
 export interface SteelInfo {
@@ -48,8 +49,7 @@ async function load(): Promise<Lookups> {
   ]);
   const s = (steels as unknown as (SteelInfo & { designations: unknown })[]).map((x) => ({
     ...x,
-    // raw queries give JSON columns as text on SQLite
-    designations: (typeof x.designations === 'string' ? JSON.parse(x.designations) : x.designations) as SteelInfo['designations'],
+    designations: rawJson<SteelInfo['designations']>(x.designations),
   }));
   const m = methods as unknown as MethodInfo[];
   return {

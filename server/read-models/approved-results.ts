@@ -6,6 +6,7 @@ import { memberAttributes, type CellKey, type CellRecord } from '../aggregates/c
 import { changedCells } from '../aggregates/cell-cache';
 import { follow } from '../changes';
 import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
+import { rawDate } from '../db/raw-values';
 
 /** The cells a commit changed, or all of them after a rebuild. */
 type CellChange = { keys: CellKey[] } | { all: true };
@@ -56,12 +57,7 @@ export interface ResultFilter {
   steps?: ReadonlySet<number> | null;
 }
 
-const toMs = (d: Date | string): number => {
-  if (d instanceof Date) return d.getTime();
-  // SQLite keeps Sequelize's "YYYY-MM-DD HH:MM:SS.SSS +00:00".
-  const iso = /^\d{4}-\d{2}-\d{2} /.test(d) ? d.replace(' ', 'T').replace(/ ([+-]\d{2}:\d{2})$/, '$1') : d;
-  return Date.parse(iso);
-};
+const toMs = (d: Date | string): number => rawDate(d).getTime();
 
 const FLOAT_COLUMNS = ['gritUm', 'medianG', 'retention', 'hrc', 'angle', 'created'] as const;
 const INT_COLUMNS = ['id', 'method', 'steel', 'material', 'gritPhi', 'half', 'author', 'abrasive', 'cell', 'via', 'steps'] as const;

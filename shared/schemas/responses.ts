@@ -97,8 +97,14 @@ export function pageOf<T extends z.ZodType>(item: T, id: string) {
     .meta({ id });
 }
 
+/** A result in a list (GET /results; server/presenters/result.ts presentResultSummary): GET /results/:id gives the rest. */
+export const resultSummarySchema = resultSchema
+  .pick({ id: true, status: true, createdAt: true, updatedAt: true, author: true, steel: true, steelName: true, abrasive: true, abrasiveName: true, derived: true, can: true })
+  .extend({ sharpnessMethodName: z.string() })
+  .meta({ id: 'ResultSummary' });
+
 /** GET /results. */
-export const resultPageSchema = pageOf(resultSchema, 'ResultPage');
+export const resultPageSchema = pageOf(resultSummarySchema, 'ResultPage');
 
 /** A reference page in a list (steels, abrasives, methods). */
 export const pageSummarySchema = z.looseObject({ slug: z.string(), name: z.string() }).meta({ id: 'PageSummary' });

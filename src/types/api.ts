@@ -46,7 +46,8 @@ export interface TrailEntry {
   note: string | null;
 }
 
-export interface Result {
+/** A result in a list (GET /api/results); GET /api/results/:id gives the whole Result. */
+export interface ResultSummary {
   id: number;
   status: ResultStatus;
   createdAt: string;
@@ -54,21 +55,11 @@ export interface Result {
   author: SessionUser;
   steel: string;
   steelName: string;
-  hardness: { value: number; scale: HardnessScale; measured?: boolean };
-  heatTreatment?: string | null;
-  /** Steps before the final abrasive, with their derived µm (empty when none was recorded). */
-  progression: { abrasive: string; abrasiveName: string; material: string; materialLabel: string; grit: { standard: GritStandard; grade: string }; gritUm: number; perSideDeg: number | null }[];
   abrasive: string;
   abrasiveName: string;
   abrasiveMaterial: string;
   bond: string;
-  grit: { standard?: GritStandard | null; grade: string } | null;
-  edgeAngle: { perSideDeg: number } | { setup: WheelSetupValues };
-  sharpness: { method: string; readingsG: number[] };
   sharpnessMethodName: string;
-  retention: { method: string; cuts: number } | null;
-  notes: RichTextNode | null;
-  notesHtml: string;
   derived: {
     gritUm: number | null;
     gritStandard: string | null;
@@ -81,8 +72,21 @@ export interface Result {
   };
   /** The last decision; `decision` may be the verb sent or the state it led to ("approved"). */
   review: { decision: string; note: string | null; at: string; by: { handle: string } | null } | null;
-  trail: TrailEntry[];
   can: { review: boolean; retract: boolean; edit: boolean };
+}
+
+export interface Result extends ResultSummary {
+  hardness: { value: number; scale: HardnessScale; measured?: boolean };
+  heatTreatment?: string | null;
+  /** Steps before the final abrasive, with their derived µm (empty when none was recorded). */
+  progression: { abrasive: string; abrasiveName: string; material: string; materialLabel: string; grit: { standard: GritStandard; grade: string }; gritUm: number; perSideDeg: number | null }[];
+  grit: { standard?: GritStandard | null; grade: string } | null;
+  edgeAngle: { perSideDeg: number } | { setup: WheelSetupValues };
+  sharpness: { method: string; readingsG: number[] };
+  retention: { method: string; cuts: number } | null;
+  notes: RichTextNode | null;
+  notesHtml: string;
+  trail: TrailEntry[];
 }
 
 /** One changed field of a result revision against the version it replaces. */

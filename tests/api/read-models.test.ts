@@ -188,6 +188,9 @@ describe('the public results list answered from memory', () => {
     return { ids: body.items.map((r) => r.id), total: body.total };
   };
 
+  /** What a list item holds (presentResultSummary): no input in full, notes or trail. */
+  const summaryFields = ['abrasive', 'abrasiveMaterial', 'abrasiveMaterialLabel', 'abrasiveName', 'author', 'bond', 'can', 'createdAt', 'derived', 'id', 'review', 'sharpnessMethodName', 'status', 'steel', 'steelName', 'updatedAt'];
+
   it('gives the pages, totals and order of the SQL list, whole and by steel or abrasive, across writes', async () => {
     const check = async () => {
       const total = await Result.count({ where: { status: 'approved' } });
@@ -213,12 +216,18 @@ describe('the public results list answered from memory', () => {
     await mod.agent.post(`/api/results/${posted.body.id}/review`).set('X-CSRF-Token', mod.csrf).send({ decision: 'approve' }).expect(200);
     expect((await listFromApi('status=approved')).ids[0]).toBe(posted.body.id);
     await check();
-    // Each item as the result's own answer gives it (that one reads the pages through joins;
-    // the list names them from the kept lookups), for a visitor and for the author.
+    // Each item is the result's own answer without what was entered in full, the notes and the
+    // trail (that one reads the pages through joins; the list names them from the kept lookups),
+    // for a visitor and for the author (who sees the review note in both).
     for (const who of [request(server.url), member.agent]) {
       const items = ((await who.get('/api/results?status=approved').expect(200)).body as { items: { id: number }[] }).items;
-      for (const item of items.slice(0, 5)) expect(item).toEqual((await who.get(`/api/results/${item.id}`).expect(200)).body);
+      for (const item of items.slice(0, 5)) {
+        expect((await who.get(`/api/results/${item.id}`).expect(200)).body).toMatchObject(item);
+        expect(Object.keys(item).sort()).toEqual(summaryFields);
+      }
     }
+    const own = ((await member.agent.get('/api/results?status=approved').expect(200)).body as { items: { id: number; review: unknown }[] }).items.find((r) => r.id === posted.body.id);
+    expect(own?.review).toMatchObject({ decision: 'approved' });
     await member.agent.post(`/api/results/${posted.body.id}/retract`).set('X-CSRF-Token', member.csrf).send({ reason: 'checking the list' }).expect(200);
     expect((await listFromApi('status=approved')).ids).not.toContain(posted.body.id);
     await check();

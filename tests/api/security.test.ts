@@ -350,17 +350,18 @@ describe('one server', () => {
 
   describe('errors never show a stack or SQL (OWASP Error Handling cheat sheet)', () => {
     it('answers an unexpected failure with a plain 500 and keeps the details in the log', async () => {
-      // The public list reads its page's rows with findAll (their ids come from memory).
-      const original = Result.findAll;
+      // The public list reads its page's rows with one raw query (their ids come from memory).
+      const sequelize = Result.sequelize!;
+      const original = sequelize.query;
       const failure = Object.assign(new Error('SQLITE_ERROR: no such column: results.secretColumn'), { sql: 'SELECT * FROM results WHERE author = \'someone@example.test\'' });
-      (Result as unknown as { findAll: unknown }).findAll = () => Promise.reject(failure);
+      (sequelize as unknown as { query: unknown }).query = () => Promise.reject(failure);
       try {
         const res = await request(server.url).get('/api/results').expect(500);
         const text = JSON.stringify(res.body);
         expect(res.body).toEqual({ error: expect.any(String) });
         for (const leak of ['SQLITE', 'SELECT', 'secretColumn', 'at ', '.ts', 'node_modules']) expect(text).not.toContain(leak);
       } finally {
-        (Result as unknown as { findAll: unknown }).findAll = original;
+        (sequelize as unknown as { query: unknown }).query = original;
       }
       const logged = events().find((e) => e.event === 'server_error');
       expect(logged).toBeDefined();

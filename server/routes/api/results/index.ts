@@ -10,7 +10,7 @@ import { submitResult } from '../../../commands/submit-result';
 import { reviewResult } from '../../../commands/review-result';
 import { findResult, listResults } from '../../../queries/results';
 import { abrasiveNames } from '../../../queries/compare-lookups';
-import { presentPendingRevisions, presentResult, presentResultRevision } from '../../../presenters/result';
+import { presentPendingRevisions, presentResult, presentResultRevision, presentResultSummary } from '../../../presenters/result';
 import { editResult, saveDraft } from '../../../commands/edit-result';
 import { reviewResultRevision } from '../../../commands/review-result-revision';
 import { pendingResultRevisions, resultRevisions } from '../../../queries/result-revisions';
@@ -69,8 +69,7 @@ export function resultsRouter(ctx: AppContext): Router {
   router.get('/results', route({ query: resultListQuerySchema }, async (req, res) => {
     const viewer = actorOf(req);
     const page = await listResults(req.valid.query, viewer);
-    const names = await abrasiveNames();
-    setPageLinks(req, res, page).json({ ...page, items: page.items.map((r) => presentResult(r, viewer, names)) });
+    setPageLinks(req, res, page).json({ ...page, items: page.items.map((r) => presentResultSummary(r, viewer)) });
   }));
 
   router.get('/results/:id', route({ params: idParams }, async (req, res) => {

@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { apiGet } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
-import type { Page, Result } from '@/types/api';
+import type { Page, ResultSummary } from '@/types/api';
 import type { ResultStatus } from '@shared/schemas/result';
 
 /** Filters of GET /api/results; steel, abrasive and method are slugs, author a handle. */
@@ -15,8 +15,8 @@ export interface ResultsQuery {
 }
 
 /** GET /api/results: one page of results, newest first (visitors see published ones only). */
-export function getResults(query: ResultsQuery, signal?: AbortSignal): Promise<Page<Result>> {
-  return apiGet<Page<Result>>('/api/results', { ...query }, signal);
+export function getResults(query: ResultsQuery, signal?: AbortSignal): Promise<Page<ResultSummary>> {
+  return apiGet<Page<ResultSummary>>('/api/results', { ...query }, signal);
 }
 
 /** Query options for a page of results; the previous page stays on screen while the next loads. */

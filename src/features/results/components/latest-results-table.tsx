@@ -2,7 +2,7 @@ import { Link } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
 import { formatDate, formatDegrees, formatGrams, formatMicrometres, formatNumber } from '@/lib/format';
-import type { Result } from '@/types/api';
+import type { ResultSummary } from '@/types/api';
 
 /**
  * The newest results as a plain table, newest first. The home page uses it instead of the
@@ -10,7 +10,7 @@ import type { Result } from '@/types/api';
  * Table out keeps the first page's JavaScript under its 120 kB budget. On a phone the rows
  * stack as short entries instead of scrolling sideways.
  */
-export function LatestResultsTable({ results, label }: { results: Result[]; label: string }) {
+export function LatestResultsTable({ results, label }: { results: ResultSummary[]; label: string }) {
   const num = `${tdClass} whitespace-nowrap text-right tabular-nums`;
   return (
     <>

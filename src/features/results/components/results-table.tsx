@@ -4,13 +4,13 @@ import { createColumnHelper } from '@tanstack/react-table';
 import { paths } from '@/config/paths';
 import { DataTable } from '@/components/ui/table';
 import { formatDate, formatDegrees, formatGrams, formatMicrometres, formatNumber } from '@/lib/format';
-import type { Result } from '@/types/api';
+import type { ResultSummary } from '@/types/api';
 import { StatusBadge } from './status-badge';
 
-const column = createColumnHelper<Result>();
+const column = createColumnHelper<ResultSummary>();
 
 export interface ResultsTableProps {
-  results: Result[];
+  results: ResultSummary[];
   label: string;
   caption?: string;
   /** Adds the state and the reviewer's note (for one's own results). */
