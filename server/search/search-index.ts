@@ -265,7 +265,8 @@ export class SearchIndex {
     const fromPages = pages.map((r): Ranked => ({ shown: this.docs.get(r.id as string)!, score: r.score, terms: r.terms }));
     const overall = [...fromPages.filter((r) => !type || r.shown.type === type).slice(0, limit), ...owned.top].sort((a, b) => b.score - a.score).slice(0, limit);
     // Each type's best few (pages come best first), beside the best overall, each hit once.
-    const keyOf = (r: Ranked) => `${r.shown.type}:${r.shown.id}`;
+    // A page's or a cell's shown document is the index's own object; a result's is made when shown.
+    const keyOf = (r: Ranked): unknown => (r.shown.type === 'result' ? r.shown.id : r.shown);
     const shown = new Set(overall.map(keyOf));
     const perPageType = new Map<SearchDocType, number>();
     const sections = type

@@ -25,11 +25,13 @@ beforeAll(async () => {
 afterAll(() => app?.stop(), 30_000);
 
 const table = () => page.getByRole('region', { name: 'Comparison table' });
+/** The table's cells' rows (a cell's results or a pair open in a row of their own under it). */
+const cellRows = () => table().locator('tbody tr:has([data-row-button="results"])');
 
 /** The table's body rows as text, to compare one view with another. */
 async function rowsText(): Promise<string[]> {
   await table().getByRole('row').nth(1).waitFor();
-  return table().locator('tbody tr').allInnerTexts();
+  return cellRows().allInnerTexts();
 }
 
 describe('the comparison in a browser', () => {
@@ -68,7 +70,7 @@ describe('the comparison in a browser', () => {
     await expect.poll(async () => (await rowsText()).every((t) => /AISI D2|AISI 52100|AISI O1/.test(t))).toBe(true);
     await page.getByText(/hardness filter needs each result/).waitFor();
     // The sorted rows arrive with the refetch after the URL changes: poll rather than read once.
-    const medians = () => table().locator('tbody tr').evaluateAll((rows) => rows.map((r) => Number((r.querySelector('td[data-label="Median g"]') as HTMLElement).innerText.replace(/[^\d.]/g, ''))));
+    const medians = () => cellRows().evaluateAll((rows) => rows.map((r) => Number((r.querySelector('td[data-label="Median g"]') as HTMLElement).innerText.replace(/[^\d.]/g, ''))));
     await expect.poll(async () => {
       const m = await medians();
       return m.length > 1 && m.every((v, i) => i === 0 || v <= m[i - 1]);
@@ -95,7 +97,7 @@ describe('the comparison in a browser', () => {
     await page.waitForURL((u) => !u.searchParams.has('hrcMin'));
     await expect.poll(() => table().getByText('few results').count()).toBeGreaterThan(0);
 
-    const firstRow = table().locator('tbody tr').first();
+    const firstRow = cellRows().first();
     await firstRow.getByRole('button', { name: /^Results of/ }).click();
     await page.waitForURL(/cell=/);
     const cell = page.locator('section[aria-labelledby="cell-results-title"]');
@@ -105,7 +107,7 @@ describe('the comparison in a browser', () => {
     expect(links.some((h) => h.startsWith('/methods/push-cut-test-v2'))).toBe(true);
     expect(links.some((h) => /^\/results\/\d+$/.test(h))).toBe(true);
 
-    const rows = table().locator('tbody tr');
+    const rows = cellRows();
     await rows.nth(0).getByRole('button', { name: /^Pair/ }).click();
     await page.waitForURL(/[?&]a=/);
     await rows.nth(1).getByRole('button', { name: /^Pair/ }).click();
@@ -139,7 +141,7 @@ describe('the comparison in a browser', () => {
   it('5. exports the view as a CSV that papaparse reads, with licence and citation', async () => {
     await page.getByRole('button', { name: 'Table of cells' }).click();
     await rowsText();
-    const shown = await table().locator('tbody tr').count();
+    const shown = await cellRows().count();
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Export CSV' }).click()]);
     const file = await download.path();
     const text = fs.readFileSync(file!, 'utf8');
