@@ -127,7 +127,7 @@ function ProgressionOrderHint({ control, abrasives }: { control: Control<ResultF
     <p className="mt-3 rounded-md border-l-4 border-caution bg-caution-soft px-3 py-2 text-sm" role="status">
       Coarse to fine is the usual order, but here{' '}
       {pairs
-        .map(({ earlier, later }) => `${name(later)} (${formatMicrometres(sizes[later]!)}) is coarser than ${name(earlier)} (${formatMicrometres(sizes[earlier]!)})`)
+        .map(({ earlier, later }) => `${name(later)} (${formatMicrometres(sizes[later]!)}\u00a0µm) is coarser than ${name(earlier)} (${formatMicrometres(sizes[earlier]!)}\u00a0µm)`)
         .join('; ')}
       . Check the order (Earlier / Later), or keep it if you meant it.
     </p>
