@@ -1,4 +1,5 @@
-import type { CompareFilters } from '@/config/paths';
+import { Link } from 'react-router-dom';
+import { paths, type CompareFilters } from '@/config/paths';
 import { Button } from '@/components/ui/button';
 import { ErrorState, Loading } from '@/components/ui/states';
 import { TableFrame, tdClass, thClass } from '@/components/ui/table-frame';
@@ -49,7 +50,14 @@ export function PairedPanel({ filters, a, b, onClear }: { filters: CompareFilter
                 </dd>
               </dl>
               {paired.n === 0 ? (
-                <p role="status">No tester has measured both cells, so no paired difference can be given. The plain difference of the medians is {query.data.unpairedMedianDiffG === null ? 'not available' : `${g(query.data.unpairedMedianDiffG)} (A ${direction(query.data.unpairedMedianDiffG)})`}, but it mixes testers.</p>
+                <>
+                  <p role="status">No tester has measured both cells, so no paired difference can be given. The plain difference of the medians is {query.data.unpairedMedianDiffG === null ? 'not available' : `${g(query.data.unpairedMedianDiffG)} (A ${direction(query.data.unpairedMedianDiffG)})`}, but it mixes testers.</p>
+                  {ra && rb && ra.steel === rb.steel ? (
+                    <p>
+                      <Link to={paths.decide.getHref(ra.steel, { method: query.data.method.slug, a, b })}>The difference between every result of the two, and how sure it is</Link> (not paired by tester), on the choice of an abrasive for {ra.steelName}.
+                    </p>
+                  ) : null}
+                </>
               ) : (
                 <p role="status" className="text-lg">
                   Across <strong>{paired.n}</strong> tester{paired.n === 1 ? '' : 's'} who measured both, A read a median <strong>{g(paired.medianDiffG!)} {direction(paired.medianDiffG!)}</strong> than B
