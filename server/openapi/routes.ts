@@ -66,7 +66,12 @@ import {
   siteSettingsAnswerSchema,
   tokenListSchema,
   wearDriftAnswerSchema,
+  compareCellSchema,
   compareDifferenceSchema,
+  comparePairedSchema,
+  comparePointsSchema,
+  compareTableSchema,
+  searchAnswerSchema,
   duplicatesSchema,
   followSchema,
   notificationSettingsAnswerSchema,
@@ -176,15 +181,15 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'get', path: '/health', summary: 'Whether the server answers, with its search index size and queued writes', tag: 'service', access: 'public', query: emptyQuerySchema, answer: json(healthSchema) },
   { method: 'get', path: '/session', summary: 'Who is signed in, and the CSRF token that writes with the session cookie send', tag: 'service', access: 'public', query: emptyQuerySchema, answer: json(sessionSchema) },
   { method: 'get', path: '/openapi.json', summary: 'This document', tag: 'service', access: 'public', query: emptyQuerySchema, answer: json() },
-  { method: 'get', path: '/search', summary: 'Search pages, results and comparison cells', tag: 'service', access: 'public', query: searchQuerySchema, answer: json(), errors: [429] },
+  { method: 'get', path: '/search', summary: 'Search pages, results and comparison cells', tag: 'service', access: 'public', query: searchQuerySchema, answer: json(searchAnswerSchema), errors: [429] },
 
   // The comparison
-  { method: 'get', path: '/compare', summary: 'One page of the comparison’s cells for one method version, sorted', tag: 'comparison', access: 'public', query: compareQuerySchema, answer: { json: jsonObjectSchema, paged: true } },
+  { method: 'get', path: '/compare', summary: 'One page of the comparison’s cells for one method version, sorted', tag: 'comparison', access: 'public', query: compareQuerySchema, answer: { json: compareTableSchema, paged: true } },
   { method: 'get', path: '/compare/export', summary: 'The whole comparison view as CSV or JSON, with licence and citation', tag: 'comparison', access: 'public', query: compareExportQuerySchema, answer: csv },
-  { method: 'get', path: '/compare/cell', summary: 'One cell’s figures and a page of its results', tag: 'comparison', access: 'public', query: compareCellQuerySchema, answer: { json: jsonObjectSchema, paged: true } },
-  { method: 'get', path: '/compare/paired', summary: 'Tester-paired differences between two cells', tag: 'comparison', access: 'public', query: comparePairedQuerySchema, answer: json() },
+  { method: 'get', path: '/compare/cell', summary: 'One cell’s figures and a page of its results', tag: 'comparison', access: 'public', query: compareCellQuerySchema, answer: { json: compareCellSchema, paged: true } },
+  { method: 'get', path: '/compare/paired', summary: 'Tester-paired differences between two cells', tag: 'comparison', access: 'public', query: comparePairedQuerySchema, answer: json(comparePairedSchema) },
   { method: 'get', path: '/compare/difference', summary: 'Two cells as independent samples: the shift B − A with its 95 % interval, and the within-edge spread', tag: 'comparison', access: 'public', query: comparePairedQuerySchema, answer: json(compareDifferenceSchema) },
-  { method: 'get', path: '/compare/points', summary: 'The comparison’s chart points', tag: 'comparison', access: 'public', query: comparePointsQuerySchema, answer: json() },
+  { method: 'get', path: '/compare/points', summary: 'The comparison’s chart points', tag: 'comparison', access: 'public', query: comparePointsQuerySchema, answer: json(comparePointsSchema) },
 
   // Reference pages
   { method: 'get', path: '/steels', summary: 'Steel pages, filtered', tag: 'reference pages', access: 'public', query: steelListQuerySchema, answer: json(pageListSchema) },

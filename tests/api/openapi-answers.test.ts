@@ -1,5 +1,5 @@
 /**
- * Answers of the tools, price reports and curation routes held to the OpenAPI document with ajv
+ * Answers of the comparison, search, tools, price reports and curation routes held to the OpenAPI document with ajv
  * (a general-purpose JSON Schema 2020-12 validator): successes and refusals (400 naming the field,
  * 401, 403, 404, 409). Their schemas are closed (`additionalProperties: false`), so a field the
  * server sends but the document does not name fails here. Figures sent are invented.
@@ -31,6 +31,61 @@ const documented = (method: string, path: string, res: { status: number; body: u
 const get = (url: string, who?: Session) => (who ? who.agent.get(`/api/v1${url}`) : request(server.url).get(`/api/v1${url}`));
 const send = (who: Session | null, method: 'post' | 'put' | 'patch', url: string, body: object) =>
   who ? who.agent[method](`/api/v1${url}`).set('X-CSRF-Token', who.csrf).send(body) : request(server.url)[method](`/api/v1${url}`).send(body);
+
+describe('the comparison and search hold to the document', () => {
+  const method = 'push-cut-test-v2';
+  type Row = { cell: string; steel: string; n: number; testers: number };
+
+  it('the table (from the cells and from the results), a cell, two cells paired and as independent samples, the chart points; a bad cell or method is a 400 naming it', async () => {
+    const table = await get(`/compare?method=${method}&pageSize=500`).expect(200);
+    expect(table.body.source).toBe('cells');
+    expect(table.body.rows.length).toBeGreaterThan(1);
+    documented('get', '/compare', table);
+    const live = await get(`/compare?method=${method}&hrcMin=58&pageSize=3&page=2`).expect(200);
+    expect([live.body.source, live.body.liveFilters]).toEqual(['results', ['hrcMin']]);
+    documented('get', '/compare', live);
+
+    // The two best-filled cells of one steel: most likely to share testers.
+    const rows = table.body.rows as Row[];
+    const steel = rows.find((r) => rows.filter((o) => o.steel === r.steel).length > 1)!.steel;
+    const [a, b] = rows.filter((r) => r.steel === steel).sort((x, y) => y.testers - x.testers);
+    const cell = await get(`/compare/cell?method=${method}&cell=${encodeURIComponent(a.cell)}`).expect(200);
+    expect([cell.body.cell.cell, cell.body.total]).toEqual([a.cell, a.n]);
+    documented('get', '/compare/cell', cell);
+    const two = `method=${method}&a=${encodeURIComponent(a.cell)}&b=${encodeURIComponent(b.cell)}`;
+    const paired = await get(`/compare/paired?${two}`).expect(200);
+    expect(paired.body.paired.n).toBe(paired.body.paired.pairs.length);
+    documented('get', '/compare/paired', paired);
+    const difference = await get(`/compare/difference?${two}`).expect(200);
+    expect([difference.body.sharpness.nA, difference.body.sharpness.nB]).toEqual([a.n, b.n]);
+    documented('get', '/compare/difference', difference);
+    const points = await get(`/compare/points?method=${method}&limit=50`).expect(200);
+    expect(points.body.points.length).toBeGreaterThan(0);
+    documented('get', '/compare/points', points);
+
+    const badCell = await get(`/compare/cell?method=${method}&cell=${encodeURIComponent(`no-such-steel:cbn:${a.cell.split(':')[2]}`)}`).expect(400);
+    expect(badCell.body.issues[0].path).toBe('cell');
+    documented('get', '/compare/cell', badCell);
+    const badMethod = await get('/compare?method=no-such-method').expect(400);
+    expect(badMethod.body.issues[0].path).toBe('method');
+    documented('get', '/compare', badMethod);
+    documented('get', '/compare/paired', await get(`/compare/paired?method=${method}&a=${encodeURIComponent(a.cell)}`).expect(400));
+  });
+
+  it('search: every kind of hit, one kind only, and an empty query is a 400 naming q', async () => {
+    const all = await get('/search?q=d2').expect(200);
+    expect(new Set(all.body.hits.map((h: { type: string }) => h.type)).size).toBeGreaterThan(1);
+    documented('get', '/search', all);
+    const cells = await get('/search?q=d2&type=cell').expect(200);
+    expect(cells.body.hits.length).toBeGreaterThan(0);
+    expect(cells.body.hits.every((h: { type: string; cell?: object }) => h.type === 'cell' && h.cell)).toBe(true);
+    documented('get', '/search', cells);
+    documented('get', '/search', await get('/search?q=d2&type=result').expect(200));
+    const bad = await get('/search?q=').expect(400);
+    expect(bad.body.issues[0].path).toBe('q');
+    documented('get', '/search', bad);
+  });
+});
 
 describe('the tools’ answers hold to the document', () => {
   it('grit, hardness, both angle tools both ways, wear drift and retention; a bad figure is a 400 naming it', async () => {
