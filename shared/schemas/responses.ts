@@ -370,9 +370,12 @@ export const doneSchema = z.object({ ok: z.literal(true) }).meta({ id: 'Done' })
 const closedAccount = z.object({ handle: z.string(), displayName: z.string(), role: z.enum(ROLES) });
 const handleOnly = z.object({ handle: z.string() });
 
+/** A publisher's badge, from their approved application; null for other roles. */
+const badgeSchema = z.object({ label: z.string(), workshop: z.string().nullable(), link: z.string().nullable() }).nullable();
+
 /** GET /publishers: each publisher with the badge their approved application gives. */
 export const publisherListSchema = z
-  .object({ items: z.array(closedAccount.extend({ badge: z.object({ label: z.string(), workshop: z.string().nullable(), link: z.string().nullable() }).nullable() })) })
+  .object({ items: z.array(closedAccount.extend({ badge: badgeSchema })) })
   .meta({ id: 'PublisherList' });
 
 /** A publisher application as its applicant and the admins see it. */
@@ -483,6 +486,46 @@ export const reviewDeskSchema = z
     ),
   })
   .meta({ id: 'ReviewDesk' });
+
+/** GET /review-desk/results/:id/context: what the desk shows beside one pending result (shared/desk-context.ts computes it). */
+export const deskContextSchema = z
+  .object({
+    resultId: z.number().int().positive(),
+    /** The cell it would join: the approved results of its sharpness method, steel, abrasive material and whole-φ grit band. */
+    cell: z.object({
+      method: z.string().nullable(),
+      steelId: z.number().int().positive(),
+      material: z.string(),
+      materialLabel: z.string(),
+      gritPhi: z.number().int(),
+      /** The cell's median readings: n, median and quartiles, g; null while it is empty. */
+      figures: z.object({ n: z.number().int().positive(), median: z.number(), q1: z.number(), q3: z.number() }).nullable(),
+      position: z.object({ percentileRank: z.number(), band: z.enum(['below-q1', 'q1-median', 'median', 'median-q3', 'above-q3']), words: z.string() }).nullable(),
+      outlier: z.object({ rule: z.string(), source: z.string(), fences: z.tuple([z.number(), z.number()]).nullable(), outside: z.enum(['low', 'high']).nullable(), words: z.string() }),
+    }),
+    sharpnessMedianG: z.number(),
+    readings: z.object({ required: z.number().int().nonnegative(), given: z.number().int().nonnegative(), short: z.number().int().nonnegative(), words: z.string() }),
+    nearDuplicateRule: z.string(),
+    nearDuplicates: z.array(
+      z.object({
+        id: z.number().int().positive(),
+        status: z.enum(RESULT_STATUSES),
+        author: closedAccount.nullable(),
+        sameAuthor: z.boolean(),
+        perSideDeg: z.number(),
+        sharpnessMedianG: z.number(),
+        createdAt: timestamp,
+      }),
+    ),
+    authorRecord: z.object({
+      published: z.number().int().nonnegative(),
+      pending: z.number().int().nonnegative(),
+      returnedNow: z.number().int().nonnegative(),
+      everReturned: z.number().int().nonnegative(),
+      rejected: z.number().int().nonnegative(),
+    }),
+  })
+  .meta({ id: 'DeskContext' });
 
 /** PUT /me/notifications: which e-mails the member now receives. */
 export const notificationSettingsAnswerSchema = everyKey(Object.keys(EMAIL_TOPICS) as EmailTopic[], z.boolean()).meta({ id: 'NotificationSettings' });
@@ -691,3 +734,71 @@ export const searchAnswerSchema = z
     groups: z.partialRecord(z.enum(SEARCH_HIT_TYPES), z.record(z.string(), z.number().int().nonnegative())),
   })
   .meta({ id: 'SearchAnswer' });
+
+// Profiles, the import's report and the refusals that carry more than an error (issue 19).
+
+/** A name with how many published results use it (a member's methods and steels). */
+const countedPage = z.object({ slug: z.string(), name: z.string(), results: z.number().int().positive() });
+
+/** GET /profiles/:handle: a member's public profile (never an e-mail address), with their ten latest published results. */
+export const profileSchema = closedAccount
+  .extend({
+    bio: z.string().nullable(),
+    joinedAt: timestamp,
+    badge: badgeSchema,
+    counts: z.object({ published: z.number().int().nonnegative(), withdrawn: z.number().int().nonnegative(), methods: z.number().int().nonnegative(), steels: z.number().int().nonnegative() }),
+    /** Most used first. */
+    methods: z.array(countedPage),
+    /** Most used first, at most twelve. */
+    steels: z.array(countedPage),
+    recent: z.array(resultSchema),
+  })
+  .meta({ id: 'Profile' });
+
+/** What checking an import file found: rows, rows that passed, each problem by row and column, a normalised preview. */
+const importReportFields = {
+  rows: z.number().int().nonnegative(),
+  valid: z.number().int().nonnegative(),
+  errors: z.array(z.object({ row: z.number().int().nonnegative(), column: z.string(), message: z.string() })),
+  /** Header columns that match nothing and were ignored. */
+  ignoredColumns: z.array(z.string()),
+  preview: z.array(
+    z.object({
+      row: z.number().int().positive(),
+      steel: z.string(),
+      abrasive: z.string(),
+      hrc: z.number(),
+      gritGrade: z.string(),
+      gritUm: z.number(),
+      perSideDeg: z.number(),
+      sharpnessMedianG: z.number(),
+    }),
+  ),
+  /** Whether the rows would be published at once (the site trusts publishers' imports). */
+  publishesAtOnce: z.boolean(),
+};
+
+/** POST /import/results?dryRun=1: the report, nothing stored. */
+export const importReportSchema = z.object(importReportFields).meta({ id: 'ImportReport' });
+
+/** POST /import/results: how many results went in, in which import, and whether they wait for review. */
+export const importedSchema = z
+  .object({ imported: z.number().int().positive(), importId: z.number().int().positive(), status: z.enum(['pending', 'approved']) })
+  .meta({ id: 'Imported' });
+
+/** POST /import/results refused (400): nothing was imported; the dry run's report says why. */
+export const importRefusedSchema = z.object({ error: z.string(), ...importReportFields }).meta({ id: 'ImportRefused' });
+
+/**
+ * A page edit refused because the page changed meanwhile (409 on a save; on approving a proposal
+ * whose fields someone else changed too): the current revision, the fields both changed, and a
+ * suggested merge (fields and body) to review and save.
+ */
+export const pageConflictSchema = z
+  .object({
+    error: z.string(),
+    current: pageRevisionSchema,
+    conflicts: z.array(z.string()),
+    merged: z.object({ fields: z.record(z.string(), z.unknown()), body: richTextSchema }),
+  })
+  .meta({ id: 'PageConflict' });
