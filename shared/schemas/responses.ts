@@ -778,16 +778,28 @@ const importReportFields = {
   publishesAtOnce: z.boolean(),
 };
 
+/** An invented report of a two-row file, one row refused. */
+const importReportExample = {
+  rows: 2,
+  valid: 1,
+  errors: [{ row: 3, column: 'readings_g', message: 'not a number: "x"' }],
+  ignoredColumns: ['colour'],
+  preview: [{ row: 2, steel: 'aisi-d2', abrasive: 'cbn-electroplated-wheel-250-b126', hrc: 61, gritGrade: 'B126', gritUm: 126, perSideDeg: 15, sharpnessMedianG: 176 }],
+  publishesAtOnce: false,
+};
+
 /** POST /import/results?dryRun=1: the report, nothing stored. */
-export const importReportSchema = z.object(importReportFields).meta({ id: 'ImportReport' });
+export const importReportSchema = z.object(importReportFields).meta({ id: 'ImportReport', examples: [importReportExample] });
 
 /** POST /import/results: how many results went in, in which import, and whether they wait for review. */
 export const importedSchema = z
   .object({ imported: z.number().int().positive(), importId: z.number().int().positive(), status: z.enum(['pending', 'approved']) })
-  .meta({ id: 'Imported' });
+  .meta({ id: 'Imported', examples: [{ imported: 120, importId: 7, status: 'pending' }] });
 
 /** POST /import/results refused (400): nothing was imported; the dry run's report says why. */
-export const importRefusedSchema = z.object({ error: z.string(), ...importReportFields }).meta({ id: 'ImportRefused' });
+export const importRefusedSchema = z
+  .object({ error: z.string(), ...importReportFields })
+  .meta({ id: 'ImportRefused', examples: [{ error: 'Nothing was imported: 1 problem in the file.', ...importReportExample }] });
 
 /**
  * A page edit refused because the page changed meanwhile (409 on a save; on approving a proposal
