@@ -88,14 +88,20 @@ function responsesOf(route: RouteDoc, components: Record<string, JsonSchema>): R
         : {}),
       content: { 'application/json': { schema: toSchema(answer.json, 'output', components) } },
     };
-    if (answer.also) out[String(answer.also)] = { description: 'Accepted: proposed for review, not applied yet', content: { 'application/json': { schema: toSchema(answer.json, 'output', components) } } };
+    if (answer.also === 202) out['202'] = { description: 'Accepted: proposed for review, not applied yet', content: { 'application/json': { schema: toSchema(answer.json, 'output', components) } } };
+    else if (answer.also) out[String(answer.also.status)] = { description: answer.also.description, content: { 'application/json': { schema: toSchema(answer.also.json, 'output', components) } } };
   }
-  const errors = new Set<number>([400, ...(route.errors ?? [])]);
+  const errors = new Set<number>([400, ...(route.errors ?? []), ...Object.keys(route.refusals ?? {}).map(Number)]);
   if (route.access !== 'public') errors.add(401);
   if (route.access !== 'public' && route.access !== 'signed-in') errors.add(403);
   if (route.method !== 'get' && route.access !== 'public') errors.add(403);
   if (route.params) errors.add(404);
-  for (const status of [...errors].sort()) out[String(status)] = { $ref: `#/components/responses/Error${status}` };
+  for (const status of [...errors].sort()) {
+    const refusal = route.refusals?.[status as 400 | 409];
+    out[String(status)] = refusal
+      ? { description: ERROR_TEXT[status], content: { 'application/json': { schema: { anyOf: [toSchema(errorSchema, 'output', components), toSchema(refusal, 'output', components)] } } } }
+      : { $ref: `#/components/responses/Error${status}` };
+  }
   return out;
 }
 

@@ -66,7 +66,18 @@ import {
   siteSettingsAnswerSchema,
   tokenListSchema,
   wearDriftAnswerSchema,
+  compareCellSchema,
   compareDifferenceSchema,
+  comparePairedSchema,
+  comparePointsSchema,
+  compareTableSchema,
+  deskContextSchema,
+  importedSchema,
+  importRefusedSchema,
+  importReportSchema,
+  pageConflictSchema,
+  profileSchema,
+  searchAnswerSchema,
   duplicatesSchema,
   followSchema,
   notificationSettingsAnswerSchema,
@@ -115,7 +126,13 @@ export type Access = 'public' | 'signed-in' | 'publisher' | 'moderator' | 'admin
 
 /** What a route answers on success. */
 export type Answer =
-  | { json: z.ZodType; status?: 200 | 201 | 202; paged?: true; /** A second success status with the same body (202: proposed for review, not applied). */ also?: 202 }
+  | {
+      json: z.ZodType;
+      status?: 200 | 201 | 202;
+      paged?: true;
+      /** A second success status: 202 with the same body (proposed for review, not applied), or another status with its own body. */
+      also?: 202 | { status: 200; json: z.ZodType; description: string };
+    }
   | { file: 'text/csv' | 'image/jpeg' | 'application/json'; status?: 200 }
   | { empty: 204 };
 
@@ -137,6 +154,8 @@ export interface RouteDoc {
   answer: Answer;
   /** Refusals beyond those its access, params and inputs imply (409 conflict, 413 too large…). */
   errors?: number[];
+  /** Refusals whose body carries more than the error (a 409's current revision…): the document accepts either. */
+  refusals?: Partial<Record<400 | 409, z.ZodType>>;
   description?: string;
 }
 
@@ -161,6 +180,7 @@ const pageRoutes: RouteDoc[] = PAGE_TYPES.flatMap((type): RouteDoc[] => {
       body: pageEditSchemas[type],
       answer: { json: pageSaveSchema, also: 202 },
       errors: [409],
+      refusals: { 409: pageConflictSchema },
     },
     { method: 'get', path: `/${section}/:slug/revisions`, summary: `The history of a ${type} page: its revisions, numbered 1, 2, 3… on the page`, tag, access: 'public', params: slugParams, answer: json(pageHistorySchema) },
     { method: 'get', path: `/${section}/:slug/revisions/:id`, summary: `One revision of a ${type} page, by its id (its answer gives its number on the page)`, tag, access: 'public', params: revisionParams, answer: json(pageRevisionSchema) },
@@ -176,22 +196,22 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'get', path: '/health', summary: 'Whether the server answers, with its search index size and queued writes', tag: 'service', access: 'public', query: emptyQuerySchema, answer: json(healthSchema) },
   { method: 'get', path: '/session', summary: 'Who is signed in, and the CSRF token that writes with the session cookie send', tag: 'service', access: 'public', query: emptyQuerySchema, answer: json(sessionSchema) },
   { method: 'get', path: '/openapi.json', summary: 'This document', tag: 'service', access: 'public', query: emptyQuerySchema, answer: json() },
-  { method: 'get', path: '/search', summary: 'Search pages, results and comparison cells', tag: 'service', access: 'public', query: searchQuerySchema, answer: json(), errors: [429] },
+  { method: 'get', path: '/search', summary: 'Search pages, results and comparison cells', tag: 'service', access: 'public', query: searchQuerySchema, answer: json(searchAnswerSchema), errors: [429] },
 
   // The comparison
-  { method: 'get', path: '/compare', summary: 'One page of the comparison’s cells for one method version, sorted', tag: 'comparison', access: 'public', query: compareQuerySchema, answer: { json: jsonObjectSchema, paged: true } },
+  { method: 'get', path: '/compare', summary: 'One page of the comparison’s cells for one method version, sorted', tag: 'comparison', access: 'public', query: compareQuerySchema, answer: { json: compareTableSchema, paged: true } },
   { method: 'get', path: '/compare/export', summary: 'The whole comparison view as CSV or JSON, with licence and citation', tag: 'comparison', access: 'public', query: compareExportQuerySchema, answer: csv },
-  { method: 'get', path: '/compare/cell', summary: 'One cell’s figures and a page of its results', tag: 'comparison', access: 'public', query: compareCellQuerySchema, answer: { json: jsonObjectSchema, paged: true } },
-  { method: 'get', path: '/compare/paired', summary: 'Tester-paired differences between two cells', tag: 'comparison', access: 'public', query: comparePairedQuerySchema, answer: json() },
+  { method: 'get', path: '/compare/cell', summary: 'One cell’s figures and a page of its results', tag: 'comparison', access: 'public', query: compareCellQuerySchema, answer: { json: compareCellSchema, paged: true } },
+  { method: 'get', path: '/compare/paired', summary: 'Tester-paired differences between two cells', tag: 'comparison', access: 'public', query: comparePairedQuerySchema, answer: json(comparePairedSchema) },
   { method: 'get', path: '/compare/difference', summary: 'Two cells as independent samples: the shift B − A with its 95 % interval, and the within-edge spread', tag: 'comparison', access: 'public', query: comparePairedQuerySchema, answer: json(compareDifferenceSchema) },
-  { method: 'get', path: '/compare/points', summary: 'The comparison’s chart points', tag: 'comparison', access: 'public', query: comparePointsQuerySchema, answer: json() },
+  { method: 'get', path: '/compare/points', summary: 'The comparison’s chart points', tag: 'comparison', access: 'public', query: comparePointsQuerySchema, answer: json(comparePointsSchema) },
 
   // Reference pages
   { method: 'get', path: '/steels', summary: 'Steel pages, filtered', tag: 'reference pages', access: 'public', query: steelListQuerySchema, answer: json(pageListSchema) },
   { method: 'get', path: '/abrasives', summary: 'Abrasive pages, filtered', tag: 'reference pages', access: 'public', query: abrasiveListQuerySchema, answer: json(pageListSchema) },
   { method: 'get', path: '/methods', summary: 'Test method pages', tag: 'reference pages', access: 'public', query: emptyQuerySchema, answer: json(pageListSchema) },
   ...pageRoutes,
-  { method: 'post', path: '/page-revisions/:id/review', summary: 'Accept or decline a proposed page revision', tag: 'reference pages', access: 'moderator', params: idParams, body: pageReviewSchema, answer: json(pageReviewOutcomeSchema), errors: [409] },
+  { method: 'post', path: '/page-revisions/:id/review', summary: 'Accept or decline a proposed page revision', tag: 'reference pages', access: 'moderator', params: idParams, body: pageReviewSchema, answer: json(pageReviewOutcomeSchema), errors: [409], refusals: { 409: pageConflictSchema } },
   { method: 'get', path: '/page-revisions/:id', summary: 'One page revision by id', tag: 'reference pages', access: 'public', params: idParams, answer: json(pageRevisionSchema) },
 
   // Results
@@ -233,7 +253,7 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'post', path: '/results/:id/review', summary: 'Approve, return or reject a pending result', tag: 'results', access: 'moderator', params: idParams, body: reviewInputSchema, answer: json(resultSchema), errors: [409] },
   { method: 'post', path: '/results/:id/retract', summary: 'Retract one of your results', tag: 'results', access: 'signed-in', params: idParams, body: retractInputSchema, answer: json(resultSchema), errors: [409] },
   { method: 'get', path: '/review-desk', summary: 'The moderators’ queue: pending results, proposed revisions, open flags, imports', tag: 'results', access: 'moderator', query: reviewDeskQuerySchema, answer: json(reviewDeskSchema) },
-  { method: 'get', path: '/review-desk/results/:id/context', summary: 'A pending result’s context on the desk: its cell, the outlier hint, readings, near-duplicates, the author’s record', tag: 'results', access: 'moderator', params: idParams, query: emptyQuerySchema, answer: json(), errors: [409] },
+  { method: 'get', path: '/review-desk/results/:id/context', summary: 'A pending result’s context on the desk: its cell, the outlier hint, readings, near-duplicates, the author’s record', tag: 'results', access: 'moderator', params: idParams, query: emptyQuerySchema, answer: json(deskContextSchema), errors: [409] },
   { method: 'post', path: '/review-desk/bulk-approve', summary: 'Approve several pending results at once', tag: 'results', access: 'moderator', body: bulkApproveSchema, answer: json(bulkApprovalSchema) },
   {
     method: 'post',
@@ -259,8 +279,9 @@ export const apiRoutes: RouteDoc[] = [
     access: 'publisher',
     query: importQuerySchema,
     upload: { field: 'file' },
-    answer: created(),
+    answer: { ...created(importedSchema), also: { status: 200, json: importReportSchema, description: 'The dry run’s report: nothing stored' } },
     errors: [413, 415],
+    refusals: { 400: importRefusedSchema },
   },
 
   // Tools
@@ -294,7 +315,7 @@ export const apiRoutes: RouteDoc[] = [
   { method: 'delete', path: '/me/follows/:pageType/:slug', summary: 'Stop following a page', tag: 'members', access: 'signed-in', params: followParams, answer: noContent },
   { method: 'post', path: '/me/duplicate-check', summary: 'Your results that a new one would repeat', tag: 'members', access: 'signed-in', body: resultInputSchema, example: resultInputExample, answer: json(duplicatesSchema) },
   { method: 'post', path: '/me/unsubscribe', summary: 'Unsubscribe from one kind of e-mail by the signed link it carried', tag: 'members', access: 'public', body: unsubscribeSchema, answer: json(unsubscribedSchema) },
-  { method: 'get', path: '/profiles/:handle', summary: 'A member’s public profile', tag: 'members', access: 'public', params: handleParams, answer: json() },
+  { method: 'get', path: '/profiles/:handle', summary: 'A member’s public profile', tag: 'members', access: 'public', params: handleParams, answer: json(profileSchema) },
   { method: 'get', path: '/profiles/:handle/results.csv', summary: 'A member’s published results as CSV', tag: 'members', access: 'public', params: handleParams, answer: csv },
   { method: 'get', path: '/tokens', summary: 'Your API tokens', tag: 'members', access: 'publisher', query: emptyQuerySchema, answer: json(tokenListSchema) },
   {

@@ -7,6 +7,7 @@ import { presentAccount } from './user';
 import { presentDeskRevision } from './pages';
 import { NEAR_DUPLICATE_RULE, type CellPosition, type DeskCell, type OutlierHint, type readingsCheck } from '@shared/desk-context';
 import { ABRASIVE_MATERIALS } from '@shared/vocabulary';
+import type { deskContextSchema, Presented } from '@shared/schemas/responses';
 
 /** The desk's result items: the presented result, marked as a result, with the import it came in. */
 export function presentDeskResults({ results, importOf }: { results: Result[]; importOf: Map<number, number> }, viewer: Actor, names: AbrasiveNames) {
@@ -38,7 +39,7 @@ export interface DeskContextRead {
 }
 
 /** A pending result's context on the desk (figures in g; the rules' words beside them). */
-export function presentDeskContext(ctx: DeskContextRead) {
+export function presentDeskContext(ctx: DeskContextRead): Presented<typeof deskContextSchema> {
   const { result, cell, readings, nearDuplicates, authorRecord } = ctx;
   return {
     resultId: result.id,

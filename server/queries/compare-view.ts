@@ -28,7 +28,7 @@ export interface ResolvedView {
   steelIds: Set<number> | null;
   materials: Set<string> | null;
   /** Filters that need the results table, by name. */
-  liveKeys: string[];
+  liveKeys: (typeof LIVE_FILTER_KEYS)[number][];
 }
 
 /** Finds the method (the one with the most published results when none is named) and the steel ids. */

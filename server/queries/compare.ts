@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import type { CompareFilters, CompareQuery } from '@shared/schemas/compare';
 import { sortRows, type CompareRow } from '@shared/compare-view';
 import { SHRINKAGE_PSEUDO_RESULTS } from '@shared/compare-shrinkage';
+import type { compareTableSchema, Presented } from '@shared/schemas/responses';
 import { comparisonCsv, comparisonJson, type ExportContext } from '@shared/compare-export';
 import { filtersInWords, filtersQueryString, resolveView, viewRows, type ResolvedView } from './compare-view';
 
@@ -39,7 +40,7 @@ export interface CompareBody {
  * a page or an account changes: server/middleware/answer-cache.ts).
  */
 export async function compareBody(query: CompareQuery): Promise<CompareBody> {
-  const answer = await compare(query);
+  const answer = (await compare(query)) satisfies Presented<typeof compareTableSchema>;
   const body = JSON.stringify(answer);
   return { body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"`, page: { page: answer.page, pageSize: answer.pageSize, total: answer.total } };
 }

@@ -11,6 +11,7 @@ import { RESULT_REVISION_STATUSES, RESULT_STATUSES, resultInputSchema } from './
 import { APPLICATION_STATUSES, EMAIL_TOPICS, FLAG_REASONS, FLAG_STATUSES, FLAG_SUBJECTS, FOLLOWABLE_PAGES, siteSettingsSchema, type EmailTopic, type FlagReason } from './publishing';
 import { GRIT_STANDARDS } from '../grit';
 import { HARDNESS_SCALES } from '../hardness';
+import { LIVE_FILTER_KEYS } from './compare';
 
 /** Every refusal: a message, and for a 400 the fields at fault (`path` dotted, e.g. "hardness.value"). */
 export const errorSchema = z
@@ -273,29 +274,6 @@ export const workshopSchema = z
   })
   .meta({ id: 'Workshop' });
 
-/** A shift B − A between two samples (Hodges–Lehmann, exact Mann–Whitney 95 % interval where one exists). */
-const shiftSchema = z.looseObject({
-  nA: z.number().int().nonnegative(),
-  nB: z.number().int().nonnegative(),
-  estimate: z.number(),
-  interval: z.looseObject({ lo: z.number(), hi: z.number(), coverage: z.number() }).nullable(),
-  unit: z.enum(['g', 'cuts']),
-  words: z.string(),
-});
-
-/** GET /compare/difference: two cells as independent samples. */
-export const compareDifferenceSchema = z
-  .looseObject({
-    method: z.looseObject({ slug: z.string(), name: z.string(), version: z.number().int() }),
-    a: z.looseObject({}).nullable(),
-    b: z.looseObject({}).nullable(),
-    sharpness: shiftSchema.nullable(),
-    retention: shiftSchema.nullable(),
-    withinEdge: z.object({ medianSdG: z.number().nullable(), edges: z.number().int().nonnegative(), readingsPerEdge: z.number().nullable() }),
-    words: z.array(z.string()),
-  })
-  .meta({ id: 'CompareDifference' });
-
 /** What adding a record answers: its id. */
 export const createdIdSchema = z.object({ id: z.number().int().positive() }).meta({ id: 'CreatedId' });
 
@@ -392,9 +370,12 @@ export const doneSchema = z.object({ ok: z.literal(true) }).meta({ id: 'Done' })
 const closedAccount = z.object({ handle: z.string(), displayName: z.string(), role: z.enum(ROLES) });
 const handleOnly = z.object({ handle: z.string() });
 
+/** A publisher's badge, from their approved application; null for other roles. */
+const badgeSchema = z.object({ label: z.string(), workshop: z.string().nullable(), link: z.string().nullable() }).nullable();
+
 /** GET /publishers: each publisher with the badge their approved application gives. */
 export const publisherListSchema = z
-  .object({ items: z.array(closedAccount.extend({ badge: z.object({ label: z.string(), workshop: z.string().nullable(), link: z.string().nullable() }).nullable() })) })
+  .object({ items: z.array(closedAccount.extend({ badge: badgeSchema })) })
   .meta({ id: 'PublisherList' });
 
 /** A publisher application as its applicant and the admins see it. */
@@ -506,6 +487,46 @@ export const reviewDeskSchema = z
   })
   .meta({ id: 'ReviewDesk' });
 
+/** GET /review-desk/results/:id/context: what the desk shows beside one pending result (shared/desk-context.ts computes it). */
+export const deskContextSchema = z
+  .object({
+    resultId: z.number().int().positive(),
+    /** The cell it would join: the approved results of its sharpness method, steel, abrasive material and whole-φ grit band. */
+    cell: z.object({
+      method: z.string().nullable(),
+      steelId: z.number().int().positive(),
+      material: z.string(),
+      materialLabel: z.string(),
+      gritPhi: z.number().int(),
+      /** The cell's median readings: n, median and quartiles, g; null while it is empty. */
+      figures: z.object({ n: z.number().int().positive(), median: z.number(), q1: z.number(), q3: z.number() }).nullable(),
+      position: z.object({ percentileRank: z.number(), band: z.enum(['below-q1', 'q1-median', 'median', 'median-q3', 'above-q3']), words: z.string() }).nullable(),
+      outlier: z.object({ rule: z.string(), source: z.string(), fences: z.tuple([z.number(), z.number()]).nullable(), outside: z.enum(['low', 'high']).nullable(), words: z.string() }),
+    }),
+    sharpnessMedianG: z.number(),
+    readings: z.object({ required: z.number().int().nonnegative(), given: z.number().int().nonnegative(), short: z.number().int().nonnegative(), words: z.string() }),
+    nearDuplicateRule: z.string(),
+    nearDuplicates: z.array(
+      z.object({
+        id: z.number().int().positive(),
+        status: z.enum(RESULT_STATUSES),
+        author: closedAccount.nullable(),
+        sameAuthor: z.boolean(),
+        perSideDeg: z.number(),
+        sharpnessMedianG: z.number(),
+        createdAt: timestamp,
+      }),
+    ),
+    authorRecord: z.object({
+      published: z.number().int().nonnegative(),
+      pending: z.number().int().nonnegative(),
+      returnedNow: z.number().int().nonnegative(),
+      everReturned: z.number().int().nonnegative(),
+      rejected: z.number().int().nonnegative(),
+    }),
+  })
+  .meta({ id: 'DeskContext' });
+
 /** PUT /me/notifications: which e-mails the member now receives. */
 export const notificationSettingsAnswerSchema = everyKey(Object.keys(EMAIL_TOPICS) as EmailTopic[], z.boolean()).meta({ id: 'NotificationSettings' });
 
@@ -537,3 +558,259 @@ export const photoSchema = z
 
 /** GET /results/:id/photos: the photos, how many a result may carry, and whether the viewer may add one. */
 export const photoListSchema = z.object({ items: z.array(photoSchema), max: z.number().int().positive(), canAdd: z.boolean() }).meta({ id: 'PhotoList' });
+
+// The comparison and search (issue 19): what publishers script most.
+
+/** Which method version a comparison answer is about. */
+const comparedMethod = z.object({ slug: z.string(), name: z.string(), version: z.number().int().positive() });
+/** A pair of figures, smallest first. */
+const range = z.tuple([z.number(), z.number()]);
+
+/** One comparison cell (method × steel × abrasive material × grit band) as the API gives it (server/queries/compare-view.ts presentCell). */
+export const compareRowSchema = z
+  .object({
+    /** steel:material:φ, for the cell, paired and difference queries. */
+    cell: z.string(),
+    method: z.string(),
+    methodName: z.string(),
+    methodVersion: z.number().int().positive(),
+    steel: z.string(),
+    steelName: z.string(),
+    steelCategory: z.string(),
+    material: z.string(),
+    materialLabel: z.string(),
+    band: z.object({ phi: z.number(), step: z.union([z.literal(1), z.literal(0.5)]), loUm: z.number(), hiUm: z.number(), words: z.string() }),
+    gritBand: z.object({ loUm: z.number(), hiUm: z.number() }),
+    n: z.number().int().positive(),
+    testers: z.number().int().positive(),
+    fewResults: z.boolean(),
+    singleTester: z.boolean(),
+    /** Median readings of the cell's results, grams-force. */
+    sharpnessG: z.object({ median: z.number(), q1: z.number(), q3: z.number(), mean: z.number(), sd: z.number().nullable(), ci95: range.nullable() }),
+    /** The median pulled toward the method's overall median, for the "ranked" order. */
+    rankedMedianG: z.number(),
+    retentionCuts: z.object({ median: z.number(), n: z.number().int().positive() }).nullable(),
+    hrcRange: range,
+    angleRange: range,
+    gritUmRange: range,
+  })
+  .meta({ id: 'CompareCellRow' });
+
+/** GET /compare: one page of the view's cells with the totals of the whole view. */
+export const compareTableSchema = z
+  .object({
+    method: comparedMethod.extend({ replaces: z.string().nullable(), replacedBy: z.string().nullable() }),
+    step: z.union([z.literal(1), z.literal(0.5)]),
+    /** `cells` from the precomputed cells; `results` when a filter needs each result. */
+    source: z.enum(['cells', 'results']),
+    liveFilters: z.array(z.enum(LIVE_FILTER_KEYS)),
+    sort: z.string().nullable(),
+    total: z.number().int().nonnegative(),
+    totalResults: z.number().int().nonnegative(),
+    methodResults: z.number().int().nonnegative(),
+    shrinkage: z.object({ pseudoResults: z.number(), overallMedianG: z.number().nullable() }),
+    page: z.number().int().positive(),
+    pageSize: z.number().int().positive(),
+    rows: z.array(compareRowSchema),
+  })
+  .meta({ id: 'CompareTable' });
+
+/** GET /compare/cell: one cell's figures (null when the filters leave it empty) and a page of its results, newest first. */
+export const compareCellSchema = z
+  .object({
+    method: comparedMethod,
+    cell: compareRowSchema.nullable(),
+    items: z.array(resultSchema),
+    page: z.number().int().positive(),
+    pageSize: z.number().int().positive(),
+    total: z.number().int().nonnegative(),
+  })
+  .meta({ id: 'CompareCell' });
+
+/** An interval between two order statistics, with its exact coverage and the 1-based ranks used. */
+const orderInterval = z.object({ lo: z.number(), hi: z.number(), coverage: z.number(), ranks: z.tuple([z.number().int(), z.number().int()]) });
+
+/** GET /compare/paired: per tester in both cells, their median in A minus their median in B; the median difference with its sign-test interval. */
+export const comparePairedSchema = z
+  .object({
+    method: comparedMethod,
+    a: compareRowSchema.nullable(),
+    b: compareRowSchema.nullable(),
+    /** The two cells' medians' difference A − B, g, ignoring who measured what. */
+    unpairedMedianDiffG: z.number().nullable(),
+    paired: z.object({
+      pairs: z.array(z.object({ tester: z.string(), nA: z.number().int().positive(), nB: z.number().int().positive(), medianAG: z.number(), medianBG: z.number(), diffG: z.number() })),
+      n: z.number().int().nonnegative(),
+      medianDiffG: z.number().nullable(),
+      ci95: orderInterval.nullable(),
+      widest: orderInterval.nullable(),
+      signs: z.object({ aLower: z.number().int().nonnegative(), bLower: z.number().int().nonnegative(), ties: z.number().int().nonnegative() }),
+      unpairedTesters: z.object({ a: z.number().int().nonnegative(), b: z.number().int().nonnegative() }),
+    }),
+  })
+  .meta({ id: 'ComparePaired' });
+
+/** A shift B − A between two samples (Hodges–Lehmann, exact Mann–Whitney 95 % interval where one exists). */
+const shiftSchema = z.object({
+  nA: z.number().int().nonnegative(),
+  nB: z.number().int().nonnegative(),
+  estimate: z.number(),
+  interval: orderInterval.nullable(),
+  widestCoverage: z.number(),
+  distribution: z.enum(['exact', 'normal']),
+  unit: z.enum(['g', 'cuts']),
+  words: z.string(),
+});
+
+/** GET /compare/difference: two cells as independent samples. */
+export const compareDifferenceSchema = z
+  .object({
+    method: comparedMethod,
+    a: compareRowSchema.nullable(),
+    b: compareRowSchema.nullable(),
+    sharpness: shiftSchema.nullable(),
+    retention: shiftSchema.nullable(),
+    withinEdge: z.object({ medianSdG: z.number().nullable(), edges: z.number().int().nonnegative(), readingsPerEdge: z.number().nullable() }),
+    words: z.array(z.string()),
+  })
+  .meta({ id: 'CompareDifference' });
+
+/** GET /compare/points: one chart point per result (an evenly spaced sample beyond `limit`), with the names of the steels and abrasives they name. */
+export const comparePointsSchema = z
+  .object({
+    method: comparedMethod,
+    total: z.number().int().nonnegative(),
+    /** 1 when every result is a point; k when every k-th is. */
+    sampledEvery: z.number().int().positive(),
+    points: z.array(
+      z.object({
+        id: z.number().int().positive(),
+        steel: z.string(),
+        abrasive: z.string(),
+        material: z.string(),
+        gritUm: z.number(),
+        medianG: z.number(),
+        hrc: z.number(),
+        perSideDeg: z.number(),
+        retentionCuts: z.number().nullable(),
+        author: z.string().nullable(),
+      }),
+    ),
+    steels: z.record(z.string(), z.string()),
+    abrasives: z.record(z.string(), z.object({ name: z.string(), material: z.string(), bond: z.string() })),
+  })
+  .meta({ id: 'ComparePoints' });
+
+/** What search finds: reference pages, results and comparison cells. */
+export const SEARCH_HIT_TYPES = ['steel', 'abrasive', 'method', 'result', 'cell'] as const;
+/** Where the matched words are: [start, end) character offsets, in order. */
+const spans = z.array(z.tuple([z.number().int().nonnegative(), z.number().int().nonnegative()]));
+
+/** GET /search: hits best first (the best overall, then each kind's best few), and how many of each kind matched before the type filter. */
+export const searchAnswerSchema = z
+  .object({
+    hits: z.array(
+      z.object({
+        type: z.enum(SEARCH_HIT_TYPES),
+        /** A result's or a cell's id. */
+        id: z.number().int().optional(),
+        /** A reference page's slug. */
+        slug: z.string().optional(),
+        title: z.string(),
+        snippet: z.string(),
+        highlights: spans,
+        titleHighlights: spans,
+        /** The sub-facet: a steel's category, an abrasive's material. */
+        group: z.string().optional(),
+        score: z.number(),
+        /** A comparison cell's place and figures (grams-force). */
+        cell: z
+          .object({ method: z.string(), ref: z.string(), n: z.number().int().positive(), testers: z.number().int().positive(), medianG: z.number(), q1G: z.number(), q3G: z.number() })
+          .optional(),
+      }),
+    ),
+    facets: everyKey(SEARCH_HIT_TYPES, z.number().int().nonnegative()),
+    /** Per kind, matches per sub-facet. */
+    groups: z.partialRecord(z.enum(SEARCH_HIT_TYPES), z.record(z.string(), z.number().int().nonnegative())),
+  })
+  .meta({ id: 'SearchAnswer' });
+
+// Profiles, the import's report and the refusals that carry more than an error (issue 19).
+
+/** A name with how many published results use it (a member's methods and steels). */
+const countedPage = z.object({ slug: z.string(), name: z.string(), results: z.number().int().positive() });
+
+/** GET /profiles/:handle: a member's public profile (never an e-mail address), with their ten latest published results. */
+export const profileSchema = closedAccount
+  .extend({
+    bio: z.string().nullable(),
+    joinedAt: timestamp,
+    badge: badgeSchema,
+    counts: z.object({ published: z.number().int().nonnegative(), withdrawn: z.number().int().nonnegative(), methods: z.number().int().nonnegative(), steels: z.number().int().nonnegative() }),
+    /** Most used first. */
+    methods: z.array(countedPage),
+    /** Most used first, at most twelve. */
+    steels: z.array(countedPage),
+    recent: z.array(resultSchema),
+  })
+  .meta({ id: 'Profile' });
+
+/** What checking an import file found: rows, rows that passed, each problem by row and column, a normalised preview. */
+const importReportFields = {
+  rows: z.number().int().nonnegative(),
+  valid: z.number().int().nonnegative(),
+  errors: z.array(z.object({ row: z.number().int().nonnegative(), column: z.string(), message: z.string() })),
+  /** Header columns that match nothing and were ignored. */
+  ignoredColumns: z.array(z.string()),
+  preview: z.array(
+    z.object({
+      row: z.number().int().positive(),
+      steel: z.string(),
+      abrasive: z.string(),
+      hrc: z.number(),
+      gritGrade: z.string(),
+      gritUm: z.number(),
+      perSideDeg: z.number(),
+      sharpnessMedianG: z.number(),
+    }),
+  ),
+  /** Whether the rows would be published at once (the site trusts publishers' imports). */
+  publishesAtOnce: z.boolean(),
+};
+
+/** An invented report of a two-row file, one row refused. */
+const importReportExample = {
+  rows: 2,
+  valid: 1,
+  errors: [{ row: 3, column: 'readings_g', message: 'not a number: "x"' }],
+  ignoredColumns: ['colour'],
+  preview: [{ row: 2, steel: 'aisi-d2', abrasive: 'cbn-electroplated-wheel-250-b126', hrc: 61, gritGrade: 'B126', gritUm: 126, perSideDeg: 15, sharpnessMedianG: 176 }],
+  publishesAtOnce: false,
+};
+
+/** POST /import/results?dryRun=1: the report, nothing stored. */
+export const importReportSchema = z.object(importReportFields).meta({ id: 'ImportReport', examples: [importReportExample] });
+
+/** POST /import/results: how many results went in, in which import, and whether they wait for review. */
+export const importedSchema = z
+  .object({ imported: z.number().int().positive(), importId: z.number().int().positive(), status: z.enum(['pending', 'approved']) })
+  .meta({ id: 'Imported', examples: [{ imported: 120, importId: 7, status: 'pending' }] });
+
+/** POST /import/results refused (400): nothing was imported; the dry run's report says why. */
+export const importRefusedSchema = z
+  .object({ error: z.string(), ...importReportFields })
+  .meta({ id: 'ImportRefused', examples: [{ error: 'Nothing was imported: 1 problem in the file.', ...importReportExample }] });
+
+/**
+ * A page edit refused because the page changed meanwhile (409 on a save; on approving a proposal
+ * whose fields someone else changed too): the current revision, the fields both changed, and a
+ * suggested merge (fields and body) to review and save.
+ */
+export const pageConflictSchema = z
+  .object({
+    error: z.string(),
+    current: pageRevisionSchema,
+    conflicts: z.array(z.string()),
+    merged: z.object({ fields: z.record(z.string(), z.unknown()), body: richTextSchema }),
+  })
+  .meta({ id: 'PageConflict' });

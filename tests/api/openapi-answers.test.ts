@@ -1,7 +1,7 @@
 /**
- * Answers of the tools, price reports and curation routes held to the OpenAPI document with ajv
+ * Answers of the comparison, search, tools, price reports and curation routes held to the OpenAPI document with ajv
  * (a general-purpose JSON Schema 2020-12 validator): successes and refusals (400 naming the field,
- * 401, 403, 404, 409). Their schemas are closed (`additionalProperties: false`), so a field the
+ * 401, 403, 404, 409, with the refusals that carry more than an error). Their schemas are closed (`additionalProperties: false`), so a field the
  * server sends but the document does not name fails here. Figures sent are invented.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -10,6 +10,8 @@ import sharp from 'sharp';
 import type { OpenApiDocument } from '../../server/openapi/document';
 import { documentChecks } from '../setup/openapi-validate';
 import { demoHandle, signIn, startTestServer } from '../setup/test-server';
+import { IMPORT_COLUMNS } from '../../shared/csv';
+import { toCsv } from '../../shared/csv-writer';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let checks: ReturnType<typeof documentChecks>;
@@ -31,6 +33,61 @@ const documented = (method: string, path: string, res: { status: number; body: u
 const get = (url: string, who?: Session) => (who ? who.agent.get(`/api/v1${url}`) : request(server.url).get(`/api/v1${url}`));
 const send = (who: Session | null, method: 'post' | 'put' | 'patch', url: string, body: object) =>
   who ? who.agent[method](`/api/v1${url}`).set('X-CSRF-Token', who.csrf).send(body) : request(server.url)[method](`/api/v1${url}`).send(body);
+
+describe('the comparison and search hold to the document', () => {
+  const method = 'push-cut-test-v2';
+  type Row = { cell: string; steel: string; n: number; testers: number };
+
+  it('the table (from the cells and from the results), a cell, two cells paired and as independent samples, the chart points; a bad cell or method is a 400 naming it', async () => {
+    const table = await get(`/compare?method=${method}&pageSize=500`).expect(200);
+    expect(table.body.source).toBe('cells');
+    expect(table.body.rows.length).toBeGreaterThan(1);
+    documented('get', '/compare', table);
+    const live = await get(`/compare?method=${method}&hrcMin=58&pageSize=3&page=2`).expect(200);
+    expect([live.body.source, live.body.liveFilters]).toEqual(['results', ['hrcMin']]);
+    documented('get', '/compare', live);
+
+    // The two best-filled cells of one steel: most likely to share testers.
+    const rows = table.body.rows as Row[];
+    const steel = rows.find((r) => rows.filter((o) => o.steel === r.steel).length > 1)!.steel;
+    const [a, b] = rows.filter((r) => r.steel === steel).sort((x, y) => y.testers - x.testers);
+    const cell = await get(`/compare/cell?method=${method}&cell=${encodeURIComponent(a.cell)}`).expect(200);
+    expect([cell.body.cell.cell, cell.body.total]).toEqual([a.cell, a.n]);
+    documented('get', '/compare/cell', cell);
+    const two = `method=${method}&a=${encodeURIComponent(a.cell)}&b=${encodeURIComponent(b.cell)}`;
+    const paired = await get(`/compare/paired?${two}`).expect(200);
+    expect(paired.body.paired.n).toBe(paired.body.paired.pairs.length);
+    documented('get', '/compare/paired', paired);
+    const difference = await get(`/compare/difference?${two}`).expect(200);
+    expect([difference.body.sharpness.nA, difference.body.sharpness.nB]).toEqual([a.n, b.n]);
+    documented('get', '/compare/difference', difference);
+    const points = await get(`/compare/points?method=${method}&limit=50`).expect(200);
+    expect(points.body.points.length).toBeGreaterThan(0);
+    documented('get', '/compare/points', points);
+
+    const badCell = await get(`/compare/cell?method=${method}&cell=${encodeURIComponent(`no-such-steel:cbn:${a.cell.split(':')[2]}`)}`).expect(400);
+    expect(badCell.body.issues[0].path).toBe('cell');
+    documented('get', '/compare/cell', badCell);
+    const badMethod = await get('/compare?method=no-such-method').expect(400);
+    expect(badMethod.body.issues[0].path).toBe('method');
+    documented('get', '/compare', badMethod);
+    documented('get', '/compare/paired', await get(`/compare/paired?method=${method}&a=${encodeURIComponent(a.cell)}`).expect(400));
+  });
+
+  it('search: every kind of hit, one kind only, and an empty query is a 400 naming q', async () => {
+    const all = await get('/search?q=d2').expect(200);
+    expect(new Set(all.body.hits.map((h: { type: string }) => h.type)).size).toBeGreaterThan(1);
+    documented('get', '/search', all);
+    const cells = await get('/search?q=d2&type=cell').expect(200);
+    expect(cells.body.hits.length).toBeGreaterThan(0);
+    expect(cells.body.hits.every((h: { type: string; cell?: object }) => h.type === 'cell' && h.cell)).toBe(true);
+    documented('get', '/search', cells);
+    documented('get', '/search', await get('/search?q=d2&type=result').expect(200));
+    const bad = await get('/search?q=').expect(400);
+    expect(bad.body.issues[0].path).toBe('q');
+    documented('get', '/search', bad);
+  });
+});
 
 describe('the tools’ answers hold to the document', () => {
   it('grit, hardness, both angle tools both ways, wear drift and retention; a bad figure is a 400 naming it', async () => {
@@ -196,5 +253,74 @@ describe('a member’s own settings, follows, duplicates and photos', () => {
     expect(photos.body.items).toHaveLength(1);
     documented('get', '/results/{id}/photos', photos);
     documented('get', '/results/{id}/photos', await get('/results/999999999/photos').expect(404));
+  });
+});
+
+describe('the desk’s context, profiles, the import and the refusals that carry more than an error', () => {
+  const example = { steel: 'aisi-d2', hardness: { value: 61, scale: 'HRC' }, abrasive: 'cbn-electroplated-wheel-250-b126', edgeAngle: { perSideDeg: 15 }, sharpness: { method: 'push-cut-test-v2', readingsG: [182, 178, 186] } };
+
+  it('a pending result’s context on the desk; 403 for a member, 404 unknown, 409 once it is decided', async () => {
+    const pending = await send(member, 'post', '/results', example).expect(201);
+    const context = await get(`/review-desk/results/${pending.body.id}/context`, moderator).expect(200);
+    expect(context.body.resultId).toBe(pending.body.id);
+    documented('get', '/review-desk/results/{id}/context', context);
+    documented('get', '/review-desk/results/{id}/context', await get(`/review-desk/results/${pending.body.id}/context`, member).expect(403));
+    documented('get', '/review-desk/results/{id}/context', await get('/review-desk/results/999999999/context', moderator).expect(404));
+    await send(moderator, 'post', '/review-desk/bulk-approve', { ids: [pending.body.id], note: 'Answers test.' }).expect(200);
+    documented('get', '/review-desk/results/{id}/context', await get(`/review-desk/results/${pending.body.id}/context`, moderator).expect(409));
+  });
+
+  it('a member’s public profile, and 404 for an unknown handle', async () => {
+    const profile = await get(`/profiles/${publisher.user.handle}`).expect(200);
+    expect(profile.body.handle).toBe(publisher.user.handle);
+    expect(profile.body.recent.length).toBeGreaterThan(0);
+    documented('get', '/profiles/{handle}', profile);
+    documented('get', '/profiles/{handle}', await get('/profiles/no-such-member').expect(404));
+  });
+
+  it('the import: the dry run’s report (200), the import (201), a refused file (400 with the report), a member refused (403)', async () => {
+    const row = (readings: string): Record<string, string> => ({ steel: 'aisi-d2', hardness: '61', abrasive: 'cbn-electroplated-wheel-250-b126', grit_standard: 'iso6106', grit: 'B126', angle_per_side_deg: '15', sharpness_method: 'push-cut-test-v2', readings_g: readings, notes: 'Invented answers-test row.' });
+    const file = (readings: string) => toCsv([[...IMPORT_COLUMNS], IMPORT_COLUMNS.map((c) => row(readings)[c] ?? '')]);
+    const post = (who: Session, csv: string, query = '') =>
+      who.agent.post(`/api/v1/import/results${query}`).set('X-CSRF-Token', who.csrf).attach('file', Buffer.from(csv, 'utf8'), { filename: 'results.csv', contentType: 'text/csv' });
+    const dry = await post(publisher, file('181;176;189;170;165'), '?dryRun=1').expect(200);
+    expect([dry.body.rows, dry.body.valid, dry.body.preview.length]).toEqual([1, 1, 1]);
+    documented('post', '/import/results', dry);
+    const imported = await post(publisher, file('181;176;189;170;165')).expect(201);
+    expect(imported.body.imported).toBe(1);
+    documented('post', '/import/results', imported);
+    const refused = await post(publisher, file('181;x')).expect(400);
+    expect(refused.body.errors[0].column).toBe('readings_g');
+    documented('post', '/import/results', refused);
+    documented('post', '/import/results', await post(publisher, file('181;176;189;170;165'), '?dryRun=maybe').expect(400));
+    documented('post', '/import/results', await post(member, file('181;176;189;170;165'), '?dryRun=1').expect(403));
+  });
+
+  it('a stale page save and a proposal that conflicts with a later edit: 409 with the current revision and a suggested merge', async () => {
+    type Page = Record<string, unknown> & { slug: string; revision: number; body: unknown };
+    const steels = (await get('/steels').expect(200)).body.items as { slug: string }[];
+    const [one, two] = steels.filter((p) => p.slug !== 'aisi-d2').map((p) => p.slug);
+    const edit = (page: Page, summary: string, hardnessHrc: object) => ({
+      ...Object.fromEntries(['name', 'category', 'designations', 'composition', 'citations', 'sources'].map((k) => [k, page[k]])),
+      hardnessHrc,
+      body: page.body,
+      baseRevision: page.revision,
+      summary,
+    });
+    const start = (await get(`/steels/${one}`).expect(200)).body as Page;
+    await send(moderator, 'put', `/steels/${one}`, edit(start, 'Answers test: first', { min: 55, max: 59 })).expect(200);
+    const stale = await send(admin, 'put', `/steels/${one}`, edit(start, 'Answers test: second', { min: 56, max: 60 })).expect(409);
+    expect(stale.body.conflicts).toContain('hardnessHrc');
+    documented('put', '/steels/{slug}', stale);
+
+    const base = (await get(`/steels/${two}`).expect(200)).body as Page;
+    const a = await send(member, 'put', `/steels/${two}`, edit(base, 'Answers test: A', { min: 55, max: 59 })).expect(202);
+    const b = await send(member, 'put', `/steels/${two}`, edit(base, 'Answers test: B', { min: 56, max: 60 })).expect(202);
+    documented('post', '/page-revisions/{id}/review', await send(moderator, 'post', `/page-revisions/${a.body.revision.id}/review`, { decision: 'approve' }).expect(200));
+    const conflict = await send(moderator, 'post', `/page-revisions/${b.body.revision.id}/review`, { decision: 'approve' }).expect(409);
+    expect(conflict.body.conflicts).toContain('hardnessHrc');
+    documented('post', '/page-revisions/{id}/review', conflict);
+    // A plain 409 (decided already) holds to the same answer.
+    documented('post', '/page-revisions/{id}/review', await send(moderator, 'post', `/page-revisions/${a.body.revision.id}/review`, { decision: 'approve' }).expect(409));
   });
 });

@@ -1,6 +1,6 @@
 import { Router, type RequestHandler } from 'express';
 import { searchQuerySchema } from '@shared/schemas/result';
-import { healthSchema, type Presented } from '@shared/schemas/responses';
+import { healthSchema, type Presented, type searchAnswerSchema } from '@shared/schemas/responses';
 import type { AppContext } from '../../context';
 import { csrfProtection, csrfTokenOf } from '../../middleware/auth';
 import { route } from '../../middleware/validate';
@@ -63,7 +63,7 @@ export function apiRouter(ctx: AppContext, { answers, searchLimit, mailCatcher }
   const keptSearch = answers.keep('search', { forEveryone: true, guard: searchLimit });
   router.get('/search', keptSearch, route({ query: searchQuerySchema }, (req, res) => {
     const { q, type } = req.valid.query;
-    res.json(ctx.search.search(q, type));
+    res.json(ctx.search.search(q, type) satisfies Presented<typeof searchAnswerSchema>);
   }));
   router.use(pagesRouter(ctx, answers));
   router.use(resultsRouter(ctx));

@@ -18,6 +18,7 @@ import { compareDifference } from '../../../queries/compare-difference';
 import { comparePoints } from '../../../queries/compare-points';
 import { setPageLinks } from '../../../presenters/page-links';
 import { presentResult } from '../../../presenters/result';
+import type { compareCellSchema, compareDifferenceSchema, comparePairedSchema, comparePointsSchema, Presented } from '@shared/schemas/responses';
 
 /**
  * The comparison under /api/compare: the table (and pivot), its export, a cell's results, the
@@ -54,20 +55,20 @@ export function compareRouter(ctx: AppContext, answers: AnswerCache): Router {
     const { results, ...cell } = await compareCell(req.valid.query);
     const viewer = actorOf(req);
     const names = await abrasiveNames();
-    setPageLinks(req, res, cell).json({ ...cell, items: results.map((r) => presentResult(r, viewer, names)) });
+    setPageLinks(req, res, cell).json({ ...cell, items: results.map((r) => presentResult(r, viewer, names)) } satisfies Presented<typeof compareCellSchema>);
   }));
 
   router.get('/compare/paired', route({ query: comparePairedQuerySchema }, async (req, res) => {
-    res.json(await comparePaired(req.valid.query));
+    res.json((await comparePaired(req.valid.query)) satisfies Presented<typeof comparePairedSchema>);
   }));
 
   // Two cells as independent samples; the same query as the paired comparison.
   router.get('/compare/difference', kept, route({ query: comparePairedQuerySchema }, async (req, res) => {
-    res.json(await compareDifference(req.valid.query));
+    res.json((await compareDifference(req.valid.query)) satisfies Presented<typeof compareDifferenceSchema>);
   }));
 
   router.get('/compare/points', route({ query: comparePointsQuerySchema }, async (req, res) => {
-    res.json(await comparePoints(req.valid.query));
+    res.json((await comparePoints(req.valid.query)) satisfies Presented<typeof comparePointsSchema>);
   }));
 
   return router;

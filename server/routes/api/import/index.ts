@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import type { importedSchema, importRefusedSchema, importReportSchema, Presented } from '@shared/schemas/responses';
 import { can } from '@shared/permissions';
 import { toCsv } from '@shared/csv-writer';
 import { importLimits, importQuerySchema } from '@shared/schemas/import';
@@ -33,15 +34,15 @@ export function importRouter(ctx: AppContext): Router {
       const { dryRun } = req.valid.query;
       const file = req.file!.buffer;
       if (dryRun) {
-        res.json((await checkImport(file)).report);
+        res.json((await checkImport(file)).report satisfies Presented<typeof importReportSchema>);
         return;
       }
       try {
-        res.status(201).json(await importResults(ctx, actorOf(req)!, file));
+        res.status(201).json((await importResults(ctx, actorOf(req)!, file)) satisfies Presented<typeof importedSchema>);
       } catch (err) {
         // A refused import answers with the same report as the dry run.
         if (!(err instanceof ImportRefused)) throw err;
-        res.status(400).json({ error: err.message, ...err.report });
+        res.status(400).json({ error: err.message, ...err.report } satisfies Presented<typeof importRefusedSchema>);
       }
     }),
   );

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import type { Presented, profileSchema } from '@shared/schemas/responses';
 import { handleParams } from '@shared/schemas/common';
 import { actorOf } from '../../../middleware/auth';
 import { route } from '../../../middleware/validate';
@@ -15,7 +16,7 @@ export function profilesRouter(): Router {
 
   router.get('/profiles/:handle', route({ params: handleParams }, async (req, res) => {
     const { handle } = req.valid.params;
-    res.json(presentProfile(await publicProfile(handle), actorOf(req), await abrasiveNames()));
+    res.json(presentProfile(await publicProfile(handle), actorOf(req), await abrasiveNames()) satisfies Presented<typeof profileSchema>);
   }));
 
   router.get('/profiles/:handle/results.csv', route({ params: handleParams }, async (req, res) => {
