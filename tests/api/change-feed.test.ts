@@ -26,6 +26,7 @@ import { reviewResultRevision } from '../../server/commands/review-result-revisi
 import { addGrinder, addJig, addWorkshopWheel, reportPrice, retireWheel, saveSetup } from '../../server/commands/equip-workshop';
 import { manageUser } from '../../server/commands/manage-user';
 
+import { createPage } from '../../server/commands/create-page';
 import { mergePages } from '../../server/commands/merge-pages';
 import { protectPage } from '../../server/commands/protect-page';
 import { recordRefusal } from '../../server/commands/record-audit';
@@ -172,6 +173,18 @@ describe('a write through every command', () => {
     expect(approved.find((r) => r.kind === 'result')!.keys).toMatchObject({ ids, published: ids });
     for (const id of ids) expect(inIndex(`result:${id}`)).toBe(true);
     expect(await approvedCount()).toBe(approvedBefore + ids.length);
+  });
+
+  it('createPage: the new page is in the index and its list at once, audited', async () => {
+    const input = {
+      name: 'Feed test method', instrument: 'An invented rig', medium: 'Paper', readingsPerEdge: 3, retentionMedium: null, thresholdG: null,
+      citations: [], sources: {}, summary: 'First version.', body: null,
+    };
+    const rows = await changesOf(() => createPage(server.ctx, moderator.asActor(), 'method', input));
+    expect(kinds(rows)).toEqual(['audit', 'page']);
+    expect(inIndex('method:feed-test-method')).toBe(true);
+    const list = (await request(server.url).get('/api/methods').expect(200)).body.items as { slug: string }[];
+    expect(list.map((m) => m.slug)).toContain('feed-test-method');
   });
 
   it('revisePage: a renamed page is found by its new name, and its kept answer follows', async () => {
@@ -325,12 +338,12 @@ describe('a write through every command', () => {
       'importResults', 'addWheel', 'measureWheel', 'mergePages', 'protectPage', 'recordRefusal', 'retractResult', 'revertPage', 'reviewPageRevision',
       'reviewResult', 'revisePage', 'revokeToken', 'sendDigest', 'signInFromProvider', 'submitResult', 'updateNotificationSettings', 'updateSiteSettings',
       'uploadPhoto', 'removePhoto', 'saveDraft', 'editResult', 'reviewResultRevision', 'addGrinder', 'addJig', 'saveSetup', 'addWorkshopWheel',
-      'editMeasurement', 'deleteMeasurement', 'retireWheel', 'reportPrice', 'manageUser',
+      'editMeasurement', 'deleteMeasurement', 'retireWheel', 'reportPrice', 'manageUser', 'createPage',
     ]);
     const helpers = new Set([
       'hashToken', 'decodeCsv', 'checkImport', 'templateRows', 'resultRow', 'applyContent', 'recordPageChange', 'refuseIfMerged', 'recordAudit',
       'notifyReviewOutcome', 'ImportRefused', 'TOKENS_PER_PUBLISHER', 'TOKEN_PREFIX', 'RESULT_VISIBLE_FIELDS',
-      'editedColumns', 'applyRevision', 'resolveReferences',
+      'editedColumns', 'applyRevision', 'resolveReferences', 'columnsOf', 'checkDesignationsFree',
     ]);
     const dir = path.resolve('server/commands');
     const untested: string[] = [];
