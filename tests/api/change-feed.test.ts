@@ -25,6 +25,7 @@ import { editResult, saveDraft } from '../../server/commands/edit-result';
 import { reviewResultRevision } from '../../server/commands/review-result-revision';
 import { addGrinder, addJig, addWorkshopWheel, reportPrice, retireWheel, saveSetup } from '../../server/commands/equip-workshop';
 import { manageUser } from '../../server/commands/manage-user';
+import { grantRoleFromCommandLine } from '../../server/commands/grant-role';
 
 import { createPage } from '../../server/commands/create-page';
 import { mergePages } from '../../server/commands/merge-pages';
@@ -320,6 +321,13 @@ describe('a write through every command', () => {
     await target.agent.get('/api/me').expect(401);
   });
 
+  it('grantRoleFromCommandLine: the new role reaches the kept account on the next request', async () => {
+    const target = await signIn(server.url, await demoHandle(server.url, 'publisher', 1));
+    expect((await target.agent.get('/api/session').expect(200)).body.user.role).toBe('publisher');
+    expect(kinds(await changesOf(() => grantRoleFromCommandLine(server.ctx, target.user.handle, 'moderator')))).toEqual(['account', 'audit']);
+    expect((await target.agent.get('/api/session').expect(200)).body.user.role).toBe('moderator');
+  });
+
   it('updateSiteSettings', async () => {
     expect(kinds(await changesOf(() => updateSiteSettings(server.ctx, admin.asActor(), { trustPublisherImports: true })))).toEqual(['audit', 'setting']);
   });
@@ -338,7 +346,7 @@ describe('a write through every command', () => {
       'importResults', 'addWheel', 'measureWheel', 'mergePages', 'protectPage', 'recordRefusal', 'retractResult', 'revertPage', 'reviewPageRevision',
       'reviewResult', 'revisePage', 'revokeToken', 'sendDigest', 'signInFromProvider', 'submitResult', 'updateNotificationSettings', 'updateSiteSettings',
       'uploadPhoto', 'removePhoto', 'saveDraft', 'editResult', 'reviewResultRevision', 'addGrinder', 'addJig', 'saveSetup', 'addWorkshopWheel',
-      'editMeasurement', 'deleteMeasurement', 'retireWheel', 'reportPrice', 'manageUser', 'createPage',
+      'editMeasurement', 'deleteMeasurement', 'retireWheel', 'reportPrice', 'manageUser', 'createPage', 'grantRoleFromCommandLine',
     ]);
     const helpers = new Set([
       'hashToken', 'decodeCsv', 'checkImport', 'templateRows', 'resultRow', 'applyContent', 'recordPageChange', 'refuseIfMerged', 'recordAudit',
