@@ -23,7 +23,9 @@ export interface CreatedPage {
 export async function createPage(ctx: AppContext, actor: Actor, type: PageType, input: PageCreate): Promise<CreatedPage> {
   if (!can(actor, 'create:page')) throw forbidden('Only moderators and admins start new reference pages; propose changes to an existing page instead.');
   const { slug, summary, content } = splitCreate(type, input);
-  if (!slug) throw badRequest('Invalid input.', [{ path: 'slug', message: 'the name gives no slug (no Latin letter or digit): give one, such as "k390"' }]);
+  if (!slug) throw badRequest('Invalid input.', [{ path: 'slug', message: 'the name gives no slug (no Latin letter or digit): give one, such as "aisi-d2"' }]);
+  // The interface's form for a new page lives at /{section}/new.
+  if (slug === 'new') throw badRequest('Invalid input.', [{ path: 'slug', message: '"new" is the address of the form for a new page: give another slug' }]);
   return ctx.db.write(async (transaction) => {
     const taken = await (PAGE_MODELS[type] as typeof Method).count({ where: { slug }, transaction });
     if (taken) throw conflict(`The slug "${slug}" is taken by another ${type} page (/${PAGE_SECTIONS[type]}/${slug}); give another slug, or edit that page.`);

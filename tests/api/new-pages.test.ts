@@ -122,6 +122,7 @@ describe('POST /api/{steels,abrasives,methods}: a new reference page', () => {
     const { category: _c, ...noCategory } = newSteel({ name: 'Another grade', designations: [{ system: 'AISI', code: 'AG2' }] });
     expect(await paths(noCategory)).toContain('category');
     expect(await paths(newSteel({ name: '———', designations: [{ system: 'AISI', code: 'AG3' }] }))).toContain('slug');
+    expect(await paths(newSteel({ name: 'New', designations: [{ system: 'AISI', code: 'AG4' }] }))).toContain('slug');
     // AISI D2 is a demo page's designation (a standard grade, AISI).
     expect(await paths(newSteel({ name: 'Second D2', designations: [{ system: 'AISI', code: 'D2' }] }))).toContain('designations.0.code');
     expect({ steels: await Steel.count(), revisions: await PageRevision.count() }).toEqual(before);
