@@ -20,6 +20,7 @@ export type Action =
   | 'edit:result'
   | 'manage:users'
   | 'read:dev-mail'
+  | 'create:page'
   | 'edit:page'
   | 'publish:page'
   | 'read:page-revision'
@@ -98,6 +99,8 @@ export function can(actor: Actor | null, action: Action, subject?: ResultSubject
       return atLeast(actor.role, 'publisher') && (!(subject as PageSubject | undefined)?.isProtected || atLeast(actor.role, 'moderator'));
     case 'review:page-revision':
       return atLeast(actor.role, 'moderator') && subject?.authorId !== actor.id;
+    // A new reference page is staff work for now (decision 039): members propose edits only.
+    case 'create:page':
     case 'revert:page':
     case 'protect:page':
     case 'merge:page':

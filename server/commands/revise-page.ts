@@ -37,8 +37,9 @@ function validContent(type: PageType, content: PageContent): PageContent {
  * A designation names one steel: a second page claiming "EN 1.2379" is a duplicate, which a
  * moderator merges rather than two pages drifting apart. Throws 400 naming the designation.
  */
-async function checkDesignationsFree(page: PageModel, fields: SteelFields, transaction: Transaction) {
-  const others = await Steel.findAll({ where: { id: { [Op.ne]: page.id }, mergedIntoId: null }, attributes: ['slug', 'name', 'designations'], transaction });
+export async function checkDesignationsFree(page: PageModel | null, fields: SteelFields, transaction: Transaction) {
+  const where = page ? { id: { [Op.ne]: page.id }, mergedIntoId: null } : { mergedIntoId: null };
+  const others = await Steel.findAll({ where, attributes: ['slug', 'name', 'designations'], transaction });
   const issues: FieldIssue[] = [];
   fields.designations.forEach((d, i) => {
     const owner = others.find((o) => o.designations.some((x) => x.system === d.system && x.code.toLowerCase() === d.code.toLowerCase()));
@@ -65,52 +66,64 @@ async function rederiveAbrasiveResults(abrasive: Abrasive, transaction: Transact
   return changed;
 }
 
+const steelColumns = (f: SteelFields) => ({
+  name: f.name, category: f.category, designations: f.designations, composition: f.composition,
+  hardnessMinHrc: f.hardnessHrc?.min ?? null, hardnessMaxHrc: f.hardnessHrc?.max ?? null,
+  citations: f.citations, sources: f.sources as Record<string, number>,
+});
+
+const abrasiveColumns = (f: AbrasiveFields) => {
+  const grit = parseGrit(f.grit.grade, f.grit.standard);
+  return {
+    name: f.name, material: f.material, bond: f.bond, form: f.form,
+    gritStandard: grit.standard, gritGrade: grit.grade, gritUm: grit.micrometres, gritRange: f.gritRange,
+    wheelDiameterMm: f.wheelDiameterMm, widthMm: f.widthMm, wears: f.wears, coolant: f.coolant, sideUsable: f.sideUsable,
+    priceNote: f.priceNote, citations: f.citations, sources: f.sources as Record<string, number>,
+  };
+};
+
+const methodColumns = (f: MethodFields) => ({
+  name: f.name, instrument: f.instrument, medium: f.medium, readingsPerEdge: f.readingsPerEdge,
+  retentionMedium: f.retentionMedium, thresholdG: f.thresholdG, citations: f.citations, sources: f.sources as Record<string, number>,
+});
+
+interface PageColumns {
+  steel: ReturnType<typeof steelColumns>;
+  abrasive: ReturnType<typeof abrasiveColumns>;
+  method: ReturnType<typeof methodColumns>;
+}
+
+/**
+ * A page's columns as its fields and body give them (an abrasive's grit parsed to µm), after
+ * checking the content against its page type's schema once more.
+ */
+export function columnsOf<T extends PageType>(type: T, content: PageContent): PageColumns[T] & { body: PageContent['body'] } {
+  const { fields, body } = validContent(type, content);
+  const columns = type === 'steel' ? steelColumns(fields as SteelFields) : type === 'abrasive' ? abrasiveColumns(fields as AbrasiveFields) : methodColumns(fields as MethodFields);
+  return { ...(columns as PageColumns[T]), body };
+}
+
 /**
  * Makes `content` the page's current state, from revision `revisionId`, inside the caller's
- * transaction: the page's columns follow the revision's fields (an abrasive's grit is parsed to
- * µm), and an abrasive whose material or grit changed re-derives its results and their cells.
+ * transaction: the page's columns follow the revision's fields, and an abrasive whose material or
+ * grit changed re-derives its results and their cells.
  */
 export async function applyContent(type: PageType, page: PageModel, content: PageContent, revisionId: number, transaction: Transaction): Promise<void> {
-  const { fields, body } = validContent(type, content);
   if (type === 'steel') {
-    const f = fields as SteelFields;
-    await checkDesignationsFree(page, f, transaction);
-    await (page as Steel).update(
-      {
-        name: f.name, category: f.category, designations: f.designations, composition: f.composition,
-        hardnessMinHrc: f.hardnessHrc?.min ?? null, hardnessMaxHrc: f.hardnessHrc?.max ?? null,
-        citations: f.citations, sources: f.sources as Record<string, number>, body, currentRevisionId: revisionId,
-      },
-      { transaction },
-    );
+    const columns = columnsOf('steel', content);
+    await checkDesignationsFree(page, content.fields as SteelFields, transaction);
+    await (page as Steel).update({ ...columns, currentRevisionId: revisionId }, { transaction });
     return;
   }
   if (type === 'abrasive') {
-    const f = fields as AbrasiveFields;
     const a = page as Abrasive;
-    const grit = parseGrit(f.grit.grade, f.grit.standard);
-    const gritChanged = a.material !== f.material || a.gritStandard !== grit.standard || a.gritGrade !== grit.grade;
-    await a.update(
-      {
-        name: f.name, material: f.material, bond: f.bond, form: f.form,
-        gritStandard: grit.standard, gritGrade: grit.grade, gritUm: grit.micrometres, gritRange: f.gritRange,
-        wheelDiameterMm: f.wheelDiameterMm, widthMm: f.widthMm, wears: f.wears, coolant: f.coolant, sideUsable: f.sideUsable,
-        priceNote: f.priceNote, citations: f.citations, sources: f.sources as Record<string, number>, body, currentRevisionId: revisionId,
-      },
-      { transaction },
-    );
+    const columns = columnsOf('abrasive', content);
+    const gritChanged = a.material !== columns.material || a.gritStandard !== columns.gritStandard || a.gritGrade !== columns.gritGrade;
+    await a.update({ ...columns, currentRevisionId: revisionId }, { transaction });
     if (gritChanged) await rederiveAbrasiveResults(a, transaction);
     return;
   }
-  const f = fields as MethodFields;
-  await (page as Method).update(
-    {
-      name: f.name, instrument: f.instrument, medium: f.medium, readingsPerEdge: f.readingsPerEdge,
-      retentionMedium: f.retentionMedium, thresholdG: f.thresholdG, citations: f.citations, sources: f.sources as Record<string, number>,
-      body, currentRevisionId: revisionId,
-    },
-    { transaction },
-  );
+  await (page as Method).update({ ...columnsOf('method', content), currentRevisionId: revisionId }, { transaction });
 }
 
 /** Fields whose change alters how results on the page are titled or found. */

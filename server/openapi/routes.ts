@@ -16,6 +16,7 @@ import {
   abrasiveListQuerySchema,
   PAGE_SECTIONS,
   PAGE_TYPES,
+  pageCreateSchemas,
   pageEditSchemas,
   pageMergeSchema,
   pageProtectSchema,
@@ -94,6 +95,7 @@ import {
   pageListSchema,
   pageReviewOutcomeSchema,
   pageRevisionSchema,
+  pageCreatedSchema,
   pageSaveSchema,
   resultEditSchema,
   resultInputExample,
@@ -169,6 +171,16 @@ const pageRoutes: RouteDoc[] = PAGE_TYPES.flatMap((type): RouteDoc[] => {
   const section = PAGE_SECTIONS[type];
   const tag = 'reference pages';
   return [
+    {
+      method: 'post',
+      path: `/${section}`,
+      summary: `Start a ${type} page (201, its first revision live; 409 when the slug is taken)`,
+      tag,
+      access: 'moderator',
+      body: pageCreateSchemas[type],
+      answer: json(pageCreatedSchema, 201),
+      errors: [409],
+    },
     { method: 'get', path: `/${section}/:slug`, summary: `One ${type} page (301 to the surviving page when it was merged)`, tag, access: 'public', params: slugParams, answer: json(wikiPageSchema) },
     {
       method: 'put',

@@ -230,6 +230,45 @@ export const methodEditSchema = z.object({ ...methodShape, ...editShape }).stric
 export const pageEditSchemas = { steel: steelEditSchema, abrasive: abrasiveEditSchema, method: methodEditSchema } as const;
 export const pageFieldsSchemas = { steel: steelFieldsSchema, abrasive: abrasiveFieldsSchema, method: methodFieldsSchema } as const;
 
+/**
+ * What a new page carries besides its fields: its slug (made from the name when left out, by
+ * `slugFromName`, and held to the same rule as every page's slug), why, and the body.
+ */
+const createShape = {
+  slug: slugSchema.optional(),
+  summary: text(300).default('First version.'),
+  body: richTextSchema.nullable(),
+};
+
+/** POST /api/{steels,abrasives,methods}: a new page, with the same fields as an edit. */
+export const pageCreateSchemas = {
+  steel: z.object({ ...steelShape, ...createShape }).strict().superRefine(checkSteel).superRefine(checkSources),
+  abrasive: z.object({ ...abrasiveShape, ...createShape }).strict().superRefine(checkAbrasive).superRefine(checkSources),
+  method: z.object({ ...methodShape, ...createShape }).strict().superRefine(checkSources),
+} as const;
+export type PageCreate = z.infer<(typeof pageCreateSchemas)[PageType]>;
+
+/**
+ * The slug a page name gives: accents dropped, lower case, every run of other characters one
+ * hyphen, cut to the slug's length limit ("EN 1.2379 (D2)" → "en-1-2379-d2"). Empty when the name
+ * has no letter or digit of the Latin alphabet; the caller then asks for a slug.
+ */
+export function slugFromName(name: string): string {
+  return name
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .slice(0, limits.slugMax)
+    .replace(/^-+|-+$/g, '');
+}
+
+/** A new page's slug and content, as its first revision stores them. */
+export function splitCreate(type: PageType, input: PageCreate): { slug: string; summary: string; content: PageContent } {
+  const { slug, summary, body, ...fields } = input;
+  return { slug: slug ?? slugFromName(input.name), summary, content: { fields: normalizeFields(type, fields), body } };
+}
+
 export type SteelEdit = z.infer<typeof steelEditSchema>;
 export type AbrasiveEdit = z.infer<typeof abrasiveEditSchema>;
 export type MethodEdit = z.infer<typeof methodEditSchema>;

@@ -207,6 +207,11 @@ export const pageSaveSchema = z
   .looseObject({ status: z.enum(['live', 'proposed']), revision: pageRevisionSchema, page: wikiPageSchema.optional() })
   .meta({ id: 'PageSave' });
 
+/** POST /{steels,abrasives,methods}: the new page and its first revision (number 1, live). */
+export const pageCreatedSchema = z
+  .object({ status: z.literal('live'), revision: pageRevisionSchema, page: wikiPageSchema })
+  .meta({ id: 'PageCreated' });
+
 /** POST /page-revisions/:id/review: the proposal as decided, and the revision that went live (itself, or a merge over later edits). */
 export const pageReviewOutcomeSchema = z
   .looseObject({ status: z.enum(['live', 'declined']), revision: pageRevisionSchema, applied: pageRevisionSchema })

@@ -38,6 +38,7 @@ const routes: RouteObject[] = [
       { path: paths.abrasive.path, ...page(() => import('./routes/abrasive')) },
       { path: paths.methods.path, ...page(() => import('./routes/methods')) },
       { path: paths.method.path, ...page(() => import('./routes/method')) },
+      ...paths.wiki.create.paths.map((path) => ({ path, ...page(() => import('@/features/wiki/components/new-page-route')) })),
       { path: paths.wiki.edit.path, ...page(() => import('@/features/wiki/components/edit-page-route')) },
       { path: paths.wiki.history.path, ...page(() => import('@/features/wiki/components/history-route')) },
       { path: paths.wiki.compare.path, ...page(() => import('@/features/wiki/components/compare-route')) },

@@ -71,6 +71,8 @@ export const paths = {
   signIn: { path: '/sign-in', getHref: (returnTo?: string) => withQuery('/sign-in', { returnTo }) },
   /** The wiki on a steel, abrasive or method page; `section` is "steels", "abrasives" or "methods". */
   wiki: {
+    /** A new page of the section (moderators, admins): one route per section, so "/steels/new" outranks "/steels/:slug". */
+    create: { paths: ['/steels/new', '/abrasives/new', '/methods/new'], getHref: (section: string) => `/${section}/new` },
     edit: { path: '/:section/:slug/edit', getHref: (section: string, slug: string) => `/${section}/${encodeURIComponent(slug)}/edit` },
     history: { path: '/:section/:slug/history', getHref: (section: string, slug: string) => `/${section}/${encodeURIComponent(slug)}/history` },
     compare: {

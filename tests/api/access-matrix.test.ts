@@ -113,6 +113,13 @@ async function wikiRevertTarget(section: keyof typeof wikiPages, slug: string) {
   return history.items[history.items.length - 1].id;
 }
 
+/** A new page's fields: an existing page's, under a new name, slug and (steels) designation. */
+async function wikiNewPage(section: keyof typeof wikiPages) {
+  const n = ++wikiCounter;
+  const { baseRevision: _base, ...edit } = await wikiEdit(section, wikiPages[section].edit, 'Access matrix new page');
+  return { ...edit, name: `Matrix new page ${n}`, slug: `access-matrix-new-${n}`, ...(section === 'steels' ? { designations: [{ system: 'AISI', code: `AMN${n}` }] } : {}) };
+}
+
 /** A new page of the section with a first revision, to be merged into the row's page as a duplicate. */
 async function wikiDuplicate(section: keyof typeof wikiPages) {
   const n = ++wikiCounter;
@@ -200,6 +207,7 @@ const matrix: Row[] = [
         request: async () => ({ url: `/api/${section}/${page.edit}/revisions/${(await wikiPage(section, page.edit)).revision}` }),
         expect: everyone(200),
       },
+      { route: `POST /api/${section}`, request: async () => ({ url: `/api/${section}`, body: await wikiNewPage(section) }), expect: moderators(201) },
       {
         // A member's edit is a proposal (202); a publisher's or moderator's goes live (200).
         route: `PUT /api/${section}/:slug`,

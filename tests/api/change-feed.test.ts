@@ -25,7 +25,9 @@ import { editResult, saveDraft } from '../../server/commands/edit-result';
 import { reviewResultRevision } from '../../server/commands/review-result-revision';
 import { addGrinder, addJig, addWorkshopWheel, reportPrice, retireWheel, saveSetup } from '../../server/commands/equip-workshop';
 import { manageUser } from '../../server/commands/manage-user';
+import { grantRoleFromCommandLine } from '../../server/commands/grant-role';
 
+import { createPage } from '../../server/commands/create-page';
 import { mergePages } from '../../server/commands/merge-pages';
 import { protectPage } from '../../server/commands/protect-page';
 import { recordRefusal } from '../../server/commands/record-audit';
@@ -174,6 +176,18 @@ describe('a write through every command', () => {
     expect(await approvedCount()).toBe(approvedBefore + ids.length);
   });
 
+  it('createPage: the new page is in the index and its list at once, audited', async () => {
+    const input = {
+      name: 'Feed test method', instrument: 'An invented rig', medium: 'Paper', readingsPerEdge: 3, retentionMedium: null, thresholdG: null,
+      citations: [], sources: {}, summary: 'First version.', body: null,
+    };
+    const rows = await changesOf(() => createPage(server.ctx, moderator.asActor(), 'method', input));
+    expect(kinds(rows)).toEqual(['audit', 'page']);
+    expect(inIndex('method:feed-test-method')).toBe(true);
+    const list = (await request(server.url).get('/api/methods').expect(200)).body.items as { slug: string }[];
+    expect(list.map((m) => m.slug)).toContain('feed-test-method');
+  });
+
   it('revisePage: a renamed page is found by its new name, and its kept answer follows', async () => {
     const page = await steelPage('aisi-o1');
     const rows = await changesOf(() => revisePage(server.ctx, moderator.asActor(), 'steel', 'aisi-o1', editOf(page, { name: 'AISI O1 oil-hardening' })));
@@ -307,6 +321,13 @@ describe('a write through every command', () => {
     await target.agent.get('/api/me').expect(401);
   });
 
+  it('grantRoleFromCommandLine: the new role reaches the kept account on the next request', async () => {
+    const target = await signIn(server.url, await demoHandle(server.url, 'publisher', 1));
+    expect((await target.agent.get('/api/session').expect(200)).body.user.role).toBe('publisher');
+    expect(kinds(await changesOf(() => grantRoleFromCommandLine(server.ctx, target.user.handle, 'moderator')))).toEqual(['account', 'audit']);
+    expect((await target.agent.get('/api/session').expect(200)).body.user.role).toBe('moderator');
+  });
+
   it('updateSiteSettings', async () => {
     expect(kinds(await changesOf(() => updateSiteSettings(server.ctx, admin.asActor(), { trustPublisherImports: true })))).toEqual(['audit', 'setting']);
   });
@@ -325,12 +346,12 @@ describe('a write through every command', () => {
       'importResults', 'addWheel', 'measureWheel', 'mergePages', 'protectPage', 'recordRefusal', 'retractResult', 'revertPage', 'reviewPageRevision',
       'reviewResult', 'revisePage', 'revokeToken', 'sendDigest', 'signInFromProvider', 'submitResult', 'updateNotificationSettings', 'updateSiteSettings',
       'uploadPhoto', 'removePhoto', 'saveDraft', 'editResult', 'reviewResultRevision', 'addGrinder', 'addJig', 'saveSetup', 'addWorkshopWheel',
-      'editMeasurement', 'deleteMeasurement', 'retireWheel', 'reportPrice', 'manageUser',
+      'editMeasurement', 'deleteMeasurement', 'retireWheel', 'reportPrice', 'manageUser', 'createPage', 'grantRoleFromCommandLine',
     ]);
     const helpers = new Set([
       'hashToken', 'decodeCsv', 'checkImport', 'templateRows', 'resultRow', 'applyContent', 'recordPageChange', 'refuseIfMerged', 'recordAudit',
       'notifyReviewOutcome', 'ImportRefused', 'TOKENS_PER_PUBLISHER', 'TOKEN_PREFIX', 'RESULT_VISIBLE_FIELDS',
-      'editedColumns', 'applyRevision', 'resolveReferences',
+      'editedColumns', 'applyRevision', 'resolveReferences', 'columnsOf', 'checkDesignationsFree',
     ]);
     const dir = path.resolve('server/commands');
     const untested: string[] = [];

@@ -2,7 +2,8 @@
  * Browser test of the reference wiki (issue 4) on the real stack: the built client served by the
  * real server (local OAuth2 provider, mail catcher) over a fresh data folder, in headless Debian
  * Chromium. A member proposes an edit of a steel page, a moderator approves it on the review
- * desk, and the page's history shows the change side by side. Elements are found by role and label.
+ * desk, and the page’s history shows the change side by side; a moderator starts a new page from
+ * a list (issue 15). Elements are found by role and label.
  *
  * It builds nothing: `dist/` must exist (`npx vite build`). Ports are taken from 3400–3499.
  */
@@ -230,6 +231,27 @@ describe('the reference wiki in a browser', () => {
     await page.waitForURL(/\/methods\/push-cut-test-v2$/);
     const saved = await api<{ readingsPerEdge: number; thresholdG: number }>('/api/methods/push-cut-test-v2');
     expect(saved).toMatchObject({ readingsPerEdge: 7, thresholdG: 321 });
+    await signOut();
+  }, 60_000);
+  it('a moderator starts a method page from the list: the empty form checks as one types, saves, and shows the new page', async () => {
+    const accounts = await api<Account[]>('/auth/demo-accounts');
+    const moderator = accounts.find((a) => a.role === 'moderator')!;
+    const name = `Thread cut ${randomWord(6)}`;
+    await signInAs(moderator.handle, '/methods');
+    await page.getByRole('link', { name: 'New method page' }).click();
+    await page.waitForURL(/\/methods\/new$/);
+    await page.getByRole('button', { name: 'Create the page' }).click();
+    await page.getByText('Some entries need a look; they are marked above.').waitFor();
+    await page.getByLabel('Name').fill(name);
+    await page.getByLabel('Instrument').fill('A hanging-weight rig (invented for the test)');
+    await page.getByLabel('Test medium').fill('Cotton thread');
+    await page.getByLabel('Readings per edge').fill('3');
+    await page.getByRole('button', { name: 'Create the page' }).click();
+    const slug = name.toLowerCase().replaceAll(' ', '-');
+    await page.waitForURL(new RegExp(`/methods/${slug}$`));
+    await page.getByRole('heading', { level: 1, name }).waitFor();
+    const created = await api<{ revisionNumber: number; readingsPerEdge: number; version: number }>(`/api/methods/${slug}`);
+    expect(created).toMatchObject({ revisionNumber: 1, readingsPerEdge: 3, version: 1 });
     await signOut();
   }, 60_000);
 });

@@ -1,5 +1,6 @@
 import { PageTitle } from '@/components/ui/page-title';
 import { ListStates } from '@/components/ui/states';
+import { NewPageLink } from '@/features/wiki/components/new-page-link';
 import { useMethods } from '@/features/methods/api/get-methods';
 import { MethodsTable } from '@/features/methods/components/methods-table';
 
@@ -11,6 +12,7 @@ export default function MethodsRoute() {
       <PageTitle title="Methods" lead="Written test protocols. Every result names the method, and version, it was measured with.">
         Methods
       </PageTitle>
+      <NewPageLink section="methods" />
       <ListStates query={list} emptyTitle="No methods written yet">
         {(items) => <MethodsTable methods={items} />}
       </ListStates>

@@ -5,6 +5,7 @@ import {
   abrasiveListQuerySchema,
   PAGE_SECTIONS,
   PAGE_TYPES,
+  pageCreateSchemas,
   pageEditSchemas,
   pageMergeSchema,
   pageProtectSchema,
@@ -38,6 +39,7 @@ import {
   presentRevisionSummary,
   presentSteelSummary,
 } from '../../../presenters/pages';
+import { createPage } from '../../../commands/create-page';
 import { revisePage } from '../../../commands/revise-page';
 import { reviewPageRevision } from '../../../commands/review-page-revision';
 import { revertPage } from '../../../commands/revert-page';
@@ -47,7 +49,7 @@ import { mergePages } from '../../../commands/merge-pages';
 
 /**
  * The reference pages: steels, abrasives and methods, as lists (with filters) and one by one;
- * and the wiki on each: edit (PUT), history, one revision, revert, protect, merge; and the
+ * and the wiki on each: create (POST to the section), edit (PUT), history, one revision, revert, protect, merge; and the
  * review of proposed revisions.
  *
  * A merged page's slug answers GET with `301 Moved Permanently`, `Location:
@@ -78,6 +80,18 @@ export function pagesRouter(ctx: AppContext, answers: AnswerCache): Router {
 
   for (const type of PAGE_TYPES) {
     const section = PAGE_SECTIONS[type];
+
+    router.post(`/${section}`, requireUser, route({ body: pageCreateSchemas[type] }, async (req, res) => {
+      const actor = actorOf(req)!;
+      if (!can(actor, 'create:page')) throw forbidden('Only moderators and admins start new reference pages; propose changes to an existing page instead.');
+      const created = await createPage(ctx, actor, type, req.valid.body);
+      const page = await findPageOfType(type, created.page.slug);
+      const revision = await findRevisionOf(type, page.id, created.revision.id);
+      res
+        .status(201)
+        .location(`${req.baseUrl}/${section}/${page.slug}`)
+        .json({ status: 'live', revision: presentRevision(revision, page, actor, await linkCheckerFor([revision.body])), page: await presentPage(type, page, actor) });
+    }));
 
     router.get(`/${section}/:slug`, forVisitors, route({ params: slugParams }, async (req, res) => {
       const slug = req.valid.params.slug;

@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { mergeEdits } from '@shared/page-diff';
-import { normalizeFields, pageEditSchemas, type PageContent, type PageEdit, type PageType } from '@shared/schemas/pages';
+import { normalizeFields, pageCreateSchemas, pageEditSchemas, type PageContent, type PageCreate, type PageEdit, type PageType } from '@shared/schemas/pages';
 import { paths } from '@/config/paths';
 import { ApiError } from '@/lib/api-client';
 import { friendlyZodMessages } from '@/lib/zod-messages';
@@ -12,10 +12,11 @@ import { Button } from '@/components/ui/button';
 import { controlA11y, Field, Input } from '@/components/ui/field';
 import { describeError, Loading } from '@/components/ui/states';
 import { useSavePage } from '../api/save-page';
+import { useCreatePage } from '../api/create-page';
 import { wikiPageQueryOptions } from '../api/get-wiki-page';
 import { revisionQueryOptions } from '../api/get-revision';
-import { SECTION_TYPES, type Revision, type WikiPage, type WikiSection } from '../types';
-import { contentOfEdit, toFormValues, toPageEdit, type PageFormValues } from './page-form-values';
+import { SECTION_LABELS, SECTION_TYPES, type Revision, type WikiPage, type WikiSection } from '../types';
+import { contentOfEdit, emptyFormValues, toFormValues, toPageCreate, toPageEdit, type PageFormValues } from './page-form-values';
 import { CitationsFields, TypeFields } from './page-fields';
 import { RevisionDiff } from './revision-diff';
 
@@ -37,10 +38,11 @@ interface Stale {
   merged: PageContent;
 }
 
-function resolverFor(type: PageType): Resolver<PageFormValues, unknown, PageEdit> {
-  const zod = zodResolver(pageEditSchemas[type] as never, { error: friendlyZodMessages });
+/** The form checked with the server's schema: an edit's, or a new page's (no base revision). */
+function resolverFor(type: PageType, isNew: boolean): Resolver<PageFormValues, unknown, PageEdit> {
+  const zod = zodResolver((isNew ? pageCreateSchemas : pageEditSchemas)[type] as never, { error: friendlyZodMessages });
   return async (values, context, options) => {
-    const out = await zod(toPageEdit(type, values) as never, context, options as never);
+    const out = await zod((isNew ? toPageCreate(type, values) : toPageEdit(type, values)) as never, context, options as never);
     if (Object.keys(out.errors).length === 0) return { values: out.values as unknown as PageEdit, errors: {} };
     return { values: {}, errors: out.errors as never };
   };
@@ -52,26 +54,30 @@ function resolverFor(type: PageType): Resolver<PageFormValues, unknown, PageEdit
  * the body in TipTap, and a summary. A member's save becomes a proposal for the review desk; a
  * publisher's or moderator's goes live. When someone saved first, nothing is lost: the form
  * shows what they changed, which fields both changed, and offers to carry on from their
- * revision with this edit's other changes merged in.
+ * revision with this edit's other changes merged in. Without a page it starts a new one
+ * (moderators and admins): the same form, empty, saved through POST /api/{section}.
  */
-export function PageEditor({ section, page }: { section: WikiSection; page: WikiPage }) {
+export function PageEditor({ section, page }: { section: WikiSection; page: WikiPage | null }) {
   const type = SECTION_TYPES[section];
   const summaryId = useId();
   const bodyId = useId();
   const navigate = useNavigate();
   const queryClient = useQueryClient();
-  const resolver = useMemo(() => resolverFor(type), [type]);
+  const resolver = useMemo(() => resolverFor(type, !page), [type, page]);
   const form = useForm<PageFormValues, unknown, PageEdit>({
     resolver,
     mode: 'onTouched',
-    defaultValues: toFormValues(type, contentOfPage(type, page), page.revision),
+    defaultValues: page ? toFormValues(type, contentOfPage(type, page), page.revision) : emptyFormValues(type),
   });
-  const save = useSavePage(section, page.slug);
+  const saveEdit = useSavePage(section, page?.slug ?? '');
+  const create = useCreatePage(section);
+  const save = page ? saveEdit : create;
   const [stale, setStale] = useState<Stale | null>(null);
   const [proposed, setProposed] = useState<Revision | null>(null);
   const [loadingStale, setLoadingStale] = useState(false);
 
   const onStale = async (edit: PageEdit) => {
+    if (!page) return;
     setLoadingStale(true);
     try {
       const fresh = await queryClient.fetchQuery({ ...wikiPageQueryOptions(section, page.slug), staleTime: 0 });
@@ -89,7 +95,11 @@ export function PageEditor({ section, page }: { section: WikiSection; page: Wiki
 
   const submit = form.handleSubmit((edit) => {
     setStale(null);
-    save.mutate(edit, {
+    if (!page) {
+      create.mutate(edit as unknown as PageCreate, { onSuccess: (outcome) => navigate(paths.wiki.page(section, outcome.page.slug), { state: { saved: outcome.revision.id } }) });
+      return;
+    }
+    saveEdit.mutate(edit, {
       onSuccess: (outcome) => {
         if (outcome.status === 'live') navigate(paths.wiki.page(section, page.slug), { state: { saved: outcome.revision.id } });
         else setProposed(outcome.revision);
@@ -112,7 +122,7 @@ export function PageEditor({ section, page }: { section: WikiSection; page: Wiki
     save.reset();
   };
 
-  if (proposed) {
+  if (proposed && page) {
     return (
       <div role="status" className="flex flex-col gap-3 rounded-md border border-accent/40 bg-accent-soft px-5 py-4">
         <p className="font-serif text-lg">Thank you: your edit is waiting for review.</p>
@@ -131,13 +141,14 @@ export function PageEditor({ section, page }: { section: WikiSection; page: Wiki
 
   const summaryError = form.formState.errors.summary?.message;
   const bodyError = (form.formState.errors.body as { message?: string } | undefined)?.message;
-  const serverError = save.error && !(save.error instanceof ApiError && save.error.status === 409) ? save.error : null;
+  // A 409 on an edit is someone saving first (the panel below); on a new page, a slug taken.
+  const serverError = save.error && !(page && save.error instanceof ApiError && save.error.status === 409) ? save.error : null;
   const issues = serverError instanceof ApiError ? serverError.issues : [];
 
   return (
     <FormProvider {...form}>
-      <form noValidate onSubmit={submit} aria-label={`Edit ${page.name}`} className="flex flex-col gap-8">
-        {page.isProtected ? (
+      <form noValidate onSubmit={submit} aria-label={page ? `Edit ${page.name}` : `New ${SECTION_LABELS[section].one} page`} className="flex flex-col gap-8">
+        {page?.isProtected ? (
           <p className="rounded-md border border-caution/40 bg-caution-soft px-4 py-2 text-caution">This page is protected: only moderators edit it.</p>
         ) : null}
 
@@ -178,7 +189,12 @@ export function PageEditor({ section, page }: { section: WikiSection; page: Wiki
           <h2 id="edit-save" className="text-xl font-semibold">
             Save
           </h2>
-          <Field id={summaryId} label="Summary of your changes" hint="Shown in the page’s history, e.g. “Composition from ASTM A681”." error={summaryError}>
+          <Field
+            id={summaryId}
+            label={page ? 'Summary of your changes' : 'Summary (optional)'}
+            hint={page ? 'Shown in the page’s history, e.g. “Composition from ASTM A681”.' : 'Shown in the page’s history; left blank, it reads “First version.”'}
+            error={summaryError}
+          >
             <Input {...controlA11y(summaryId, { hint: true, error: summaryError })} {...form.register('summary')} maxLength={300} />
           </Field>
           {serverError ? (
@@ -202,10 +218,10 @@ export function PageEditor({ section, page }: { section: WikiSection; page: Wiki
           ) : null}
           <div className="flex flex-wrap items-center gap-3">
             <Button type="submit" busy={save.isPending}>
-              {page.can.publish ? 'Save and publish' : 'Propose this edit'}
+              {!page ? 'Create the page' : page.can.publish ? 'Save and publish' : 'Propose this edit'}
             </Button>
-            <Link to={paths.wiki.page(section, page.slug)}>Cancel</Link>
-            {!page.can.publish ? <span className="text-sm text-muted">A moderator reviews it before it shows on the page.</span> : null}
+            <Link to={page ? paths.wiki.page(section, page.slug) : `/${section}`}>Cancel</Link>
+            {page && !page.can.publish ? <span className="text-sm text-muted">A moderator reviews it before it shows on the page.</span> : null}
           </div>
         </section>
 

@@ -1,4 +1,4 @@
-import { EDITABLE_FIELDS, normalizeFields, type PageContent, type PageEdit, type PageType } from '@shared/schemas/pages';
+import { EDITABLE_FIELDS, normalizeFields, type PageContent, type PageCreate, type PageEdit, type PageType } from '@shared/schemas/pages';
 import type { RichTextNode } from '@shared/rich-text';
 
 /**
@@ -38,6 +38,23 @@ export function toFormValues(type: PageType, content: PageContent, baseRevision:
   }
   if (type === 'method') values.retentionMedium = f.retentionMedium ?? '';
   return values;
+}
+
+/** What a new page's form starts from: nothing entered, lists empty but for one designation row. */
+const EMPTY_FIELDS: Record<PageType, Record<string, unknown>> = {
+  steel: { name: '', category: '', designations: [{ system: 'AISI', code: '' }], composition: [] },
+  abrasive: { name: '', material: '', bond: '', form: '', grit: { standard: 'fepa-f', grade: '' }, wears: false, sideUsable: false, coolant: '' },
+  method: { name: '', instrument: '', medium: '', readingsPerEdge: null },
+};
+
+/** The form's values for a new page of the type. */
+export const emptyFormValues = (type: PageType): PageFormValues => toFormValues(type, { fields: EMPTY_FIELDS[type], body: null }, 0);
+
+/** What POST /api/{section} takes from the form's values: an edit without its base revision. */
+export function toPageCreate(type: PageType, values: PageFormValues): PageCreate {
+  const { baseRevision: _b, summary, ...input } = toPageEdit(type, values);
+  // A blank summary takes the server's default ("First version.").
+  return { ...input, ...(summary.trim() ? { summary } : {}) } as PageCreate;
 }
 
 /** The page content of the form's values, before validation. */
