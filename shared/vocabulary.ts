@@ -86,6 +86,7 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   'user.role': 'changed the role of',
   'user.ban': 'banned',
   'user.unban': 'lifted the ban on',
+  'page.create': 'started the page',
 };
 
 /**

@@ -39,6 +39,10 @@ function AuditSubject({ entry: e }: { entry: Entry }) {
   if (e.subjectType === 'publisher-application') {
     return <Link to={paths.publisherApplications.getHref()}>{typeof details.applicant === 'string' ? `of @${details.applicant}` : `application ${e.subjectId}`}</Link>;
   }
+  if ((e.subjectType === 'steel' || e.subjectType === 'abrasive' || e.subjectType === 'method') && typeof details.slug === 'string') {
+    const name = typeof details.name === 'string' ? details.name : details.slug;
+    return <Link to={paths[e.subjectType].getHref(details.slug)}>{name}</Link>;
+  }
   if (e.subjectType === 'site-settings') return <>{String(details.key ?? 'setting')}: {String(details.from)} → {String(details.to)}</>;
   return <>{e.subjectType}{e.subjectId ? ` ${e.subjectId}` : ''}</>;
 }
