@@ -114,7 +114,8 @@ const OWNER_PLACES = ['steel', 'abrasive', 'method', 'member'] as const;
 const OWNERS_PER_DOC = OWNER_PLACES.length;
 
 type Counts = { facets: Record<SearchDocType, number>; groups: Partial<Record<SearchDocType, Record<string, number>>> };
-type Ranked = { shown: ShownDoc; score: number; terms: string[] };
+/** A hit before it is written out: its document's key in the index ("steel:aisi-d2", "result:12"), how it is shown, its score and matched words. */
+type Ranked = { key: string; shown: ShownDoc; score: number; terms: string[] };
 type SearchAnswer = { hits: SearchHit[] } & Counts;
 /** Hits shown for a query, unless the caller asks for another number. */
 const HITS_SHOWN = 30;
@@ -262,12 +263,10 @@ export class SearchIndex {
     const pages = this.pages.search({ combineWith: 'AND', queries }, { boost: BOOST });
     for (const r of pages) countHit(counts, this.docs.get(r.id as string)!);
     const owned = this.searchOwned(queries, type, limit, counts);
-    const fromPages = pages.map((r): Ranked => ({ shown: this.docs.get(r.id as string)!, score: r.score, terms: r.terms }));
+    const fromPages = pages.map((r): Ranked => ({ key: r.id as string, shown: this.docs.get(r.id as string)!, score: r.score, terms: r.terms }));
     const overall = [...fromPages.filter((r) => !type || r.shown.type === type).slice(0, limit), ...owned.top].sort((a, b) => b.score - a.score).slice(0, limit);
     // Each type's best few (pages come best first), beside the best overall, each hit once.
-    // A page's or a cell's shown document is the index's own object; a result's is made when shown.
-    const keyOf = (r: Ranked): unknown => (r.shown.type === 'result' ? r.shown.id : r.shown);
-    const shown = new Set(overall.map(keyOf));
+    const shown = new Set(overall.map((r) => r.key));
     const perPageType = new Map<SearchDocType, number>();
     const sections = type
       ? []
@@ -278,7 +277,7 @@ export class SearchIndex {
             return n <= SECTION_BEST;
           }),
           ...owned.best,
-        ].filter((r) => !shown.has(keyOf(r)) && shown.add(keyOf(r)));
+        ].filter((r) => !shown.has(r.key) && shown.add(r.key));
     const ranked = [...overall, ...sections].sort((a, b) => b.score - a.score);
     const hits = ranked.map(({ shown: doc, score, terms: matched }) => {
       const piece = doc.summary !== undefined ? { text: doc.summary, highlights: matchedSpans(doc.summary, matched) } : snippet(doc, matched);
@@ -391,7 +390,7 @@ export class SearchIndex {
         const ranked: Ranked[] = [];
         for (const { g, score } of best.list) {
           const matched = perTerm.flatMap((t) => termsOf(t, g));
-          for (const row of table.rowsOf(g, best.cap - ranked.length)) ranked.push({ shown: table.shown(row, this.docs), score, terms: matched });
+          for (const row of table.rowsOf(g, best.cap - ranked.length)) ranked.push({ key: table.keyOf(row), shown: table.shown(row, this.docs), score, terms: matched });
         }
         return ranked;
       };
@@ -536,6 +535,11 @@ class OwnedTable {
     const out: number[] = [];
     for (let row = this.first[g]; row >= 0 && out.length < count; row = this.next[row]) out.push(row);
     return out;
+  }
+
+  /** Row `row`'s document key in the index: a cell's as added, a result's "result:<id>". */
+  keyOf(row: number): string {
+    return this.keyOfRow.get(row) ?? `result:${this.resultId[row]}`;
   }
 
   /** How row `row` is shown as a hit (a cell's from `docs`, where the index keeps it). */
